@@ -1,0 +1,2 @@
+// Node-side file helpers: atomic writes.
+export { writeFileAtomic } from './atomicWrite';

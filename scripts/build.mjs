@@ -1,0 +1,43 @@
+// Builds Whence's Node-side programs with esbuild: `cli` (the whence command), `electron` (main + preload), `all` (also the web renderer).
+// Usage: node scripts/build.mjs cli|electron|web|all
+import { build } from 'esbuild';
+import { chmod } from 'node:fs/promises';
+import { fileURLToPath } from 'node:url';
+import { dirname, join } from 'node:path';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const target = process.argv[2] ?? 'all';
+
+async function buildCli() {
+  const outfile = join(root, 'dist/cli/whence.mjs');
+  await build({
+    entryPoints: [join(root, 'main/cli/bin.ts')],
+    outfile,
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    sourcemap: true,
+    banner: { js: "#!/usr/bin/env node\nimport { createRequire as __whenceCreateRequire } from 'node:module'; const require = __whenceCreateRequire(import.meta.url);" },
+    logLevel: 'warning',
+  });
+  await chmod(outfile, 0o755);
+}
+
+async function buildElectron() {
+  const common = { bundle: true, platform: 'node', format: 'cjs', target: 'node20', external: ['electron'], sourcemap: true, logLevel: 'warning' };
+  await build({ ...common, entryPoints: [join(root, 'main/electron/main.ts')], outfile: join(root, 'dist/main/electron-main.cjs') });
+  await build({ ...common, entryPoints: [join(root, 'main/electron/preload.ts')], outfile: join(root, 'dist/main/preload.cjs') });
+}
+
+async function buildWeb() {
+  const { build: viteBuild } = await import('vite');
+  await viteBuild({ configFile: join(root, 'vite.config.ts'), logLevel: 'warn' });
+}
+
+const steps = { cli: [buildCli], electron: [buildElectron], web: [buildWeb], all: [buildCli, buildElectron, buildWeb] };
+if (!(target in steps)) {
+  console.error(`build: unknown target '${target}'; use cli, electron, web or all.`);
+  process.exit(2);
+}
+for (const step of steps[target]) await step();
