@@ -8,6 +8,5 @@ export default defineConfig({
     hookTimeout: 120_000,
     pool: 'forks',
     reporters: ['default'],
-    globalSetup: ['test/globalSetup.ts'],
   },
 });

@@ -6,6 +6,9 @@ import type { EcefPosition, GeodeticPosition } from './types';
 import { requireEcef } from './validatePosition';
 import { WGS84 } from './wgs84';
 
+/** Below this |Z|, a point within a·e² of the polar axis is treated as on the equatorial plane (avoids underflow). */
+const EQUATORIAL_PLANE_METERS = 1e-9;
+
 /** ECEF to geodetic without iteration; throws WhenceError 'geo-invalid-position' for a non-finite coordinate. */
 export function ecefToGeodetic(p: EcefPosition): GeodeticPosition {
   requireEcef('position', p);
@@ -20,6 +23,10 @@ export function ecefToGeodeticUnchecked(p: EcefPosition): GeodeticPosition {
   const { xMeters: x, yMeters: y, zMeters: z } = p;
   const horizontalMeters = Math.hypot(x, y);
 
+  if (Math.abs(z) < EQUATORIAL_PLANE_METERS && horizontalMeters <= a * e2) {
+    return equatorialInsideEvolute(horizontalMeters, x, y, z < 0 ? -1 : 1);
+  }
+
   const pp = (horizontalMeters * horizontalMeters) / (a * a);
   const q = ((1 - e2) * z * z) / (a * a);
   const r = (pp + q - e4) / 6;
@@ -28,19 +35,19 @@ export function ecefToGeodeticUnchecked(p: EcefPosition): GeodeticPosition {
 
   let u: number;
   if (evolute > 0) {
-    // Outside the evolute of the meridian ellipse: every point more than about 43 km from the centre.
+    // Outside the evolute of the meridian ellipse (every point more than about 43 km from the centre).
+    // (√evolute − √e4pq) is written as 8r³/(√evolute + √e4pq) to avoid cancellation when r < 0.
     const rootEvolute = Math.sqrt(evolute);
     const rootE4pq = Math.sqrt(e4pq);
     const plus = Math.cbrt(rootEvolute + rootE4pq);
-    const minus = Math.cbrt(rootEvolute - rootE4pq);
+    const minus = Math.cbrt((8 * r * r * r) / (rootEvolute + rootE4pq));
     u = r + 0.5 * plus * plus + 0.5 * minus * minus;
   } else {
-    // Inside the evolute (r < 0 here): trigonometric root of the cubic.
-    const rootE4pq = Math.sqrt(e4pq);
-    const rootMinus8r3 = Math.sqrt(-8 * r * r * r);
-    const rootMinusEvolute = Math.sqrt(-evolute);
-    u = -4 * r * Math.sin((2 / 3) * Math.atan2(rootE4pq, rootMinusEvolute + rootMinus8r3)) *
-      Math.cos(Math.PI / 6 + (1 / 3) * Math.atan2(rootE4pq, rootMinusEvolute + rootMinus8r3));
+    // Inside the evolute (r < 0): the largest real root, u = r(1 − 2cos(θ/3)) with cos θ = −1 + sPrime,
+    // written through β = π − θ so that nothing cancels as sPrime -> 0.
+    const sPrime = r === 0 ? 0 : Math.min(2, -e4pq / (4 * r * r * r));
+    const beta = Math.atan2(Math.sqrt(sPrime * (2 - sPrime)), 1 - sPrime);
+    u = -4 * r * Math.sin(Math.PI / 3 - beta / 6) * Math.sin(beta / 6);
   }
 
   const v = Math.sqrt(u * u + e4 * q);
@@ -56,5 +63,23 @@ export function ecefToGeodeticUnchecked(p: EcefPosition): GeodeticPosition {
     latitudeDegrees: radiansToDegrees(latitude),
     longitudeDegrees: radiansToDegrees(longitude),
     heightMeters,
+  };
+}
+
+/**
+ * On the equatorial plane within a·e² (about 43 km) of the centre the nearest ellipsoid points lie off the
+ * equator, symmetric about it; return the one on the point's side (north for z = 0).
+ * The normal at latitude φ meets the plane at a·e²·cosφ/sqrt(1 − e²·sin²φ).
+ */
+function equatorialInsideEvolute(horizontalMeters: number, x: number, y: number, side: 1 | -1): GeodeticPosition {
+  const a = WGS84.semiMajorAxisMeters;
+  const e2 = WGS84.eccentricitySquared;
+  const cosSquared = (horizontalMeters * horizontalMeters * (1 - e2)) / (e2 * (a * a * e2 - horizontalMeters * horizontalMeters));
+  const latitude = Math.acos(Math.min(1, Math.sqrt(cosSquared)));
+  const sinLatitude = Math.sin(latitude);
+  return {
+    latitudeDegrees: side * radiansToDegrees(latitude),
+    longitudeDegrees: horizontalMeters === 0 ? 0 : radiansToDegrees(Math.atan2(y, x)),
+    heightMeters: horizontalMeters * Math.cos(latitude) - a * Math.sqrt(1 - e2 * sinLatitude * sinLatitude),
   };
 }

@@ -3,6 +3,7 @@
 import { isWhenceError } from '../../core/errors';
 import { WHENCE_VERSION } from '../../core/version';
 import { infoHelp, runInfo } from './commands/info';
+import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
 import type { CliIo } from './io';
 
@@ -14,6 +15,7 @@ interface Command {
 
 const commands: Record<string, Command> = {
   info: { summary: 'what a recording holds: format, channels, rate, duration, start time', help: infoHelp, run: runInfo },
+  solve: { summary: 'position fixes from a table of measured time differences', help: solveHelp, run: runSolve },
   speed: { summary: 'speed of sound in air, seawater or fresh water', help: speedHelp, run: runSpeed },
 };
 

@@ -1,0 +1,9 @@
+// Streaming recording reader: WAV / RF64 / BW64 headers, BWF start time, and any window of frames on demand.
+export type { ByteSource } from './byteSource';
+export { memoryByteSource } from './byteSource';
+export type { WavInfo, WavStartTime, SampleLayout } from './wavTypes';
+export { WavFormatError } from './wavFormatError';
+export { readWavInfo } from './readWavInfo';
+export { readFrames } from './readFrames';
+export { decodeInterleaved } from './decodeInterleaved';
+export { formatStartTime } from './startTime';

@@ -1,0 +1,48 @@
+// One flat record per located event, with units in every key, as the command line and the app export it.
+// Angles of the ellipse are counter-clockwise from east (+x), in degrees; positions in local metres and WGS84.
+import { enuToGeodetic, type GeodeticPosition } from '../geo';
+import type { SolveResult } from '../locate';
+
+export type FixRecordValue = string | number | undefined;
+export type FixRecord = Record<string, FixRecordValue>;
+
+export const FIX_COLUMNS_2D = ['event', 'status', 'x_m', 'y_m', 'z_m', 'lat', 'lon', 'alt_m', 'cov_xx_m2', 'cov_xy_m2', 'cov_yy_m2', 'semi_major_m', 'semi_minor_m', 'major_axis_deg', 'confidence', 'residual_rms_s', 'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_used', 'pairs_dropped', 'alternative_x_m', 'alternative_y_m', 'warnings'] as const;
+export const FIX_COLUMNS_3D = [...FIX_COLUMNS_2D.slice(0, 11), 'cov_zz_m2', 'cov_xz_m2', 'cov_yz_m2', ...FIX_COLUMNS_2D.slice(11), 'alternative_z_m'] as const;
+
+function finiteOrUndefined(value: number | undefined): number | undefined {
+  return value !== undefined && Number.isFinite(value) ? value : undefined;
+}
+
+function round(value: number | undefined, digits: number): number | undefined {
+  const finite = finiteOrUndefined(value);
+  return finite === undefined ? undefined : Number(finite.toPrecision(digits));
+}
+
+export function fixRecord(event: string, result: SolveResult, dimensions: 2 | 3, origin: GeodeticPosition | undefined): FixRecord {
+  const record: FixRecord = { event, status: result.status, warnings: result.warnings.join(' | ') };
+  const fix = result.fix;
+  if (fix === undefined) return record;
+  const covariance = fix.covarianceMeters2;
+  Object.assign(record, {
+    x_m: round(fix.eastMeters, 10), y_m: round(fix.northMeters, 10), z_m: round(fix.upMeters, 10),
+    cov_xx_m2: round(covariance[0]?.[0], 6), cov_xy_m2: round(covariance[0]?.[1], 6), cov_yy_m2: round(covariance[1]?.[1], 6),
+    semi_major_m: round(fix.ellipse.semiMajorMeters, 6), semi_minor_m: round(fix.ellipse.semiMinorMeters, 6),
+    major_axis_deg: round(fix.ellipse.majorAxisDegreesFromEast, 5), confidence: fix.ellipse.confidence,
+    residual_rms_s: round(fix.residualRmsSeconds, 6), timing_sigma_s: round(fix.timingSigmaSeconds, 6), sigma_source: fix.sigmaSource,
+    chi_square: round(fix.chiSquare.statistic, 6), chi_square_dof: fix.chiSquare.degreesOfFreedom,
+    gdop: round(fix.gdop, 6), pairs_used: fix.pairsUsed,
+    pairs_dropped: fix.droppedPairs.map((pair) => `${pair.indexA + 1}-${pair.indexB + 1}`).join(' '),
+  });
+  if (dimensions === 3) {
+    Object.assign(record, { cov_zz_m2: round(covariance[2]?.[2], 6), cov_xz_m2: round(covariance[0]?.[2], 6), cov_yz_m2: round(covariance[1]?.[2], 6) });
+  }
+  if (fix.alternative !== undefined) {
+    Object.assign(record, { alternative_x_m: round(fix.alternative.eastMeters, 10), alternative_y_m: round(fix.alternative.northMeters, 10) });
+    if (dimensions === 3) record.alternative_z_m = round(fix.alternative.upMeters, 10);
+  }
+  if (origin !== undefined) {
+    const geodetic = enuToGeodetic({ eastMeters: fix.eastMeters, northMeters: fix.northMeters, upMeters: fix.upMeters }, origin);
+    Object.assign(record, { lat: round(geodetic.latitudeDegrees, 11), lon: round(geodetic.longitudeDegrees, 11), alt_m: round(geodetic.heightMeters, 8) });
+  }
+  return record;
+}

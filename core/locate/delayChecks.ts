@@ -1,0 +1,85 @@
+// Consistency checks of pair delays before a fit: the physical limit |tau_ab| <= d_ab / c + tolerance, and triplet
+// closure tau_ab + tau_bc + tau_ca = 0 within the combined sigma (both follow from the definition of a TDOA). Seconds.
+import type { DelayMeasurement, Microphone } from './types';
+
+export interface LimitViolation {
+  delayIndex: number;
+  limitSeconds: number;
+}
+
+/**
+ * Delays beyond d_ab / c_min + tolerance, where c_min = c - 3 sigma_c (the slowest plausible sound) and the tolerance
+ * is `toleranceSeconds(k)`.
+ */
+export function physicalLimitViolations(
+  microphones: readonly Microphone[],
+  delays: readonly DelayMeasurement[],
+  speedMetersPerSecond: number,
+  speedSigmaMetersPerSecond: number,
+  toleranceSeconds: (delayIndex: number) => number,
+): LimitViolation[] {
+  const slowest = Math.max(speedMetersPerSecond - 3 * speedSigmaMetersPerSecond, 0.5 * speedMetersPerSecond);
+  const out: LimitViolation[] = [];
+  delays.forEach((delay, k) => {
+    const a = microphones[delay.indexA];
+    const b = microphones[delay.indexB];
+    const d = Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters);
+    const limitSeconds = d / slowest + toleranceSeconds(k);
+    if (Math.abs(delay.delaySeconds) > limitSeconds) out.push({ delayIndex: k, limitSeconds });
+  });
+  return out;
+}
+
+export interface ClosureFailure {
+  /** Delay indices of the three pairs (a,b), (b,c), (a,c) with a < b < c. */
+  delayIndices: [number, number, number];
+  microphones: [number, number, number];
+  /** tau_ab + tau_bc + tau_ca, seconds. */
+  misclosureSeconds: number;
+  /** Combined sigma of the three delays, seconds. */
+  sigmaSeconds: number;
+}
+
+/**
+ * Triplets of measured pairs whose closure exceeds `sigmaLimit` combined sigmas. Only delays with `usable[k]` take part;
+ * when a pair is measured twice, the first measurement is used.
+ */
+export function closureFailures(
+  micCount: number,
+  delays: readonly DelayMeasurement[],
+  usable: ArrayLike<boolean>,
+  sigmaSeconds: (delayIndex: number) => number,
+  sigmaLimit = 4,
+): ClosureFailure[] {
+  // lookup[a * n + b] = delay index of pair (a, b) in either direction, -1 when not measured.
+  const n = micCount;
+  const lookup = new Int32Array(n * n).fill(-1);
+  delays.forEach((delay, k) => {
+    if (!usable[k]) return;
+    const { indexA: a, indexB: b } = delay;
+    if (lookup[a * n + b] < 0) {
+      lookup[a * n + b] = k;
+      lookup[b * n + a] = k;
+    }
+  });
+  // t_x - t_y from measurement k of pair (x, y), whichever way round it was measured.
+  const difference = (x: number, k: number): number => (delays[k].indexA === x ? delays[k].delaySeconds : -delays[k].delaySeconds);
+  const out: ClosureFailure[] = [];
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      const kab = lookup[a * n + b];
+      if (kab < 0) continue;
+      for (let c = b + 1; c < n; c++) {
+        const kbc = lookup[b * n + c];
+        const kac = lookup[a * n + c];
+        if (kbc < 0 || kac < 0) continue;
+        const misclosure = difference(a, kab) + difference(b, kbc) - difference(a, kac);
+        const sigma = Math.sqrt(sigmaSeconds(kab) ** 2 + sigmaSeconds(kbc) ** 2 + sigmaSeconds(kac) ** 2);
+        if (Math.abs(misclosure) > sigmaLimit * sigma) {
+          out.push({ delayIndices: [kab, kbc, kac], microphones: [a, b, c], misclosureSeconds: misclosure, sigmaSeconds: sigma });
+        }
+      }
+    }
+  }
+  return out;
+}

@@ -1,0 +1,148 @@
+// `whence solve`: position fixes from measured time differences (a delay table) and the array, one record per event,
+// with covariance, uncertainty ellipse, residuals and warnings; CSV to stdout, or JSON/GeoJSON.
+import { extname } from 'node:path';
+import { fixesToCsv, fixesToGeoJson, fixesToJson, fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from '../../../core/export';
+import { parseDegrees, type GeodeticPosition } from '../../../core/geo';
+import { solveFix, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
+import { speedOfSound } from '../../../core/medium';
+import { parseArrayCsv, parseDelaysCsv, type ArrayGeometry, type DelayEvent } from '../../../core/project';
+import { writeFileAtomic } from '../../files';
+import type { CliIo } from '../io';
+import { mediumOptionNames, mediumOptionSpec, mediumSpecFromOptions } from '../mediumOptions';
+import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError, type ParsedCommand } from '../parse';
+import { readTextFile } from '../readInput';
+
+export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [options]
+
+  Position fixes from measured time differences of arrival. One fix per event.
+
+  --array FILE          microphones: channel and x_m,y_m[,z_m] (local metres: x east,
+                        y north, z up) or lat,lon[,alt_m] (WGS84); optional label, sigma_m
+  --delays FILE         mic_a,mic_b,delay_s (arrival at a minus arrival at b, seconds;
+                        mic numbers are channels); optional sigma_s, event
+  --sound-speed M_S     speed of sound in m/s (instead of --medium/--temperature)
+  --sound-speed-sigma M_S  its standard deviation (default 0)
+  --medium M            air (default), seawater or freshwater, with --temperature C and
+                        the options of 'whence speed'
+  --temperature-sigma K uncertainty of the temperature (default 1 K; 5 K when assumed)
+  --dims 2|3            2 (default): source on a known height; 3: full 3-D fix
+  --height M            source height for 2-D, metres up (default: microphones' mean)
+  --confidence P        confidence of the ellipse, 0..1 (default 0.95)
+  --timing-sigma S      standard deviation for delays without sigma_s (default: estimated
+                        from the residuals when there are enough pairs, else 0.0001 s)
+  --origin LAT,LON[,ALT]  WGS84 origin of the local frame (default for lat/lon arrays:
+                        their centroid); gives lat/lon in the output
+  --monte-carlo N       also estimate the covariance from N seeded noisy trials
+  --seed N              seed of the Monte Carlo trials (default 1)
+  --json                JSON array on standard output instead of CSV
+  --out FILE            write FILE.csv, FILE.json or FILE.geojson instead (atomically)
+
+  Output columns: event, status, x_m, y_m, z_m, lat, lon, alt_m, covariance (m²),
+  semi_major_m, semi_minor_m, major_axis_deg (counter-clockwise from east),
+  residual_rms_s, pairs_used, warnings, and more.
+`;
+
+export function parseOrigin(text: string | undefined): GeodeticPosition | undefined {
+  if (text === undefined) return undefined;
+  const parts = text.split(',').map((part) => part.trim());
+  if (parts.length < 2 || parts.length > 3) throw new UsageError(`--origin needs LAT,LON or LAT,LON,ALT in WGS84 degrees and metres; got '${text}'.`);
+  const heightMeters = parts[2] !== undefined ? Number(parts[2]) : 0;
+  if (!Number.isFinite(heightMeters)) throw new UsageError(`--origin altitude must be a number of metres; got '${parts[2]}'.`);
+  return { latitudeDegrees: parseDegrees(parts[0]!), longitudeDegrees: parseDegrees(parts[1]!), heightMeters };
+}
+
+interface SpeedChoice { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number; warnings: string[] }
+
+export function chooseSpeed(values: ParsedCommand['values']): SpeedChoice {
+  const given = optionalNumber(values, 'sound-speed', 'metres per second');
+  const givenSigma = optionalNumber(values, 'sound-speed-sigma', 'metres per second');
+  if (given !== undefined) {
+    const clash = mediumOptionNames.filter((name) => values[name] !== undefined).concat(values['temperature-sigma'] !== undefined ? ['temperature-sigma'] : []);
+    if (clash.length > 0) throw new UsageError(`--sound-speed replaces the medium options; leave out ${clash.map((name) => `--${name}`).join(', ')}.`);
+    if (!(given >= 100 && given <= 5000)) throw new UsageError(`--sound-speed ${given} m/s is outside 100..5000 m/s; sound travels at about 343 m/s in air and 1500 m/s in water.`);
+    return { speedMetersPerSecond: given, speedSigmaMetersPerSecond: givenSigma ?? 0, warnings: [] };
+  }
+  if (givenSigma !== undefined) throw new UsageError('--sound-speed-sigma goes with --sound-speed; with a medium, give --temperature-sigma instead.');
+  const { spec, warnings, temperatureAssumed } = mediumSpecFromOptions(values);
+  const speed = speedOfSound(spec);
+  const temperatureSigmaKelvin = optionalNumber(values, 'temperature-sigma', 'kelvin') ?? (temperatureAssumed ? 5 : 1);
+  if (temperatureSigmaKelvin < 0) throw new UsageError(`--temperature-sigma cannot be negative; got ${temperatureSigmaKelvin}.`);
+  return { speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: Math.abs(speed.sensitivityMetersPerSecondPerKelvin) * temperatureSigmaKelvin, warnings };
+}
+
+export function solveEvents(geometry: ArrayGeometry, events: readonly DelayEvent[], options: SolveOptions): FixRecord[] {
+  const microphones: Microphone[] = geometry.microphones.map((m) => ({ label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: m.surveySigmaMeters }));
+  const indexOfChannel = new Map(geometry.microphones.map((m, index) => [m.channel, index]));
+  return events.map((event) => {
+    const delays: DelayMeasurement[] = event.rows.map((row) => {
+      const measurement: DelayMeasurement = { indexA: indexOfChannel.get(row.channelA)!, indexB: indexOfChannel.get(row.channelB)!, delaySeconds: row.delaySeconds };
+      if (row.sigmaSeconds !== undefined) measurement.sigmaSeconds = row.sigmaSeconds;
+      return measurement;
+    });
+    const result = solveFix(microphones, delays, options);
+    return fixRecord(event.event, result, options.dimensions, geometry.origin);
+  });
+}
+
+export async function runSolve(argv: string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parseCommandArgs('solve', argv, {
+    array: { type: 'string' }, delays: { type: 'string' }, 'sound-speed': { type: 'string' }, 'sound-speed-sigma': { type: 'string' },
+    ...mediumOptionSpec, 'temperature-sigma': { type: 'string' }, dims: { type: 'string' }, height: { type: 'string' },
+    confidence: { type: 'string' }, 'timing-sigma': { type: 'string' }, origin: { type: 'string' }, 'monte-carlo': { type: 'string' },
+    seed: { type: 'string' }, json: { type: 'boolean' }, out: { type: 'string' },
+  });
+  if (positionals.length > 0) throw new UsageError(`whence solve takes its files as --array and --delays; unexpected '${positionals.join(' ')}'.`);
+  const arrayPath = optionalString(values, 'array');
+  const delaysPath = optionalString(values, 'delays');
+  if (arrayPath === undefined || delaysPath === undefined) throw new UsageError('whence solve needs --array ARRAY.csv and --delays DELAYS.csv.');
+  const dimensions = Number(oneOf('dims', optionalString(values, 'dims'), ['2', '3'] as const, '2')) as 2 | 3;
+  const confidence = optionalNumber(values, 'confidence', 'a probability such as 0.95') ?? 0.95;
+  if (!(confidence > 0 && confidence < 1)) throw new UsageError(`--confidence must be between 0 and 1 (e.g. 0.95); got ${confidence}.`);
+  const outPath = optionalString(values, 'out');
+  const outKind = outPath === undefined ? undefined : extname(outPath).toLowerCase();
+  if (outKind !== undefined && !['.csv', '.json', '.geojson'].includes(outKind)) throw new UsageError(`--out must end in .csv, .json or .geojson; got '${outPath}'.`);
+  if (outPath !== undefined && values.json === true) throw new UsageError('give either --json (standard output) or --out FILE, not both.');
+
+  const origin = parseOrigin(optionalString(values, 'origin'));
+  const speed = chooseSpeed(values);
+  const options: SolveOptions = { speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, dimensions, confidence };
+  const height = optionalNumber(values, 'height', 'metres up');
+  if (height !== undefined) {
+    if (dimensions === 3) throw new UsageError('--height fixes the source height for a 2-D fix; a 3-D fix (--dims 3) finds the height itself.');
+    options.sourceUpMeters = height;
+  }
+  const timingSigma = optionalNumber(values, 'timing-sigma', 'seconds');
+  if (timingSigma !== undefined) {
+    if (!(timingSigma > 0)) throw new UsageError(`--timing-sigma must be positive; got ${timingSigma}.`);
+    options.defaultTimingSigmaSeconds = timingSigma;
+  }
+  const trials = optionalNumber(values, 'monte-carlo', 'a number of trials');
+  if (trials !== undefined) {
+    if (!Number.isInteger(trials) || trials < 10 || trials > 100_000) throw new UsageError(`--monte-carlo must be a whole number of trials from 10 to 100000; got ${trials}.`);
+    options.monteCarlo = { trials, seed: optionalNumber(values, 'seed', 'a whole number') ?? 1 };
+  }
+
+  const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, origin);
+  const events = parseDelaysCsv(await readTextFile(delaysPath, 'delay table'), delaysPath, new Set(geometry.microphones.map((m) => m.channel)));
+  for (const warning of [...geometry.warnings, ...speed.warnings]) io.writeStderr(`warning: ${warning}\n`);
+  const records = solveEvents(geometry, events, options);
+  const columns = dimensions === 3 ? FIX_COLUMNS_3D : FIX_COLUMNS_2D;
+  let text: string;
+  if (outKind === '.geojson') {
+    if (geometry.origin === undefined) throw new UsageError('GeoJSON needs WGS84 positions: give the array as lat,lon or set --origin LAT,LON.');
+    text = fixesToGeoJson(records, geometry.origin, true);
+  } else if (outKind === '.json' || values.json === true) {
+    text = fixesToJson(records);
+  } else {
+    text = fixesToCsv(columns, records);
+  }
+  if (outPath !== undefined) {
+    await writeFileAtomic(outPath, text);
+    io.writeStderr(`wrote ${records.length} fix${records.length === 1 ? '' : 'es'} to ${outPath}\n`);
+  } else {
+    io.writeStdout(text);
+  }
+  const failed = records.filter((record) => record.status !== 'ok').length;
+  if (failed > 0) io.writeStderr(`${failed} of ${records.length} event${records.length === 1 ? '' : 's'} gave no unambiguous fix; see the status and warnings columns.\n`);
+  return 0;
+}

@@ -1,0 +1,61 @@
+import { describe, expect, it } from 'vitest';
+import { parseArrayCsv, parseDelaysCsv } from '../../../core/project';
+import { geodeticToEnu } from '../../../core/geo';
+
+describe('parseArrayCsv()', () => {
+  it('reads local metres with labels, heights and survey sigmas', () => {
+    const geometry = parseArrayCsv('channel,label,x_m,y_m,z_m,sigma_m\n1,pond,0,0,1.2,0.02\n2,reeds,40,0,1.5,0.03\n3,,0,35,\n', 'array.csv');
+    expect(geometry.microphones).toEqual([
+      { channel: 1, label: 'pond', eastMeters: 0, northMeters: 0, upMeters: 1.2, surveySigmaMeters: 0.02 },
+      { channel: 2, label: 'reeds', eastMeters: 40, northMeters: 0, upMeters: 1.5, surveySigmaMeters: 0.03 },
+      { channel: 3, label: 'M3', eastMeters: 0, northMeters: 35, upMeters: 0, surveySigmaMeters: 0 },
+    ]);
+    expect(geometry.origin).toBeUndefined();
+    expect(geometry.warnings).toEqual([]);
+  });
+
+  it('warns that positions are taken as exact when there is no sigma_m column', () => {
+    const geometry = parseArrayCsv('channel,x_m,y_m\n1,0,0\n2,10,0\n', 'array.csv');
+    expect(geometry.warnings.join(' ')).toMatch(/no sigma_m column/);
+  });
+
+  it('converts WGS84 positions to local east/north/up about their centroid', () => {
+    const text = 'channel,lat,lon,alt_m\n1,52.0,-1.0,100\n2,52.001,-1.0,100\n3,52.0,-0.998,100\n';
+    const geometry = parseArrayCsv(text, 'geo.csv');
+    const origin = geometry.origin!;
+    expect(origin.latitudeDegrees).toBeCloseTo(52.000333, 5);
+    // Round trip through core/geo: each microphone's ENU is its WGS84 position about the origin.
+    const enu = geodeticToEnu({ latitudeDegrees: 52.001, longitudeDegrees: -1, heightMeters: 100 }, origin);
+    expect(geometry.microphones[1]!.northMeters).toBeCloseTo(enu.northMeters, 6);
+    // 0.001° of latitude is about 111 m (common practice).
+    expect(geometry.microphones[1]!.northMeters - geometry.microphones[0]!.northMeters).toBeCloseTo(111.3, 0);
+  });
+
+  it('refuses duplicate channels, swapped coordinates and mixed position kinds with file, line and column', () => {
+    expect(() => parseArrayCsv('channel,x_m,y_m\n1,0,0\n1,5,5\n', 'a.csv')).toThrow("a.csv, line 3, column 'channel': channel 1 is already used on line 2");
+    expect(() => parseArrayCsv('channel,lat,lon\n1,-1.5,152.0\n2,152.0,-1.5\n', 'b.csv')).toThrow(/b\.csv, line 3, column 'lat'.*swapped/);
+    expect(() => parseArrayCsv('channel,x_m,y_m,lat,lon\n1,0,0,1,1\n', 'c.csv')).toThrow(/both local columns/);
+    expect(() => parseArrayCsv('channel,x_m,y_m\n0,0,0\n', 'd.csv')).toThrow(/whole number from 1/);
+    expect(() => parseArrayCsv('channel,x_m,y_m\n1,zero,0\n', 'e.csv')).toThrow("e.csv, line 2, column 'x_m': 'zero' is not a number");
+  });
+});
+
+describe('parseDelaysCsv()', () => {
+  const channels = new Set([1, 2, 3, 4]);
+
+  it('groups rows by event in order of appearance, with optional sigmas', () => {
+    const events = parseDelaysCsv('event,mic_a,mic_b,delay_s,sigma_s\nfrog-1,2,1,0.0125,0.0001\nfrog-1,3,1,-0.004,\nfrog-2,2,1,0.001,0.0002\n', 'd.csv', channels);
+    expect(events.map((e) => e.event)).toEqual(['frog-1', 'frog-2']);
+    expect(events[0]!.rows).toEqual([
+      { channelA: 2, channelB: 1, delaySeconds: 0.0125, sigmaSeconds: 0.0001, lineNumber: 2 },
+      { channelA: 3, channelB: 1, delaySeconds: -0.004, sigmaSeconds: undefined, lineNumber: 3 },
+    ]);
+  });
+
+  it('refuses unknown channels, a pair of one microphone and a non-positive sigma, naming the place', () => {
+    expect(() => parseDelaysCsv('mic_a,mic_b,delay_s\n2,9,0.01\n', 'd.csv', channels)).toThrow("d.csv, line 2, column 'mic_b': channel 9 is not in the array (its channels are 1, 2, 3, 4).");
+    expect(() => parseDelaysCsv('mic_a,mic_b,delay_s\n2,2,0.01\n', 'd.csv', channels)).toThrow(/two different microphones/);
+    expect(() => parseDelaysCsv('mic_a,mic_b,delay_s,sigma_s\n2,1,0.01,0\n', 'd.csv', channels)).toThrow(/must be positive/);
+    expect(() => parseDelaysCsv('mic_a,delay_s\n2,0.01\n', 'd.csv', channels)).toThrow(/missing column 'mic_b'/);
+  });
+});
