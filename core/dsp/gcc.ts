@@ -5,6 +5,8 @@ import { WhenceError } from '../errors';
 import { createGccEngine, type GccEngine, type GccOptions, type PairDelay } from './gccEngine';
 
 const cachedEngineCount = 4;
+/** Engines for longer FFTs are not kept (their buffers are large and their transforms outweigh the allocation). */
+const largestCachedFftPoints = 65_536;
 const engines = new Map<string, GccEngine>();
 
 function engineFor(windowFrames: number, options: GccOptions): GccEngine {
@@ -24,6 +26,7 @@ function engineFor(windowFrames: number, options: GccOptions): GccEngine {
     engines.delete(key); // re-insert as the most recent
   } else {
     engine = createGccEngine(windowFrames, options);
+    if (engine.fftSizePoints > largestCachedFftPoints) return engine;
     if (engines.size >= cachedEngineCount) engines.delete(engines.keys().next().value!);
   }
   engines.set(key, engine);

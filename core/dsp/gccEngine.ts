@@ -35,7 +35,10 @@ export interface PairDelay {
   peakValue: number;
   /** Main peak over the highest value outside its main lobe within the lag limits (>= 1; 1e6 when none). */
   peakToSecondRatio: number;
-  /** Per-channel SNR implied by the band-limited correlation coefficient at the peak (equal noise assumed). */
+  /**
+   * Per-channel in-band SNR implied by the band-limited correlation coefficient ρ at the peak, ρ/(1 − ρ) (equal noise in
+   * both channels assumed; reverberation and the part of the window the delay shifts out both count as noise).
+   */
   snrDb: number;
   weighting: GccWeighting;
   interpolation: PeakInterpolation;
@@ -91,6 +94,8 @@ export interface GccEngine {
 interface ChannelState {
   spectrum: Float64Array;
   samples: Float64Array;
+  /** samples[0 .. lengthFrames), kept so that a pair allocates nothing. */
+  heard: Float64Array;
   lengthFrames: number;
   welchAuto: Float64Array | null;
 }
@@ -207,6 +212,7 @@ class Engine implements GccEngine {
       state = {
         spectrum: new Float64Array(this.fftSizePoints + 2),
         samples: new Float64Array(this.windowFrames),
+        heard: new Float64Array(0),
         lengthFrames: 0,
         welchAuto: this.welch && welchNeeds(this.weighting) === 'auto' ? new Float64Array(this.welch.segmentPoints / 2 + 1) : null,
       };
@@ -223,10 +229,11 @@ class Engine implements GccEngine {
       throw new WhenceError('dsp-signal-not-finite', `Channel ${channelIndex} holds a sample that is not a finite number (NaN or infinity).`);
     }
     input.fill(0, length);
+    if (state.lengthFrames !== length) state.heard = state.samples.subarray(0, length);
     state.lengthFrames = length;
     state.samples.set(input.subarray(0, this.windowFrames));
     this.plan.forwardRealHalf(input, state.spectrum);
-    if (state.welchAuto && this.welch) this.welch.autoSpectrum(state.samples.subarray(0, length), state.welchAuto);
+    if (state.welchAuto && this.welch) this.welch.autoSpectrum(state.heard, state.welchAuto);
   }
 
   hasChannel(channelIndex: number): boolean {
@@ -306,7 +313,7 @@ class Engine implements GccEngine {
       this.correlate(a, b, 1, null);
       const coarseLag = this.integerPeak(maxLag);
       const spectra = this.welchSpectra!;
-      this.welch!.crossSpectra(a.samples.subarray(0, a.lengthFrames), b.samples.subarray(0, b.lengthFrames), spectra, coarseLag);
+      this.welch!.crossSpectra(a.heard, b.heard, spectra, coarseLag);
       smoothWeights('ml', spectra.autoA, spectra.autoB, spectra.crossAB, smooth!);
       this.correlate(a, b, 1, smooth);
     } else {

@@ -1,6 +1,6 @@
 // Quality of a GCC peak: normalised height, peak-to-second-peak ratio, SNR and the delay's standard deviation (samples).
-// σ² is the Knapp & Carter (1976, eq. 20) / Carter (1987, Proc. IEEE 75(2)) small-error variance of a GCC estimator,
-// var = Σ ω² ψ² Var(Im) / (Σ ω² ψ |G12|)², evaluated from the residual quadrature of the weighted cross-spectrum at the peak.
+// σ² is the small-error variance of a GCC estimator (Knapp & Carter 1976; Carter 1987, Proc. IEEE 75(2)),
+// var = Σ ω² ψ² Var(Im G12) / (Σ ω² ψ |G12|)², evaluated from the residual quadrature of the weighted cross-spectrum at the peak.
 
 /** A peak-to-second ratio is reported as at most this (no secondary peak at all). */
 export const peakToSecondRatioCeiling = 1e6;

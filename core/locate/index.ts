@@ -22,3 +22,10 @@ export { crlbCovariance, gdop, type CrlbOptions, type GdopOptions } from './crlb
 export { precisionMap, type PrecisionMapGrid, type PrecisionMapOptions, type PrecisionMapOutput } from './precisionMap';
 export { physicalLimitViolations, closureFailures, type LimitViolation, type ClosureFailure } from './delayChecks';
 export { seededRandom, type SeededRandom } from './seededRandom';
+
+// Map geometry (another engineer's modules): pair hyperbolae on a map plane and steered-response-power maps.
+export * from './hyperbola';
+export * from './srpGrid';
+export * from './srpMap';
+export * from './srpPeak';
+export * from './srpRefine';

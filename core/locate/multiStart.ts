@@ -33,37 +33,53 @@ const GRID_DIRECTIONS_3D: number[][] = (() => {
   return out;
 })();
 
-/** Grid points (in the array's principal frame, around the centroid) sorted by cost; the best `count` distinct ones. */
+/** The best `count` grid points (in the array's principal frame, around the centroid) at least a quarter aperture apart. */
 function bestGridPoints(problem: TdoaProblem, shape: ArrayShape, count: number): Float64Array[] {
   const n = shape.dimensions;
-  const scored: { cost: number; position: Float64Array }[] = [];
+  // Keep a short list of the lowest costs; no allocation per grid point.
+  const keep = 4 * count;
+  const keptCost = new Float64Array(keep).fill(Infinity);
+  const keptPosition = new Float64Array(keep * n);
   const point = new Float64Array(n);
-  const consider = (local: number[]): void => {
+  const local = new Float64Array(3);
+  const consider = (): void => {
     for (let a = 0; a < n; a++) {
       let value = shape.centroid[a];
       for (let k = 0; k < n; k++) value += local[k] * shape.axes[k * n + a];
       point[a] = value;
     }
     const cost = evaluateCost(problem, point);
-    if (Number.isFinite(cost)) scored.push({ cost, position: point.slice() });
+    if (!(cost < keptCost[keep - 1])) return;
+    let slot = keep - 1;
+    while (slot > 0 && keptCost[slot - 1] > cost) {
+      keptCost[slot] = keptCost[slot - 1];
+      for (let a = 0; a < n; a++) keptPosition[slot * n + a] = keptPosition[(slot - 1) * n + a];
+      slot--;
+    }
+    keptCost[slot] = cost;
+    for (let a = 0; a < n; a++) keptPosition[slot * n + a] = point[a];
   };
   for (const radius of GRID_RADII) {
     const r = radius * shape.apertureMeters;
     if (n === 2) {
       for (let j = 0; j < GRID_ANGLES; j++) {
         const angle = (2 * Math.PI * (j + 0.5)) / GRID_ANGLES;
-        consider([r * Math.cos(angle), r * Math.sin(angle)]);
+        local[0] = r * Math.cos(angle);
+        local[1] = r * Math.sin(angle);
+        consider();
       }
     } else {
-      for (const direction of GRID_DIRECTIONS_3D) consider([r * direction[0], r * direction[1], r * direction[2]]);
+      for (const direction of GRID_DIRECTIONS_3D) {
+        for (let a = 0; a < 3; a++) local[a] = r * direction[a];
+        consider();
+      }
     }
   }
-  scored.sort((x, y) => x.cost - y.cost);
   const chosen: Float64Array[] = [];
-  for (const entry of scored) {
-    if (chosen.length >= count) break;
-    const far = chosen.every((other) => distance(other, entry.position) > 0.25 * shape.apertureMeters);
-    if (far) chosen.push(entry.position);
+  for (let slot = 0; slot < keep && chosen.length < count; slot++) {
+    if (keptCost[slot] === Infinity) break;
+    const position = keptPosition.slice(slot * n, slot * n + n);
+    if (chosen.every((other) => distance(other, position) > 0.25 * shape.apertureMeters)) chosen.push(position);
   }
   return chosen;
 }
@@ -116,7 +132,12 @@ export function findSolutions(problem: TdoaProblem, shape: ArrayShape, closedFor
     if (!start.position.every(Number.isFinite)) continue;
     if (refinedStarts.some((other) => distance(other, start.position) <= 1e-3 * shape.apertureMeters)) continue;
     refinedStarts.push(start.position);
-    const result = refinePosition(problem, start.position, { divergenceRadiusMeters, centerMeters: shape.centroid });
+    const result = refinePosition(problem, start.position, {
+      divergenceRadiusMeters,
+      centerMeters: shape.centroid,
+      stepScaleMeters: shape.apertureMeters,
+      maxIterations: start.origin.startsWith('chan') || start.origin === 'spherical-interpolation' ? 100 : 60,
+    });
     if (!result.converged || !Number.isFinite(result.cost)) continue;
     if (distance(result.position, shape.centroid) > divergenceRadiusMeters) continue;
     const twin = solutions.find((other) => samePosition(shape, other.position, result.position));

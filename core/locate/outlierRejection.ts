@@ -1,8 +1,10 @@
-// Leave-one-out rejection of outlier rows when the residual test fails; chi-square (stated sigmas) or externally
-// studentised F test with a Bonferroni bound (sigma from the residuals). Costs are weighted sums of squares (unitless).
+// Leave-one-out rejection of outlier rows when the residual test fails: chi-square against stated sigmas, or the
+// externally studentised deletion statistic with an F test and a Bonferroni bound when sigma comes from the residuals.
+// Costs are weighted sums of squared residuals (unitless with weights 1/sigma²). Deletion statistics: Cook & Weisberg (1982).
 import { chiSquareQuantile, chiSquareUpperTail, fDistributionUpperTail } from './chiSquare';
 import { refinePosition } from './refine';
-import { degreesOfFreedom, evaluateCost, type TdoaProblem } from './tdoaProblem';
+import { choleskySolve } from './smallMatrix';
+import { degreesOfFreedom, evaluateCost, rowGradient, rowResidual, type TdoaProblem } from './tdoaProblem';
 
 export interface DroppedRow {
   row: number;
@@ -28,6 +30,90 @@ export interface OutlierOutcome {
   warnings: string[];
 }
 
+/**
+ * Linearised deletion statistics w_k r_k² / (1 - h_kk) (the drop in cost when row k is left out) at p, for every active
+ * row (0 for inactive ones). Arrival rows carry the emission time as an extra unknown.
+ */
+export function deletionStatistics(problem: TdoaProblem, p: ArrayLike<number>): Float64Array {
+  const n = problem.dimensions;
+  const withOffset = problem.mode === 'arrival-times';
+  const m = n + (withOffset ? 1 : 0);
+  evaluateCost(problem, p); // fills the geometry
+  const g = new Float64Array(3);
+  const normal = new Float64Array(m * m);
+  const rhs = new Float64Array(m);
+  const row = new Float64Array(m);
+  const fill = (k: number): void => {
+    rowGradient(problem, k, g);
+    for (let i = 0; i < n; i++) row[i] = g[i];
+    if (withOffset) row[n] = 1;
+  };
+  for (let k = 0; k < problem.rowCount; k++) {
+    if (!problem.active[k]) continue;
+    fill(k);
+    const w = problem.rowWeight[k];
+    const r = rowResidual(problem, k);
+    for (let i = 0; i < m; i++) {
+      rhs[i] += w * row[i] * r;
+      for (let j = 0; j < m; j++) normal[i * m + j] += w * row[i] * row[j];
+    }
+  }
+  // One linear step gives the residuals of the full augmented fit (the offset in arrival mode).
+  const factor = normal.slice();
+  const step = new Float64Array(m);
+  const out = new Float64Array(problem.rowCount);
+  if (!choleskySolve(factor, m, rhs, step)) return out;
+  const solved = new Float64Array(m);
+  for (let k = 0; k < problem.rowCount; k++) {
+    if (!problem.active[k]) continue;
+    fill(k);
+    let predicted = 0;
+    for (let i = 0; i < m; i++) predicted += row[i] * step[i];
+    const r = rowResidual(problem, k) - predicted;
+    const e = new Float64Array(m);
+    e.set(row);
+    const w = problem.rowWeight[k];
+    choleskySolveFactored(factor, m, e, solved);
+    let leverage = 0;
+    for (let i = 0; i < m; i++) leverage += w * row[i] * solved[i];
+    out[k] = leverage < 1 - 1e-9 ? (w * r * r) / (1 - leverage) : 0;
+  }
+  return out;
+}
+
+function choleskySolveFactored(factor: Float64Array, n: number, b: Float64Array, x: Float64Array): void {
+  for (let i = 0; i < n; i++) {
+    let sum = b[i];
+    for (let k = 0; k < i; k++) sum -= factor[i * n + k] * x[k];
+    x[i] = sum / factor[i * n + i];
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    let sum = x[i];
+    for (let k = i + 1; k < n; k++) sum -= factor[k * n + i] * x[k];
+    x[i] = sum / factor[i * n + i];
+  }
+}
+
+/** True when the residual test fails at cost `cost` (cheap, linearised for the residual-sigma mode). */
+function residualTestFails(problem: TdoaProblem, p: ArrayLike<number>, cost: number, dof: number, options: OutlierOptions): boolean {
+  if (options.sigmaMode !== 'residuals') return chiSquareUpperTail(cost, dof) < options.level;
+  const deletion = deletionStatistics(problem, p);
+  let active = 0;
+  let largest = 0;
+  for (let k = 0; k < problem.rowCount; k++) {
+    if (!problem.active[k]) continue;
+    active++;
+    largest = Math.max(largest, deletion[k]);
+  }
+  const rest = cost - largest;
+  if (!(rest > 0)) return false;
+  const f = largest / (rest / (dof - 1));
+  return fDistributionUpperTail(f, 1, dof - 1) * active < options.level;
+}
+
+/** Rows refitted exactly per round (the rest are judged by their linearised deletion statistic). */
+const SUSPECTS_REFITTED = 4;
+
 /** Drops rows one at a time while the residual test fails and one row is clearly to blame. Mutates problem.active. */
 export function rejectOutlierRows(problem: TdoaProblem, start: ArrayLike<number>, options: OutlierOptions): OutlierOutcome {
   const dropped: DroppedRow[] = [];
@@ -36,10 +122,14 @@ export function rejectOutlierRows(problem: TdoaProblem, start: ArrayLike<number>
   let cost = evaluateCost(problem, position);
   while (dropped.length < options.maxDrops) {
     const dof = degreesOfFreedom(problem);
-    if (dof < 2) break;
+    if (dof < 2 || !residualTestFails(problem, position, cost, dof, options)) break;
+    // Exact leave-one-out refits of the rows with the largest linearised deletion statistics.
+    const deletion = deletionStatistics(problem, position);
+    const suspects: number[] = [];
+    for (let k = 0; k < problem.rowCount; k++) if (problem.active[k] && options.canDrop(k)) suspects.push(k);
+    suspects.sort((a, b) => deletion[b] - deletion[a]);
     const trials: { row: number; cost: number; position: Float64Array }[] = [];
-    for (let k = 0; k < problem.rowCount; k++) {
-      if (!problem.active[k] || !options.canDrop(k)) continue;
+    for (const k of suspects.slice(0, SUSPECTS_REFITTED)) {
       problem.active[k] = 0;
       const result = refinePosition(problem, position, { maxIterations: 40 });
       problem.active[k] = 1;
@@ -49,15 +139,10 @@ export function rejectOutlierRows(problem: TdoaProblem, start: ArrayLike<number>
     trials.sort((a, b) => a.cost - b.cost);
     const best = trials[0];
     const unit = options.sigmaMode === 'residuals' ? best.cost / (dof - 1) : 1;
-    let failing: boolean;
     if (options.sigmaMode === 'residuals') {
       if (!(unit > 0)) break;
-      const f = (cost - best.cost) / unit;
-      failing = fDistributionUpperTail(f, 1, dof - 1) * trials.length < options.level;
-    } else {
-      failing = chiSquareUpperTail(cost, dof) < options.level;
+      if (fDistributionUpperTail((cost - best.cost) / unit, 1, dof - 1) * suspects.length >= options.level) break;
     }
-    if (!failing) break;
     const runnerUp = trials[1];
     const margin = chiSquareQuantile(1 - options.level, 1);
     if (runnerUp && (runnerUp.cost - best.cost) / unit <= margin) {

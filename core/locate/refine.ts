@@ -16,6 +16,11 @@ export interface RefineOptions {
   /** Give up when the position leaves this distance from `centerMeters`, metres. */
   divergenceRadiusMeters?: number;
   centerMeters?: ArrayLike<number>;
+  /**
+   * Trust radius: a step is shortened to at most this many metres plus the distance from `centerMeters`
+   * (so a far start may move far, a near one cannot jump across the array's far field).
+   */
+  stepScaleMeters?: number;
 }
 
 const normal = new Float64Array(9);
@@ -34,7 +39,6 @@ export function refinePosition(problem: TdoaProblem, start: ArrayLike<number>, o
   let lambda = 1e-4;
   let converged = false;
   let iterations = 0;
-  let stalls = 0;
   while (iterations < maxIterations) {
     iterations++;
     damped.set(normal);
@@ -46,30 +50,44 @@ export function refinePosition(problem: TdoaProblem, start: ArrayLike<number>, o
     }
     let stepNorm = 0;
     let positionNorm = 0;
+    let decrement = 0;
     for (let i = 0; i < n; i++) {
       trial[i] = position[i] + step[i];
       stepNorm += step[i] * step[i];
       positionNorm += position[i] * position[i];
+      decrement += gradient[i] * step[i];
     }
     stepNorm = Math.sqrt(stepNorm);
+    if (options.stepScaleMeters !== undefined && options.centerMeters) {
+      let radius = 0;
+      for (let i = 0; i < n; i++) radius += (position[i] - options.centerMeters[i]) ** 2;
+      const limit = options.stepScaleMeters + Math.sqrt(radius);
+      if (stepNorm > limit) {
+        const shrink = limit / stepNorm;
+        for (let i = 0; i < n; i++) {
+          step[i] *= shrink;
+          trial[i] = position[i] + step[i];
+        }
+        decrement *= shrink;
+        stepNorm = limit;
+      }
+    }
+    // Converged when the step is negligible or the predicted gain is at the rounding level of the cost.
+    const negligible = stepNorm <= 1e-11 * (1 + Math.sqrt(positionNorm)) || decrement <= 1e-14 * cost || cost === 0;
     const trialCost = evaluateCost(problem, trial);
     if (trialCost <= cost) {
       for (let i = 0; i < n; i++) position[i] = trial[i];
-      const previous = cost;
       cost = evaluateNormal(problem, position, normal, gradient);
       lambda = Math.max(lambda / 10, 1e-12);
-      const tinyStep = stepNorm <= 1e-12 * (1 + Math.sqrt(positionNorm));
-      const tinyGain = previous - cost <= 1e-15 * previous;
-      if (tinyStep || cost === 0) {
-        converged = true;
-        break;
-      }
-      stalls = tinyGain ? stalls + 1 : 0;
-      if (stalls >= 3) {
+      if (negligible) {
         converged = true;
         break;
       }
     } else {
+      if (negligible) {
+        converged = true;
+        break;
+      }
       lambda *= 10;
       if (lambda > 1e16) {
         // No damping gives a lower cost: a minimum to machine precision.

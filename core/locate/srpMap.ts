@@ -58,6 +58,8 @@ class SrpPlanTables implements SrpPlan {
   /** Scratch: distance from microphone m to the points of one row, [m·east.count + i]. */
   readonly rowDistances: Float64Array;
   readonly rowSquares: Float64Array;
+  /** Microphone positions, [3·m] east, [3·m + 1] north, [3·m + 2] up. */
+  readonly positions: Float64Array;
 
   constructor(
     readonly grid: SrpGrid,
@@ -82,6 +84,7 @@ class SrpPlanTables implements SrpPlan {
     this.upSquares = squares(grid.up, (m) => m.upMeters);
     this.rowDistances = new Float64Array(microphones.length * grid.east.count);
     this.rowSquares = new Float64Array(microphones.length);
+    this.positions = Float64Array.from(microphones.flatMap((m) => [m.eastMeters, m.northMeters, m.upMeters]));
   }
 }
 
@@ -117,7 +120,7 @@ export function srpMap(plan: SrpPlan, pairs: ReadonlyArray<PairCorrelationFuncti
   if (!(plan instanceof SrpPlanTables)) {
     throw new WhenceError('srp-invalid-input', 'srpMap(): the plan was not made by createSrpPlan(); build one with createSrpPlan().');
   }
-  checkPairs(pairs, plan.microphoneCount);
+  checkPairs(pairs, plan.microphoneCount, 'srpMap');
   if (!(output instanceof Float64Array) || output.length < plan.pointCount) {
     throw new WhenceError(
       'srp-invalid-input',
@@ -162,6 +165,26 @@ export function srpMap(plan: SrpPlan, pairs: ReadonlyArray<PairCorrelationFuncti
   }
 }
 
+/**
+ * The steered response power at one point anywhere (not only on the grid), read exactly as `srpMap` reads it:
+ * for refining a peak between grid points.
+ */
+export function srpValueAt(plan: SrpPlan, pairs: ReadonlyArray<PairCorrelationFunction>, eastMeters: number, northMeters: number, upMeters: number): number {
+  if (!(plan instanceof SrpPlanTables)) {
+    throw new WhenceError('srp-invalid-input', 'srpValueAt(): the plan was not made by createSrpPlan(); build one with createSrpPlan().');
+  }
+  checkPairs(pairs, plan.microphoneCount, 'srpValueAt');
+  const positions = plan.positions;
+  const distanceTo = (m: number): number =>
+    Math.hypot(eastMeters - positions[3 * m], northMeters - positions[3 * m + 1], upMeters - positions[3 * m + 2]);
+  let total = 0;
+  for (const pair of pairs) {
+    const x = pair.zeroLagIndex + ((distanceTo(pair.indexA) - distanceTo(pair.indexB)) * pair.sampleRateHz) / plan.speedMetersPerSecond;
+    total += plan.interpolation === 'cubic' ? cubicAt(pair.values, x) : linearAt(pair.values, x);
+  }
+  return total;
+}
+
 /** Keys (1981) cubic convolution, a = −1/2, at fractional index x; samples outside the array count as 0. */
 function cubicAt(values: Float64Array, x: number): number {
   const i = Math.floor(x);
@@ -198,12 +221,12 @@ function sampleOrZero(values: Float64Array, index: number): number {
   return index >= 0 && index < values.length ? values[index] : 0;
 }
 
-function checkPairs(pairs: ReadonlyArray<PairCorrelationFunction>, microphoneCount: number): void {
+function checkPairs(pairs: ReadonlyArray<PairCorrelationFunction>, microphoneCount: number, caller: string): void {
   if (!Array.isArray(pairs) || pairs.length === 0) {
-    throw new WhenceError('srp-invalid-input', 'srpMap(): give at least one pair correlation.');
+    throw new WhenceError('srp-invalid-input', `${caller}(): give at least one pair correlation.`);
   }
   pairs.forEach((pair, index) => {
-    const where = `srpMap(): pairs[${index}]`;
+    const where = `${caller}(): pairs[${index}]`;
     const isIndex = (value: number): boolean => Number.isInteger(value) && value >= 0 && value < microphoneCount;
     if (!isIndex(pair?.indexA) || !isIndex(pair?.indexB) || pair.indexA === pair.indexB) {
       throw new WhenceError(

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { bandWeights, mlCoherenceCeiling, smoothWeights, weightCrossSpectrum } from '../../../core/dsp';
 
 describe('smoothWeights()', () => {
-  it('gives SCOT 1/sqrt(G11 G22), Roth 1/G11 and ML γ²/(1 - γ²) (Knapp & Carter 1976, Table I)', () => {
+  it('gives SCOT 1/sqrt(G11 G22), Roth 1/G11 and ML γ²/(1 - γ²) (Knapp & Carter 1976, from memory)', () => {
     const g11 = Float64Array.from([4, 1, 0]);
     const g22 = Float64Array.from([9, 4, 2]);
     const g12 = Float64Array.from([3, 0, 0, 1, 0, 0]); // |G12|² = 9, 1, 0

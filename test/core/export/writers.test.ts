@@ -18,7 +18,8 @@ function okResult(): SolveResult {
       chiSquare: { statistic: 1.2, degreesOfFreedom: 1, pValue: 0.27, consistent: true },
       gdop: 3.2, crlbCovarianceMeters2: zero, sigmaSource: 'stated', timingSigmaSeconds: 1e-4,
       pairsUsed: 3, droppedPairs: [{ indexA: 3, indexB: 0, residualSeconds: 0.01, used: false }],
-      budget: { timingMeters2: zero, speedMeters2: zero, surveyMeters2: zero },
+      budget: { timingMeters2: zero, speedMeters2: zero, surveyMeters2: zero, sourceHeightMeters2: zero },
+      conditionNumber: 12,
     },
   };
 }
@@ -26,7 +27,8 @@ function okResult(): SolveResult {
 describe('fix exports', () => {
   it('fixRecord() flattens a fix with units in the keys and WGS84 position', () => {
     const record = fixRecord('e1', okResult(), 2, origin);
-    expect(record).toMatchObject({ event: 'e1', status: 'ok', x_m: 120, y_m: -35, cov_xy_m2: 1.5, semi_major_m: 5.261984, major_axis_deg: 22.5, pairs_used: 3, pairs_dropped: '4-1' });
+    expect(record).toMatchObject({ event: 'e1', status: 'ok', x_m: 120, y_m: -35, cov_xy_m2: 1.5, major_axis_deg: 22.5, pairs_used: 3, pairs_dropped: '4-1' });
+    expect(record.semi_major_m as number).toBeCloseTo(5.261984, 4);
     const back = geodeticToEnu({ latitudeDegrees: record.lat as number, longitudeDegrees: record.lon as number, heightMeters: record.alt_m as number }, origin);
     expect(back.eastMeters).toBeCloseTo(120, 3);
     expect(back.northMeters).toBeCloseTo(-35, 3);
