@@ -22,6 +22,17 @@ async function buildCli() {
     logLevel: 'warning',
   });
   await chmod(outfile, 0o755);
+  await build({
+    entryPoints: [join(root, 'main/pipeline/locateWorker.ts')],
+    outfile: join(root, 'dist/cli/locate-worker.mjs'),
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    sourcemap: true,
+    banner: { js: "import { createRequire as __whenceCreateRequire } from 'node:module'; const require = __whenceCreateRequire(import.meta.url);" },
+    logLevel: 'warning',
+  });
 }
 
 async function buildElectron() {

@@ -7,3 +7,4 @@ export { readWavInfo } from './readWavInfo';
 export { readFrames } from './readFrames';
 export { decodeInterleaved } from './decodeInterleaved';
 export { formatStartTime } from './startTime';
+export { encodeWavHeader, encodeFrames, encodeWavFile, wavFileLayout, type WavWriteSpec, type WavBextSpec, type WavFileLayout } from './wavWriter';

@@ -32,8 +32,19 @@ export function ellipseRing(ellipse: EllipseOutline, origin: GeodeticPosition, p
 }
 
 /** A FeatureCollection: each fix a Point with its record as properties, and optionally its ellipse as a Polygon. */
-export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPosition, includeEllipses: boolean): string {
+export interface GeoJsonExtras {
+  /** Written as the foreign member "whence" of the FeatureCollection (RFC 7946 §6.1). */
+  metadata?: Record<string, unknown>;
+  /** Microphones as Point features (feature: 'microphone'). */
+  microphones?: ReadonlyArray<{ label: string; channel: number; eastMeters: number; northMeters: number; upMeters: number }>;
+}
+
+export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPosition, includeEllipses: boolean, extras: GeoJsonExtras = {}): string {
   const features: unknown[] = [];
+  for (const microphone of extras.microphones ?? []) {
+    const geodetic = enuToGeodetic({ eastMeters: microphone.eastMeters, northMeters: microphone.northMeters, upMeters: microphone.upMeters }, origin);
+    features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [Number(geodetic.longitudeDegrees.toFixed(9)), Number(geodetic.latitudeDegrees.toFixed(9))] }, properties: { feature: 'microphone', label: microphone.label, channel: microphone.channel, alt_m: Number(geodetic.heightMeters.toFixed(3)) } });
+  }
   for (const record of records) {
     const properties = Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== ''));
     if (typeof record.lat !== 'number' || typeof record.lon !== 'number') continue;
@@ -44,5 +55,7 @@ export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPo
       features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [ring] }, properties: { event: record.event, feature: 'uncertainty-ellipse', confidence: record.confidence } });
     }
   }
-  return JSON.stringify({ type: 'FeatureCollection', features }, null, 2) + '\n';
+  const collection: Record<string, unknown> = { type: 'FeatureCollection', features };
+  if (extras.metadata !== undefined) collection.whence = extras.metadata;
+  return JSON.stringify(collection, null, 2) + '\n';
 }

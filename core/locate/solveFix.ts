@@ -55,7 +55,7 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
   const rejectOutliers = options.rejectOutliers ?? true;
   const model = options.timingModel ?? 'independent-pairs';
   const level = options.residualTestLevel ?? 0.01;
-  const conditionLimit = options.conditionNumberLimit ?? 1e10;
+  const conditionLimit = options.conditionNumberLimit ?? 1e6;
   const sourceUpMeters = options.sourceUpMeters ?? microphones.reduce((sum, mic) => sum + mic.upMeters, 0) / Math.max(microphones.length, 1);
   const label = (i: number): string => microphones[i].label || `#${i}`;
   const pairName = (k: number): string => `pair ${label(delays[k].indexA)}-${label(delays[k].indexB)} (delays[${k}])`;

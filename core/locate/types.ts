@@ -56,7 +56,7 @@ export interface SolveOptions {
   timingModel?: TimingModel;
   /** Significance level of the residual tests (chi-square, outlier tests); default 0.01. */
   residualTestLevel?: number;
-  /** Condition number of the normal matrix above which a fix is `ill-conditioned`; default 1e10. */
+  /** Condition number of the normal matrix above which a fix is `ill-conditioned`; default 1e6 (about a source 250 apertures away in 2-D; the ellipse then spans the range). */
   conditionNumberLimit?: number;
 }
 

@@ -44,7 +44,7 @@ export function validateInput(microphones: readonly Microphone[], delays: readon
     need(finite(options.residualTestLevel) && options.residualTestLevel > 0 && options.residualTestLevel < 1, 'options.residualTestLevel', options.residualTestLevel, 'give a significance level between 0 and 1, e.g. 0.01');
   }
   if (options.conditionNumberLimit !== undefined) {
-    need(finite(options.conditionNumberLimit) && options.conditionNumberLimit > 1, 'options.conditionNumberLimit', options.conditionNumberLimit, 'give a number above 1, e.g. 1e10');
+    need(finite(options.conditionNumberLimit) && options.conditionNumberLimit > 1, 'options.conditionNumberLimit', options.conditionNumberLimit, 'give a number above 1, e.g. 1e6');
   }
   if (options.timingModel !== undefined) {
     need(options.timingModel === 'independent-pairs' || options.timingModel === 'arrival-times', 'options.timingModel', options.timingModel, "choose 'independent-pairs' or 'arrival-times'");

@@ -1,6 +1,6 @@
 // The medium options shared by commands (--medium, --temperature, --humidity, ...): parsed into a core/medium spec,
 // refusing options that do not apply to the chosen medium.
-import { MEDIUM_DEFAULTS, type MediumSpec } from '../../core/medium';
+import { MEDIUM_DEFAULTS, speedOfSound, type MediumSpec } from '../../core/medium';
 import { oneOf, optionalNumber, optionalString, UsageError, type OptionSpec, type ParsedCommand } from './parse';
 
 export const mediumOptionSpec: OptionSpec = {
@@ -50,3 +50,29 @@ export function mediumSpecFromOptions(values: ParsedCommand['values']): { spec: 
   return { spec: { medium, temperatureCelsius }, warnings, temperatureAssumed };
 }
 
+
+export interface SpeedChoice { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number; warnings: string[]; description: string; reference: string }
+
+export function chooseSpeed(values: ParsedCommand['values']): SpeedChoice {
+  const given = optionalNumber(values, 'sound-speed', 'metres per second');
+  const givenSigma = optionalNumber(values, 'sound-speed-sigma', 'metres per second');
+  if (given !== undefined) {
+    const clash = mediumOptionNames.filter((name) => values[name] !== undefined).concat(values['temperature-sigma'] !== undefined ? ['temperature-sigma'] : []);
+    if (clash.length > 0) throw new UsageError(`--sound-speed replaces the medium options; leave out ${clash.map((name) => `--${name}`).join(', ')}.`);
+    if (!(given >= 100 && given <= 5000)) throw new UsageError(`--sound-speed ${given} m/s is outside 100..5000 m/s; sound travels at about 343 m/s in air and 1500 m/s in water.`);
+    return { speedMetersPerSecond: given, speedSigmaMetersPerSecond: givenSigma ?? 0, warnings: [], description: `speed of sound given as ${given} m/s`, reference: 'given by the user (--sound-speed)' };
+  }
+  if (givenSigma !== undefined) throw new UsageError('--sound-speed-sigma goes with --sound-speed; with a medium, give --temperature-sigma instead.');
+  const { spec, warnings, temperatureAssumed } = mediumSpecFromOptions(values);
+  const speed = speedOfSound(spec);
+  const temperatureSigmaKelvin = optionalNumber(values, 'temperature-sigma', 'kelvin') ?? (temperatureAssumed ? 5 : 1);
+  if (temperatureSigmaKelvin < 0) throw new UsageError(`--temperature-sigma cannot be negative; got ${temperatureSigmaKelvin}.`);
+  const inputs = Object.entries(speed.inputs).map(([name, value]) => `${name} ${value}`).join(', ');
+  return {
+    speedMetersPerSecond: speed.speedMetersPerSecond,
+    speedSigmaMetersPerSecond: Math.abs(speed.sensitivityMetersPerSecondPerKelvin) * temperatureSigmaKelvin,
+    warnings,
+    description: `${spec.medium}${temperatureAssumed ? ' (temperature assumed)' : ''}: ${inputs}; temperature sigma ${temperatureSigmaKelvin} K; model ${speed.model}`,
+    reference: speed.reference,
+  };
+}

@@ -3,6 +3,7 @@
 import { isWhenceError } from '../../core/errors';
 import { WHENCE_VERSION } from '../../core/version';
 import { infoHelp, runInfo } from './commands/info';
+import { locateHelp, runLocate } from './commands/locate';
 import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
 import type { CliIo } from './io';
@@ -15,6 +16,7 @@ interface Command {
 
 const commands: Record<string, Command> = {
   info: { summary: 'what a recording holds: format, channels, rate, duration, start time', help: infoHelp, run: runInfo },
+  locate: { summary: 'find each sound in a recording and fix where it came from (survey log)', help: locateHelp, run: runLocate },
   solve: { summary: 'position fixes from a table of measured time differences', help: solveHelp, run: runSolve },
   speed: { summary: 'speed of sound in air, seawater or fresh water', help: speedHelp, run: runSpeed },
 };

@@ -4,12 +4,11 @@ import { extname } from 'node:path';
 import { fixesToCsv, fixesToGeoJson, fixesToJson, fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from '../../../core/export';
 import { parseDegrees, type GeodeticPosition } from '../../../core/geo';
 import { solveFix, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
-import { speedOfSound } from '../../../core/medium';
 import { parseArrayCsv, parseDelaysCsv, type ArrayGeometry, type DelayEvent } from '../../../core/project';
 import { writeFileAtomic } from '../../files';
 import type { CliIo } from '../io';
-import { mediumOptionNames, mediumOptionSpec, mediumSpecFromOptions } from '../mediumOptions';
-import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError, type ParsedCommand } from '../parse';
+import { chooseSpeed, mediumOptionSpec } from '../mediumOptions';
+import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError } from '../parse';
 import { readTextFile } from '../readInput';
 
 export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [options]
@@ -49,25 +48,6 @@ export function parseOrigin(text: string | undefined): GeodeticPosition | undefi
   const heightMeters = parts[2] !== undefined ? Number(parts[2]) : 0;
   if (!Number.isFinite(heightMeters)) throw new UsageError(`--origin altitude must be a number of metres; got '${parts[2]}'.`);
   return { latitudeDegrees: parseDegrees(parts[0]!), longitudeDegrees: parseDegrees(parts[1]!), heightMeters };
-}
-
-interface SpeedChoice { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number; warnings: string[] }
-
-export function chooseSpeed(values: ParsedCommand['values']): SpeedChoice {
-  const given = optionalNumber(values, 'sound-speed', 'metres per second');
-  const givenSigma = optionalNumber(values, 'sound-speed-sigma', 'metres per second');
-  if (given !== undefined) {
-    const clash = mediumOptionNames.filter((name) => values[name] !== undefined).concat(values['temperature-sigma'] !== undefined ? ['temperature-sigma'] : []);
-    if (clash.length > 0) throw new UsageError(`--sound-speed replaces the medium options; leave out ${clash.map((name) => `--${name}`).join(', ')}.`);
-    if (!(given >= 100 && given <= 5000)) throw new UsageError(`--sound-speed ${given} m/s is outside 100..5000 m/s; sound travels at about 343 m/s in air and 1500 m/s in water.`);
-    return { speedMetersPerSecond: given, speedSigmaMetersPerSecond: givenSigma ?? 0, warnings: [] };
-  }
-  if (givenSigma !== undefined) throw new UsageError('--sound-speed-sigma goes with --sound-speed; with a medium, give --temperature-sigma instead.');
-  const { spec, warnings, temperatureAssumed } = mediumSpecFromOptions(values);
-  const speed = speedOfSound(spec);
-  const temperatureSigmaKelvin = optionalNumber(values, 'temperature-sigma', 'kelvin') ?? (temperatureAssumed ? 5 : 1);
-  if (temperatureSigmaKelvin < 0) throw new UsageError(`--temperature-sigma cannot be negative; got ${temperatureSigmaKelvin}.`);
-  return { speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: Math.abs(speed.sensitivityMetersPerSecondPerKelvin) * temperatureSigmaKelvin, warnings };
 }
 
 export function solveEvents(geometry: ArrayGeometry, events: readonly DelayEvent[], options: SolveOptions): FixRecord[] {

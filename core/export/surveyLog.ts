@@ -1,0 +1,95 @@
+// The survey log: every located event as a record, with what someone else needs to reproduce the fixes
+// (recording, start time, array and origin, medium and speed of sound with its source, software version, settings).
+import { formatStartTime, type WavStartTime } from '../audio';
+import { formatCsv, type CsvValue } from '../csv';
+import type { GeodeticPosition } from '../geo';
+import type { ArrayGeometry } from '../project';
+import type { LocatedEvent } from '../pipeline';
+import { fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from './fixRecord';
+
+export interface SurveyLogContext {
+  recordingName: string;
+  recordingStartTime: WavStartTime | undefined;
+  sampleRateHz: number;
+  geometry: ArrayGeometry;
+  medium: { description: string; speedMetersPerSecond: number; speedSigmaMetersPerSecond: number; reference: string };
+  softwareVersion: string;
+  settings: Record<string, string | number | boolean>;
+  dimensions: 2 | 3;
+}
+
+const LOCATE_COLUMNS = ['time_s', 'arrival_s', 'local_time', 'band_low_hz', 'band_high_hz', 'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags'] as const;
+
+export function surveyLogColumns(dimensions: 2 | 3): string[] {
+  const base = dimensions === 3 ? [...FIX_COLUMNS_3D] : [...FIX_COLUMNS_2D];
+  return [base[0]!, base[1]!, ...LOCATE_COLUMNS, ...base.slice(2)];
+}
+
+function round(value: number | undefined, decimals: number): number | undefined {
+  return value === undefined || !Number.isFinite(value) ? undefined : Number(value.toFixed(decimals));
+}
+
+function median(values: number[]): number | undefined {
+  if (values.length === 0) return undefined;
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[sorted.length >> 1];
+}
+
+export function locatedEventRecord(located: LocatedEvent, context: SurveyLogContext): FixRecord {
+  const eventName = String(located.event.index + 1);
+  const record = fixRecord(eventName, { ...located.solve, warnings: [...located.warnings, ...located.solve.warnings] }, context.dimensions, context.geometry.origin);
+  const arrivalSeconds = located.firstArrivalSeconds;
+  Object.assign(record, {
+    time_s: round(located.emissionTimeSeconds, 4),
+    arrival_s: round(arrivalSeconds, 4),
+    local_time: context.recordingStartTime !== undefined ? formatStartTime(context.recordingStartTime, Math.round(arrivalSeconds * context.sampleRateHz)) : undefined,
+    band_low_hz: round(located.bandHz.lowHz, 0),
+    band_high_hz: round(located.bandHz.highHz, 0),
+    band_snr_db: round(located.bandSnrDb, 1),
+    min_peak_ratio: round(Math.min(...located.pairs.map((p) => p.peakToSecondRatio)), 2),
+    median_pair_snr_db: round(median(located.pairs.map((p) => p.snrDb)), 1),
+    channels_triggered: located.event.channelsTriggered,
+    event_flags: located.event.flags.join(' '),
+  });
+  return record;
+}
+
+/** Lines describing the run, for the head of a CSV log (as # comments) and the metadata of JSON/GeoJSON logs. */
+export function surveyLogMetadata(context: SurveyLogContext): Record<string, unknown> {
+  const origin: GeodeticPosition | undefined = context.geometry.origin;
+  return {
+    software: `Whence ${context.softwareVersion}`,
+    recording: context.recordingName,
+    recordingStartTime: context.recordingStartTime?.isoLocal ?? null,
+    sampleRateHz: context.sampleRateHz,
+    medium: context.medium.description,
+    speedOfSoundMetersPerSecond: Number(context.medium.speedMetersPerSecond.toFixed(3)),
+    speedOfSoundSigmaMetersPerSecond: Number(context.medium.speedSigmaMetersPerSecond.toFixed(3)),
+    speedOfSoundSource: context.medium.reference,
+    origin: origin === undefined ? null : { latitudeDegrees: origin.latitudeDegrees, longitudeDegrees: origin.longitudeDegrees, heightMeters: origin.heightMeters },
+    microphones: context.geometry.microphones.map((m) => ({ channel: m.channel, label: m.label, x_m: m.eastMeters, y_m: m.northMeters, z_m: m.upMeters, sigma_m: m.surveySigmaMeters })),
+    settings: context.settings,
+    conventions: 'x east, y north, z up, metres about the origin; delays are arrival at a minus arrival at b; major_axis_deg counter-clockwise from east; times in seconds from the start of the recording',
+  };
+}
+
+export function surveyLogCsv(records: readonly FixRecord[], context: SurveyLogContext, notes: readonly string[] = []): string {
+  const meta = surveyLogMetadata(context);
+  const lines = [
+    `${meta.software} survey log`,
+    `recording: ${context.recordingName}${context.recordingStartTime ? `, first sample at ${context.recordingStartTime.isoLocal}` : ', start time not recorded in the file'}, ${context.sampleRateHz} Hz`,
+    `medium: ${context.medium.description}; speed of sound ${context.medium.speedMetersPerSecond.toFixed(3)} ± ${context.medium.speedSigmaMetersPerSecond.toFixed(3)} m/s (${context.medium.reference})`,
+    context.geometry.origin ? `origin (WGS84): ${context.geometry.origin.latitudeDegrees.toFixed(8)}, ${context.geometry.origin.longitudeDegrees.toFixed(8)}, ${context.geometry.origin.heightMeters.toFixed(3)} m` : 'origin: local frame only (no WGS84 origin given)',
+    ...context.geometry.microphones.map((m) => `microphone ${m.label}: channel ${m.channel}, x ${m.eastMeters.toFixed(3)} m, y ${m.northMeters.toFixed(3)} m, z ${m.upMeters.toFixed(3)} m, sigma ${m.surveySigmaMeters} m`),
+    `settings: ${Object.entries(context.settings).map(([key, value]) => `${key}=${value}`).join(', ')}`,
+    `conventions: ${String(meta.conventions)}`,
+    ...notes.map((note) => `note: ${note}`),
+  ];
+  const columns = surveyLogColumns(context.dimensions);
+  return formatCsv(columns, records.map((record) => columns.map((column) => record[column] as CsvValue)), lines);
+}
+
+export function surveyLogJson(records: readonly FixRecord[], context: SurveyLogContext, notes: readonly string[] = []): string {
+  const fixes = records.map((record) => Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== '')));
+  return JSON.stringify({ log: { ...surveyLogMetadata(context), notes }, fixes }, null, 2) + '\n';
+}

@@ -1,0 +1,118 @@
+// One event from window to fix: read its frames, choose its band, correlate every pair, reduce to arrival times,
+// solve (core/locate). Times in seconds from the start of the recording.
+import { chooseBand, type DetectedEvent } from '../detect';
+import type { FrequencyBand } from '../dsp';
+import { solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
+import type { ArrayGeometry } from '../project';
+import { measurePairs, type PairMeasurement } from './measurePairs';
+import type { RecordingAccess } from './recording';
+import { reducePairsToReference, type ReducedDelays } from './reducePairs';
+import { MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
+
+export interface LocatedEvent {
+  event: DetectedEvent;
+  windowStartSeconds: number;
+  windowEndSeconds: number;
+  bandHz: FrequencyBand;
+  bandSnrDb: number;
+  pairs: PairMeasurement[];
+  reduced: ReducedDelays;
+  solve: SolveResult;
+  /** Estimated emission time (fix and first onset), seconds from the start of the recording. */
+  emissionTimeSeconds: number | undefined;
+  /** First arrival at any microphone, seconds from the start of the recording. */
+  firstArrivalSeconds: number;
+  warnings: string[];
+}
+
+export interface LocateContext {
+  geometry: ArrayGeometry;
+  /** 0-based recording channel of each microphone. */
+  channelIndexOfMicrophone: readonly number[];
+  settings: LocateSettings;
+}
+
+function pick(channels: readonly Float32Array[], indices: readonly number[]): Float32Array[] {
+  return indices.map((index) => channels[index]!);
+}
+
+async function readNoise(recording: RecordingAccess, context: LocateContext, startFrame: number, endFrame: number): Promise<Float32Array[]> {
+  const fs = recording.info.sampleRateHz;
+  const noiseFrames = Math.round(NOISE_WINDOW_SECONDS * fs);
+  const before = Math.min(noiseFrames, startFrame);
+  if (before >= noiseFrames / 4) return pick(await recording.readFrames(startFrame - before, before), context.channelIndexOfMicrophone);
+  return pick(await recording.readFrames(endFrame, noiseFrames), context.channelIndexOfMicrophone);
+}
+
+function earliestOnset(event: DetectedEvent, context: LocateContext): { microphoneIndex: number; seconds: number } | undefined {
+  let best: { microphoneIndex: number; seconds: number } | undefined;
+  context.channelIndexOfMicrophone.forEach((channel, microphoneIndex) => {
+    const onset = event.onsetSeconds[channel];
+    if (onset !== undefined && (best === undefined || onset < best.seconds)) best = { microphoneIndex, seconds: onset };
+  });
+  return best;
+}
+
+export function solveOptions(settings: LocateSettings, lagMarginSeconds: number): SolveOptions {
+  const options: SolveOptions = {
+    speedMetersPerSecond: settings.speedMetersPerSecond,
+    speedSigmaMetersPerSecond: settings.speedSigmaMetersPerSecond,
+    dimensions: settings.dimensions,
+    confidence: settings.confidence,
+    timingModel: 'arrival-times',
+    lagToleranceSeconds: lagMarginSeconds,
+  };
+  if (settings.sourceUpMeters !== undefined) options.sourceUpMeters = settings.sourceUpMeters;
+  return options;
+}
+
+export function toSolverMicrophones(geometry: ArrayGeometry): Microphone[] {
+  return geometry.microphones.map((m) => ({ label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: m.surveySigmaMeters }));
+}
+
+export async function locateEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
+  const fs = recording.info.sampleRateHz;
+  const warnings: string[] = [];
+  let startFrame = Math.max(0, Math.floor(event.startSeconds * fs));
+  let endFrame = Math.min(recording.info.frameCount, Math.ceil(event.endSeconds * fs));
+  const onset = earliestOnset(event, context);
+  const maxFrames = Math.round(MAX_EVENT_WINDOW_SECONDS * fs);
+  if (endFrame - startFrame > maxFrames) {
+    const anchor = onset !== undefined ? Math.max(startFrame, Math.floor((onset.seconds - 0.5) * fs)) : startFrame;
+    startFrame = Math.min(anchor, endFrame - maxFrames);
+    endFrame = startFrame + maxFrames;
+    warnings.push(`The event lasts ${(event.endSeconds - event.startSeconds).toFixed(1)} s; only ${MAX_EVENT_WINDOW_SECONDS} s around its onset were correlated.`);
+  }
+  const window = pick(await recording.readFrames(startFrame, endFrame - startFrame), context.channelIndexOfMicrophone);
+  let bandHz: FrequencyBand;
+  let bandSnrDb = Number.NaN;
+  if (context.settings.bandHz !== undefined) {
+    bandHz = context.settings.bandHz;
+  } else {
+    const chosen = chooseBand(window, await readNoise(recording, context, startFrame, endFrame), fs);
+    bandHz = { lowHz: chosen.lowHz, highHz: chosen.highHz };
+    bandSnrDb = chosen.snrDb;
+  }
+  const maxSurveySigma = Math.max(0, ...context.geometry.microphones.map((m) => m.surveySigmaMeters));
+  // Lag margin: two samples, plus what survey error (4 sigma per microphone) can add; the speed is taken 2 % low so slow air still fits.
+  const lagMarginSeconds = 2 / fs + (8 * maxSurveySigma) / context.settings.speedMetersPerSecond;
+  const microphones = context.geometry.microphones;
+  const pairs = measurePairs(window, microphones, { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds });
+  const referenceIndex = onset?.microphoneIndex ?? 0;
+  const reduced = reducePairsToReference(microphones.length, pairs, referenceIndex);
+  warnings.push(...reduced.warnings);
+  const solve: SolveResult = reduced.delays.length > 0
+    ? solveFix(toSolverMicrophones(context.geometry), reduced.delays, solveOptions(context.settings, lagMarginSeconds))
+    : { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
+  let emissionTimeSeconds: number | undefined;
+  let firstArrivalSeconds = onset?.seconds ?? event.startSeconds;
+  if (solve.fix !== undefined && onset !== undefined) {
+    const fix = solve.fix;
+    const rangeMeters = (m: Microphone) => Math.hypot(fix.eastMeters - m.eastMeters, fix.northMeters - m.northMeters, fix.upMeters - m.upMeters);
+    const c = context.settings.speedMetersPerSecond;
+    const reference = microphones[referenceIndex]!;
+    emissionTimeSeconds = onset.seconds - rangeMeters(reference) / c;
+    firstArrivalSeconds = emissionTimeSeconds + Math.min(...microphones.map((m) => rangeMeters(m))) / c;
+  }
+  return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, solve, emissionTimeSeconds, firstArrivalSeconds, warnings };
+}

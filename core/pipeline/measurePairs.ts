@@ -1,0 +1,64 @@
+// Time differences of every microphone pair of one event window by generalized cross-correlation (core/dsp),
+// each searched only within the lags the pair's spacing allows (|τ| ≤ d/c plus a margin).
+import { createGccEngine, nextPowerOfTwo, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
+import type { ArrayMicrophone } from '../project';
+
+export interface PairMeasurement {
+  indexA: number;                 // microphone indices (array order)
+  indexB: number;
+  delaySeconds: number;           // arrival at A minus arrival at B
+  sigmaSeconds: number;
+  peakToSecondRatio: number;
+  peakValue: number;
+  snrDb: number;
+  maxLagSeconds: number;
+}
+
+export interface PairSettings {
+  sampleRateHz: number;
+  speedMetersPerSecond: number;
+  weighting: GccWeighting;
+  bandHz: FrequencyBand;
+  /** Added to d/c for each pair's lag limit; covers survey error and the speed's uncertainty. */
+  lagMarginSeconds: number;
+}
+
+export function pairSpacingMeters(a: ArrayMicrophone, b: ArrayMicrophone): number {
+  return Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters);
+}
+
+const engines = new Map<string, GccEngine>();
+
+function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: number): GccEngine {
+  const sizeFrames = nextPowerOfTwo(Math.max(windowFrames, 256));
+  const key = `${sizeFrames}|${settings.sampleRateHz}|${settings.weighting}|${settings.bandHz.lowHz}|${settings.bandHz.highHz}|${maxLagSeconds}`;
+  let engine = engines.get(key);
+  if (engine === undefined) {
+    if (engines.size > 8) engines.clear();
+    engine = createGccEngine(sizeFrames, { sampleRateHz: settings.sampleRateHz, weighting: settings.weighting, bandHz: settings.bandHz, maxLagSeconds });
+    engines.set(key, engine);
+  }
+  return engine;
+}
+
+/** All pairs (a < b) of the microphones whose window samples are given in `channels` (array order). */
+export function measurePairs(channels: readonly Float32Array[], microphones: readonly ArrayMicrophone[], settings: PairSettings): PairMeasurement[] {
+  const windowFrames = Math.max(...channels.map((c) => c.length));
+  let largestLagSeconds = 0;
+  for (let a = 0; a < microphones.length; a++) {
+    for (let b = a + 1; b < microphones.length; b++) {
+      largestLagSeconds = Math.max(largestLagSeconds, pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds);
+    }
+  }
+  const engine = engineFor(windowFrames, settings, largestLagSeconds);
+  channels.forEach((samples, index) => engine.setChannel(index, samples));
+  const pairs: PairMeasurement[] = [];
+  for (let a = 0; a < microphones.length; a++) {
+    for (let b = a + 1; b < microphones.length; b++) {
+      const maxLagSeconds = Math.min(engine.maxLagSeconds, pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds);
+      const delay = engine.pairDelay(a, b, maxLagSeconds);
+      pairs.push({ indexA: a, indexB: b, delaySeconds: delay.delaySeconds, sigmaSeconds: delay.sigmaSeconds, peakToSecondRatio: delay.peakToSecondRatio, peakValue: delay.peakValue, snrDb: delay.snrDb, maxLagSeconds });
+    }
+  }
+  return pairs;
+}

@@ -1,0 +1,168 @@
+// `whence locate RECORDING --array ARRAY.csv`: find each sound in a multichannel recording, measure its time
+// differences by GCC, fix its position with an uncertainty ellipse, and write the survey log (CSV, JSON or GeoJSON).
+import { availableParallelism } from 'node:os';
+import { basename, extname } from 'node:path';
+import { readWavInfo } from '../../../core/audio';
+import type { GccWeighting } from '../../../core/dsp';
+import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
+import { parseArrayCsv } from '../../../core/project';
+import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
+import { WHENCE_VERSION } from '../../../core/version';
+import { writeFileAtomic } from '../../files';
+import { openFileByteSource } from '../../io';
+import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
+import type { CliIo } from '../io';
+import { chooseSpeed, mediumOptionSpec } from '../mediumOptions';
+import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError, type ParsedCommand } from '../parse';
+import { progressLine } from '../progress';
+import { readTextFile } from '../readInput';
+import { parseOrigin } from './solve';
+
+export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
+
+  Finds each sound in a multichannel WAV/RF64/BW64 recording, measures the time
+  difference of arrival of every microphone pair by GCC, and fixes its position with
+  an uncertainty ellipse. Writes the survey log: CSV to standard output, or --out.
+
+  --array FILE          microphones: channel (1 = first channel of the recording) and
+                        x_m,y_m[,z_m] (local metres) or lat,lon[,alt_m] (WGS84);
+                        optional label, sigma_m
+  --medium M            air (default), seawater or freshwater; with --temperature C and
+                        the options of 'whence speed' (default 20 °C, with a warning)
+  --temperature-sigma K uncertainty of the temperature (default 1 K; 5 K when assumed)
+  --sound-speed M_S     speed of sound in m/s instead of a medium
+  --dims 2|3            2 (default): source on a known height; 3: full 3-D fix
+  --height M            source height for 2-D (default: microphones' mean height)
+  --band LO-HI          correlation band in Hz, e.g. 1500-6000 (default: chosen per event)
+  --weighting W         phat (default), phat-beta, scot, roth, ml or plain
+  --threshold DB        detection threshold above the noise floor (default 10 dB)
+  --min-channels N      channels that must hear a sound for it to count
+  --from S --to S       scan only this span (seconds from the start of the recording)
+  --confidence P        confidence of the ellipse (default 0.95)
+  --origin LAT,LON[,ALT]  WGS84 origin of a local-metres array (gives lat/lon)
+  --workers N           worker threads for locating (default: cores - 1)
+  --json                JSON survey log on standard output instead of CSV
+  --out FILE            write FILE.csv, FILE.json or FILE.geojson (atomically)
+`;
+
+const weightings = ['phat', 'phat-beta', 'scot', 'roth', 'ml', 'plain'] as const;
+
+export function parseBand(text: string | undefined): { lowHz: number; highHz: number } | undefined {
+  if (text === undefined) return undefined;
+  const match = /^\s*(\d+(?:\.\d+)?)\s*-\s*(\d+(?:\.\d+)?)\s*$/.exec(text);
+  if (match === null) throw new UsageError(`--band needs LOW-HIGH in hertz, e.g. 1500-6000; got '${text}'.`);
+  const lowHz = Number(match[1]);
+  const highHz = Number(match[2]);
+  if (!(highHz > lowHz)) throw new UsageError(`--band: the upper edge must be above the lower; got ${lowHz}-${highHz} Hz.`);
+  return { lowHz, highHz };
+}
+
+function settingsFromOptions(values: ParsedCommand['values'], speed: { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number }): LocateSettings {
+  const dimensions = Number(oneOf('dims', optionalString(values, 'dims'), ['2', '3'] as const, '2')) as 2 | 3;
+  const confidence = optionalNumber(values, 'confidence', 'a probability such as 0.95') ?? DEFAULT_LOCATE_SETTINGS.confidence;
+  if (!(confidence > 0 && confidence < 1)) throw new UsageError(`--confidence must be between 0 and 1 (e.g. 0.95); got ${confidence}.`);
+  const settings: LocateSettings = {
+    ...speed,
+    dimensions,
+    confidence,
+    weighting: oneOf('weighting', optionalString(values, 'weighting'), weightings, 'phat') as GccWeighting,
+  };
+  const band = parseBand(optionalString(values, 'band'));
+  if (band !== undefined) settings.bandHz = band;
+  const height = optionalNumber(values, 'height', 'metres up');
+  if (height !== undefined) {
+    if (dimensions === 3) throw new UsageError('--height fixes the source height for a 2-D fix; a 3-D fix (--dims 3) finds the height itself.');
+    settings.sourceUpMeters = height;
+  }
+  const threshold = optionalNumber(values, 'threshold', 'decibels');
+  if (threshold !== undefined) {
+    if (!(threshold >= 3 && threshold <= 60)) throw new UsageError(`--threshold must be 3 to 60 dB above the noise floor; got ${threshold}.`);
+    settings.detectionThresholdDb = threshold;
+  }
+  const minChannels = optionalNumber(values, 'min-channels', 'a number of channels');
+  if (minChannels !== undefined) {
+    if (!Number.isInteger(minChannels) || minChannels < 2) throw new UsageError(`--min-channels must be a whole number from 2; got ${minChannels}.`);
+    settings.minChannels = minChannels;
+  }
+  return settings;
+}
+
+function settingsForLog(settings: LocateSettings, values: ParsedCommand['values']): Record<string, string | number | boolean> {
+  const logged: Record<string, string | number | boolean> = { dims: settings.dimensions, confidence: settings.confidence, weighting: settings.weighting, band_hz: settings.bandHz ? `${settings.bandHz.lowHz}-${settings.bandHz.highHz}` : 'per event' };
+  if (settings.sourceUpMeters !== undefined) logged.height_m = settings.sourceUpMeters;
+  if (settings.detectionThresholdDb !== undefined) logged.threshold_db = settings.detectionThresholdDb;
+  if (settings.minChannels !== undefined) logged.min_channels = settings.minChannels;
+  for (const name of ['from', 'to']) if (typeof values[name] === 'string') logged[`${name}_s`] = Number(values[name]);
+  return logged;
+}
+
+export async function runLocate(argv: string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parseCommandArgs('locate', argv, {
+    array: { type: 'string' }, 'sound-speed': { type: 'string' }, 'sound-speed-sigma': { type: 'string' }, ...mediumOptionSpec,
+    'temperature-sigma': { type: 'string' }, dims: { type: 'string' }, height: { type: 'string' }, band: { type: 'string' },
+    weighting: { type: 'string' }, threshold: { type: 'string' }, 'min-channels': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' },
+    confidence: { type: 'string' }, origin: { type: 'string' }, workers: { type: 'string' }, json: { type: 'boolean' }, out: { type: 'string' },
+  });
+  if (positionals.length !== 1) throw new UsageError(`whence locate takes one recording; got ${positionals.length}. Example: whence locate site.wav --array array.csv`);
+  const recordingPath = positionals[0]!;
+  const arrayPath = optionalString(values, 'array');
+  if (arrayPath === undefined) throw new UsageError('whence locate needs --array ARRAY.csv (the microphones and their channels).');
+  const outPath = optionalString(values, 'out');
+  const outKind = outPath === undefined ? undefined : extname(outPath).toLowerCase();
+  if (outKind !== undefined && !['.csv', '.json', '.geojson'].includes(outKind)) throw new UsageError(`--out must end in .csv, .json or .geojson; got '${outPath}'.`);
+  if (outPath !== undefined && values.json === true) throw new UsageError('give either --json (standard output) or --out FILE, not both.');
+  const speed = chooseSpeed(values);
+  const settings = settingsFromOptions(values, speed);
+  const origin = parseOrigin(optionalString(values, 'origin'));
+  const workersOption = optionalNumber(values, 'workers', 'a number of threads');
+  if (workersOption !== undefined && (!Number.isInteger(workersOption) || workersOption < 0 || workersOption > 64)) throw new UsageError(`--workers must be a whole number from 0 to 64; got ${workersOption}.`);
+  const fromSeconds = optionalNumber(values, 'from', 'seconds');
+  const toSeconds = optionalNumber(values, 'to', 'seconds');
+
+  const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, origin);
+  if (outKind === '.geojson' && geometry.origin === undefined) throw new UsageError('GeoJSON needs WGS84 positions: give the array as lat,lon or set --origin LAT,LON.');
+  const source = await openFileByteSource(recordingPath);
+  let pool: LocatePool | undefined;
+  try {
+    const info = await readWavInfo(source);
+    const recording = recordingAccess(source, info);
+    const mapping = mapArrayToRecording(geometry, info.channelCount, basename(recordingPath));
+    for (const warning of [...info.warnings, ...geometry.warnings, ...mapping.warnings, ...speed.warnings]) io.writeStderr(`warning: ${warning}\n`);
+    const context: LocateContext = { geometry, channelIndexOfMicrophone: mapping.channelIndexOfMicrophone, settings };
+    const workerCount = workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
+    const workerPath = bundledWorkerPath();
+    if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(recordingPath, context, workerCount, workerPath);
+    const progress = progressLine(io);
+    const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
+    if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
+    if (toSeconds !== undefined) options.toSeconds = toSeconds;
+    if (pool !== undefined) options.locator = pool.locate.bind(pool);
+    const result = await runPipeline(recording, context, options);
+    progress.done();
+
+    const logContext: SurveyLogContext = {
+      recordingName: basename(recordingPath), recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz, geometry,
+      medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
+      softwareVersion: WHENCE_VERSION, settings: settingsForLog(settings, values), dimensions: settings.dimensions,
+    };
+    const records = result.located.map((located) => locatedEventRecord(located, logContext));
+    const notes = [...result.warnings, `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
+    let text: string;
+    if (outKind === '.geojson') {
+      text = fixesToGeoJson(records, geometry.origin!, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
+    } else if (outKind === '.json' || values.json === true) {
+      text = surveyLogJson(records, logContext, notes);
+    } else {
+      text = surveyLogCsv(records, logContext, notes);
+    }
+    if (outPath !== undefined) await writeFileAtomic(outPath, text);
+    else io.writeStdout(text);
+    const fixed = records.filter((record) => record.status === 'ok').length;
+    io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} fixed${records.length > fixed ? `, ${records.length - fixed} without an unambiguous fix (see status and warnings)` : ''}${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
+    for (const warning of result.warnings) io.writeStderr(`note: ${warning}\n`);
+    return 0;
+  } finally {
+    await pool?.close();
+    await source.close();
+  }
+}

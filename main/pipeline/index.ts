@@ -1,0 +1,2 @@
+// Node side of the locate pipeline: worker threads for the command line.
+export { bundledWorkerPath, createLocatePool, type LocatePool } from './workerPool';
