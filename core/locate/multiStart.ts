@@ -131,13 +131,20 @@ export function findSolutions(problem: TdoaProblem, shape: ArrayShape, closedFor
   for (const start of starts) {
     if (!start.position.every(Number.isFinite)) continue;
     if (refinedStarts.some((other) => distance(other, start.position) <= 1e-3 * shape.apertureMeters)) continue;
+    // A start within 1 % of the scale of a solution already found would only find it again.
+    const scale = shape.apertureMeters + distance(start.position, shape.centroid);
+    if (solutions.some((other) => distance(other.position, start.position) <= 1e-2 * scale)) continue;
     refinedStarts.push(start.position);
     const result = refinePosition(problem, start.position, {
       divergenceRadiusMeters,
       centerMeters: shape.centroid,
       stepScaleMeters: shape.apertureMeters,
       maxIterations: start.origin.startsWith('chan') || start.origin === 'spherical-interpolation' ? 100 : 60,
+      // Paths that run into a known solution stop there (they would converge to it).
+      knownSolutions: solutions.map((other) => other.position),
+      mergeRadiusMeters: 1e-3 * scale,
     });
+    if (result.merged !== undefined) continue;
     if (!result.converged || !Number.isFinite(result.cost)) continue;
     if (distance(result.position, shape.centroid) > divergenceRadiusMeters) continue;
     const twin = solutions.find((other) => samePosition(shape, other.position, result.position));

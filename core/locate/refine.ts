@@ -9,6 +9,8 @@ export interface RefineResult {
   cost: number;
   converged: boolean;
   iterations: number;
+  /** Index into options.knownSolutions when the path ran into a known solution. */
+  merged?: number;
 }
 
 export interface RefineOptions {
@@ -21,6 +23,9 @@ export interface RefineOptions {
    * (so a far start may move far, a near one cannot jump across the array's far field).
    */
   stepScaleMeters?: number;
+  /** Stop early (not converged, `merged` set) once within `mergeRadiusMeters` of any of these solutions. */
+  knownSolutions?: readonly ArrayLike<number>[];
+  mergeRadiusMeters?: number;
 }
 
 const normal = new Float64Array(9);
@@ -93,6 +98,14 @@ export function refinePosition(problem: TdoaProblem, start: ArrayLike<number>, o
         // No damping gives a lower cost: a minimum to machine precision.
         converged = true;
         break;
+      }
+    }
+    if (options.knownSolutions && options.mergeRadiusMeters !== undefined) {
+      for (let s = 0; s < options.knownSolutions.length; s++) {
+        const known = options.knownSolutions[s];
+        let gap = 0;
+        for (let i = 0; i < n; i++) gap += (position[i] - known[i]) ** 2;
+        if (Math.sqrt(gap) <= options.mergeRadiusMeters) return { position, cost, converged: false, iterations, merged: s };
       }
     }
     if (options.divergenceRadiusMeters !== undefined && options.centerMeters) {

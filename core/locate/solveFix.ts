@@ -231,6 +231,9 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
   });
   const conditionNumber = conditionNumberSymmetric(budget.normal, dims);
   const covariance = addMatrices(dims, budget.timing, budget.speed, budget.survey, budget.sourceHeight);
+  if (!covariance.every(Number.isFinite)) {
+    return { status: 'ill-conditioned', warnings: [...warnings, 'The normal matrix is singular at the solution: no position or covariance can be given.'] };
+  }
 
   // Ambiguity: exact mirror of a collinear (2-D) or coplanar (3-D) array, or a second solution that fits as well.
   const positionOf = (q: ArrayLike<number>): Position => ({ eastMeters: q[0], northMeters: q[1], upMeters: dims === 3 ? q[2] : sourceUpMeters });

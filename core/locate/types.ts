@@ -42,7 +42,10 @@ export interface SolveOptions {
   sourceUpSigmaMeters?: number;
   /** Confidence of the ellipse and ellipsoid; default 0.95. */
   confidence?: number;
-  /** Timing sigma used when no delay states one and there are too few redundant delays; default 1e-4 s. */
+  /**
+   * Timing sigma used when no delay states one and fewer than 3 delays are redundant (per delay, or per arrival in the
+   * `arrival-times` model); default 1e-4 s.
+   */
   defaultTimingSigmaSeconds?: number;
   /** Drop delays beyond the physical limit and outlier pairs; default true. */
   rejectOutliers?: boolean;

@@ -36,8 +36,13 @@ function pick(channels: readonly Float32Array[], indices: readonly number[]): Fl
   return indices.map((index) => channels[index]!);
 }
 
-async function readNoise(recording: RecordingAccess, context: LocateContext, startFrame: number, endFrame: number): Promise<Float32Array[]> {
+async function readNoise(recording: RecordingAccess, context: LocateContext, event: DetectedEvent, startFrame: number, endFrame: number): Promise<Float32Array[]> {
   const fs = recording.info.sampleRateHz;
+  const quiet = event.noiseWindow;
+  if (quiet !== undefined && quiet.endSeconds - quiet.startSeconds >= 0.1) {
+    const quietStart = Math.max(0, Math.floor(quiet.startSeconds * fs));
+    return pick(await recording.readFrames(quietStart, Math.max(1, Math.floor(quiet.endSeconds * fs) - quietStart)), context.channelIndexOfMicrophone);
+  }
   const noiseFrames = Math.round(NOISE_WINDOW_SECONDS * fs);
   const before = Math.min(noiseFrames, startFrame);
   if (before >= noiseFrames / 4) return pick(await recording.readFrames(startFrame - before, before), context.channelIndexOfMicrophone);
@@ -51,6 +56,26 @@ function earliestOnset(event: DetectedEvent, context: LocateContext): { micropho
     if (onset !== undefined && (best === undefined || onset < best.seconds)) best = { microphoneIndex, seconds: onset };
   });
   return best;
+}
+
+/** Smallest per-microphone arrival sigma the pipeline states: a tenth of a sample (model errors the GCC bound leaves out). */
+export const MIN_ARRIVAL_SIGMA_SAMPLES = 0.1;
+
+/**
+ * Solves once with the correlation's sigmas and no outlier rejection; when the residuals are larger than those sigmas
+ * allow (chi-square test), scales the sigmas by the a-posteriori factor sqrt(chi²/dof) and solves again with outlier
+ * rejection, so the ellipse reflects the scatter actually seen (echoes, ground reflection, source directivity).
+ */
+export function solveWithHonestSigma(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions, warnings: string[]): SolveResult {
+  const first = solveFix(microphones, reduced.delays, { ...options, rejectOutliers: false });
+  const chi = first.fix?.chiSquare;
+  if (first.fix === undefined || chi === undefined || chi.degreesOfFreedom < 1 || chi.consistent) {
+    return solveFix(microphones, reduced.delays, options);
+  }
+  const factor = Math.sqrt(chi.statistic / chi.degreesOfFreedom);
+  const scaled = reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: (delay.sigmaSeconds ?? 0) * factor }));
+  warnings.push(`The time differences scatter ${factor.toFixed(1)} times more than the correlation peaks alone suggest; the timing sigma was scaled up to match (a-posteriori variance factor on ${chi.degreesOfFreedom} degree${chi.degreesOfFreedom === 1 ? '' : 's'} of freedom).`);
+  return solveFix(microphones, scaled, options);
 }
 
 export function solveOptions(settings: LocateSettings, lagMarginSeconds: number): SolveOptions {
@@ -89,7 +114,7 @@ export async function locateEvent(recording: RecordingAccess, event: DetectedEve
   if (context.settings.bandHz !== undefined) {
     bandHz = context.settings.bandHz;
   } else {
-    const chosen = chooseBand(window, await readNoise(recording, context, startFrame, endFrame), fs);
+    const chosen = chooseBand(window, await readNoise(recording, context, event, startFrame, endFrame), fs);
     bandHz = { lowHz: chosen.lowHz, highHz: chosen.highHz };
     bandSnrDb = chosen.snrDb;
   }
@@ -99,10 +124,12 @@ export async function locateEvent(recording: RecordingAccess, event: DetectedEve
   const microphones = context.geometry.microphones;
   const pairs = measurePairs(window, microphones, { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds });
   const referenceIndex = onset?.microphoneIndex ?? 0;
-  const reduced = reducePairsToReference(microphones.length, pairs, referenceIndex);
+  const floorSeconds = (MIN_ARRIVAL_SIGMA_SAMPLES * Math.SQRT2) / fs;
+  const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
+  const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
   const solve: SolveResult = reduced.delays.length > 0
-    ? solveFix(toSolverMicrophones(context.geometry), reduced.delays, solveOptions(context.settings, lagMarginSeconds))
+    ? solveWithHonestSigma(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, lagMarginSeconds), warnings)
     : { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
   let emissionTimeSeconds: number | undefined;
   let firstArrivalSeconds = onset?.seconds ?? event.startSeconds;

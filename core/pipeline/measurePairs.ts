@@ -1,6 +1,6 @@
 // Time differences of every microphone pair of one event window by generalized cross-correlation (core/dsp),
 // each searched only within the lags the pair's spacing allows (|τ| ≤ d/c plus a margin).
-import { createGccEngine, nextPowerOfTwo, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
+import { createGccEngine, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
 import type { ArrayMicrophone } from '../project';
 
 export interface PairMeasurement {
@@ -30,7 +30,9 @@ export function pairSpacingMeters(a: ArrayMicrophone, b: ArrayMicrophone): numbe
 const engines = new Map<string, GccEngine>();
 
 function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: number): GccEngine {
-  const sizeFrames = nextPowerOfTwo(Math.max(windowFrames, 256));
+  // Windows rounded up to a multiple of 4096 frames so similar events share an engine; the engine sizes its FFT to
+  // the next power of two above window + largest lag (no circular wrap).
+  const sizeFrames = Math.max(4096, Math.ceil(windowFrames / 4096) * 4096);
   const key = `${sizeFrames}|${settings.sampleRateHz}|${settings.weighting}|${settings.bandHz.lowHz}|${settings.bandHz.highHz}|${maxLagSeconds}`;
   let engine = engines.get(key);
   if (engine === undefined) {

@@ -75,11 +75,17 @@ export function reducePairsToReference(microphoneCount: number, pairs: readonly 
     const residuals = normalisedResiduals(offsets, active);
     let worst = 0;
     for (let i = 1; i < residuals.length; i++) if (Math.abs(residuals[i]!) > Math.abs(residuals[worst]!)) worst = i;
-    if (!(Math.abs(residuals[worst]!) > rejectSigma)) break;
     const candidate = active.filter((_, i) => i !== worst);
     const candidateOffsets = solveArrivalOffsets(microphoneCount, referenceIndex, candidate);
     if (candidateOffsets === undefined) break;
-    droppedPairs.push({ indexA: active[worst]!.pair.indexA, indexB: active[worst]!.pair.indexB, normalisedResidual: residuals[worst]! });
+    // Leave the worst pair out, predict it from the others, and compare with the others' robust scatter
+    // (1.4826 × median |r|, the MAD estimate of sigma for normal errors, common practice): when every sigma is
+    // understated alike, that alone is no reason to drop pairs.
+    const suspect = active[worst]!.pair;
+    const predicted = (suspect.delaySeconds - (candidateOffsets[suspect.indexA]! - candidateOffsets[suspect.indexB]!)) / suspect.sigmaSeconds;
+    const robustScale = Math.max(1, 1.4826 * median(normalisedResiduals(candidateOffsets, candidate).map(Math.abs)));
+    if (!(Math.abs(predicted) > rejectSigma * robustScale)) break;
+    droppedPairs.push({ indexA: suspect.indexA, indexB: suspect.indexB, normalisedResidual: predicted / robustScale });
     active = candidate;
     offsets = candidateOffsets;
   }

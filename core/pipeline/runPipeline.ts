@@ -70,7 +70,8 @@ function offsetEvent(event: DetectedEvent, offsetSeconds: number, index: number)
     index,
     startSeconds: event.startSeconds + offsetSeconds,
     endSeconds: event.endSeconds + offsetSeconds,
-    onsetSeconds: event.onsetSeconds.map((onset) => (onset === undefined ? undefined : onset + offsetSeconds)),
+    onsetSeconds: event.onsetSeconds.map((onset: number | undefined) => (onset === undefined ? undefined : onset + offsetSeconds)),
+    ...(event.noiseWindow !== undefined ? { noiseWindow: { startSeconds: event.noiseWindow.startSeconds + offsetSeconds, endSeconds: event.noiseWindow.endSeconds + offsetSeconds } } : {}),
   };
 }
 

@@ -2,3 +2,35 @@
 export type { ArrayGeometry, ArrayMicrophone } from './arrayGeometry';
 export { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, parseArrayCsv } from './arrayCsv';
 export { parseDelaysCsv, type DelayEvent, type DelayRow } from './delaysCsv';
+export {
+  emptyProjectDocument,
+  firstIssueText,
+  formatFieldPath,
+  parseProjectDocument,
+  projectDocumentSchema,
+  readProjectText,
+  serializeProjectDocument,
+  UNKNOWN_TEMPERATURE_SIGMA_KELVIN,
+  validateProjectDocument,
+  type FixLogEntry,
+  type MapView,
+  type ProjectArray,
+  type ProjectDocument,
+  type ProjectMedium,
+  type ProjectSettings,
+  type ReadProjectResult,
+  type RecordingReference,
+} from './document';
+export {
+  checkMigrationRegistry,
+  CURRENT_PROJECT_SCHEMA_VERSION,
+  migrateProjectData,
+  PROJECT_MIGRATION_REGISTRY,
+  PROJECT_MIGRATIONS,
+  readSchemaVersion,
+  type MigrationRegistry,
+  type MigrationResult,
+  type ProjectData,
+  type ProjectMigration,
+} from './migrations';
+export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV1 } from './schema';

@@ -1,38 +1,108 @@
-// Electron main process: one window on the bundled renderer, hardened as in security.ts; no remote content.
-// Thin by design: the job's logic lives in core/ and runs in the renderer's worker.
-import { app, BrowserWindow, session } from 'electron';
+// Electron main process: one hardened window on the bundled page, the host requests (ipcHandlers.ts), the menu.
+// Thin by design: every decision lives in the modules it wires (security, senderCheck, hostServices, menu), which are tested.
+import { app, BrowserWindow, dialog, ipcMain, Menu, session } from 'electron';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
-import { CONTENT_SECURITY_POLICY, isAllowedPageUrl, secureWebPreferences } from './security';
+import { IPC_EVENTS, type MenuCommand, type RecentProject } from '../../core/contract';
+import { createRecentProjectsStore, createRecoveryStore, RECENT_PROJECTS_FILE_NAME } from '../project';
+import { appPaths } from './appPaths';
+import type { DialogAdapter } from './dialogs';
+import { createHostServices } from './hostServices';
+import { registerIpcHandlers } from './ipcHandlers';
+import { applicationMenuSpec, toElectronTemplate } from './menu';
+import { createRecordingHandles } from './recordingHandles';
+import { denyPermissionCheck, denyPermissionRequest, isAllowedRequestUrl, navigationGuard, secureWebPreferences, withContentSecurityPolicy } from './security';
+import { isTrustedSender } from './senderCheck';
 
-const rendererIndexPath = join(__dirname, '..', '..', 'dist-web', 'index.html');
-const rendererIndexUrl = pathToFileURL(rendererIndexPath).toString();
+const paths = appPaths({ bundleFolder: __dirname, isPackaged: app.isPackaged, resourcesPath: process.resourcesPath, appPath: app.getAppPath() });
 
-function createWindow(): void {
-  const window = new BrowserWindow({
-    width: 1440,
-    height: 900,
-    title: 'Whence',
-    webPreferences: secureWebPreferences(join(__dirname, 'preload.cjs')),
-  });
-  window.webContents.setWindowOpenHandler(() => ({ action: 'deny' }));
-  window.webContents.on('will-navigate', (event, url) => {
-    if (!isAllowedPageUrl(url, rendererIndexUrl)) event.preventDefault();
-  });
-  void window.loadFile(rendererIndexPath);
+let mainWindow: BrowserWindow | undefined;
+const recordings = createRecordingHandles();
+const log = (message: string): void => {
+  process.stderr.write(`${message}\n`);
+};
+
+const dialogs: DialogAdapter = {
+  async chooseFileToOpen({ title, filters }) {
+    const options: Electron.OpenDialogOptions = { title, filters, properties: ['openFile'] };
+    const result = mainWindow ? await dialog.showOpenDialog(mainWindow, options) : await dialog.showOpenDialog(options);
+    return result.canceled ? null : result.filePaths[0] ?? null;
+  },
+  async chooseFileToSave({ title, defaultPath, filters }) {
+    const options: Electron.SaveDialogOptions = { title, defaultPath, filters, properties: ['showOverwriteConfirmation', 'createDirectory'] };
+    const result = mainWindow ? await dialog.showSaveDialog(mainWindow, options) : await dialog.showSaveDialog(options);
+    return result.canceled || !result.filePath ? null : result.filePath;
+  },
+};
+
+function sendMenuCommand(command: MenuCommand): void {
+  mainWindow?.webContents.send(IPC_EVENTS.menuCommand, command);
 }
 
-app.whenReady().then(() => {
-  session.defaultSession.setPermissionRequestHandler((_webContents, _permission, callback) => callback(false));
-  session.defaultSession.webRequest.onHeadersReceived((details, callback) => {
-    callback({ responseHeaders: { ...details.responseHeaders, 'Content-Security-Policy': [CONTENT_SECURITY_POLICY] } });
+function rebuildMenu(recentProjects: readonly RecentProject[]): void {
+  const spec = applicationMenuSpec({ platform: process.platform, appName: app.getName(), recentProjects, developerTools: !app.isPackaged });
+  Menu.setApplicationMenu(Menu.buildFromTemplate(toElectronTemplate(spec, sendMenuCommand)));
+}
+
+function createWindow(): void {
+  const window = new BrowserWindow({ width: 1440, height: 900, title: 'Whence', show: false, webPreferences: secureWebPreferences(paths.preloadPath) });
+  mainWindow = window;
+  window.once('ready-to-show', () => window.show());
+  // Recordings opened for this page are closed when it goes away (closed, reloaded or crashed).
+  window.webContents.on('did-navigate', () => void recordings.closeAll());
+  window.webContents.on('render-process-gone', () => void recordings.closeAll());
+  window.on('closed', () => {
+    if (mainWindow === window) mainWindow = undefined;
+    void recordings.closeAll();
   });
+  void window.loadFile(paths.rendererIndexPath);
+}
+
+app.enableSandbox();
+if (!app.requestSingleInstanceLock()) app.quit();
+
+app.on('second-instance', () => {
+  if (mainWindow === undefined) return;
+  if (mainWindow.isMinimized()) mainWindow.restore();
+  mainWindow.focus();
+});
+
+// Every web contents, including any the page might create, refuses navigation, new windows and webviews.
+app.on('web-contents-created', (_event, contents) => {
+  const guard = navigationGuard(paths.rendererIndexUrl);
+  contents.setWindowOpenHandler(guard.windowOpenHandler);
+  contents.on('will-navigate', guard.onWillNavigate);
+  contents.on('will-redirect', guard.onWillRedirect);
+  contents.on('will-attach-webview', guard.onWillAttachWebview);
+});
+
+app.whenReady().then(async () => {
+  session.defaultSession.setPermissionRequestHandler(denyPermissionRequest);
+  session.defaultSession.setPermissionCheckHandler(denyPermissionCheck);
+  session.defaultSession.webRequest.onBeforeRequest((details, callback) => callback({ cancel: !isAllowedRequestUrl(details.url, paths.rendererFolderUrl) }));
+  session.defaultSession.webRequest.onHeadersReceived((details, callback) => callback({ responseHeaders: withContentSecurityPolicy(details.responseHeaders) }));
+
+  const userData = app.getPath('userData');
+  const recent = createRecentProjectsStore(join(userData, RECENT_PROJECTS_FILE_NAME));
+  const services = createHostServices({
+    dialogs,
+    recordings,
+    recovery: createRecoveryStore(join(userData, 'recovery')),
+    recent,
+    demoFolder: paths.demoFolder,
+    onRecentProjectsChanged: rebuildMenu,
+    log,
+  });
+  registerIpcHandlers(ipcMain, services, {
+    isTrustedSender: (event) => isTrustedSender(event, { webContentsId: () => mainWindow?.webContents.id, pageUrl: paths.rendererIndexUrl }),
+    log,
+  });
+  rebuildMenu(await recent.list());
   createWindow();
   app.on('activate', () => {
     if (BrowserWindow.getAllWindows().length === 0) createWindow();
   });
-}, (error: unknown) => {
-  process.stderr.write(`Whence could not start its window: ${String(error)}\n`);
+}).catch((error: unknown) => {
+  log(`Whence could not start its window: ${String(error)}`);
   app.exit(1);
 });
 

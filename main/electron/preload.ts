@@ -1,7 +1,8 @@
-// Preload: exposes one small typed object to the page (core/contract HostApi), never a generic message channel.
-import { contextBridge } from 'electron';
-import { HOST_GLOBAL_NAME, type HostApi } from '../../core/contract';
+// Preload (sandboxed): exposes the one typed host object of core/contract to the page through the context bridge.
+// Everything it does is in hostBridge.ts; this file only hands it Electron's ipcRenderer and webUtils.
+import { contextBridge, ipcRenderer, webUtils } from 'electron';
+import { HOST_GLOBAL_NAME } from '../../core/contract';
 import { WHENCE_VERSION } from '../../core/version';
+import { createHostApi } from './hostBridge';
 
-const host: HostApi = { kind: 'electron', appVersion: WHENCE_VERSION };
-contextBridge.exposeInMainWorld(HOST_GLOBAL_NAME, host);
+contextBridge.exposeInMainWorld(HOST_GLOBAL_NAME, createHostApi(ipcRenderer, webUtils, { appVersion: WHENCE_VERSION, platform: process.platform }));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { solveFix, type Fix } from '../../../core/locate';
+import { chiSquareQuantile, crlbCovariance, solveFix, type Fix } from '../../../core/locate';
 import { buildProblem } from '../../../core/locate/buildProblem';
 import { deletionStatistics } from '../../../core/locate/outlierRejection';
 import { refinePosition } from '../../../core/locate/refine';
@@ -8,8 +8,13 @@ import { allPairs, arrivalDelays, distance, makeRng, microphonesAt, pairDelays, 
 
 const C = 343;
 
-function within(fix: Fix, truth: Point3, meters: number): boolean {
-  return distance([fix.eastMeters, fix.northMeters, fix.upMeters], truth) < meters;
+/** True when the truth lies inside the fix's 99.9 % horizontal ellipse (the fix is as good as it claims). */
+function covers(fix: Fix, truth: Point3): boolean {
+  const c = fix.covarianceMeters2;
+  const e = [fix.eastMeters - truth[0], fix.northMeters - truth[1]];
+  const det = c[0][0] * c[1][1] - c[0][1] * c[1][0];
+  const q = (c[1][1] * e[0] * e[0] - 2 * c[0][1] * e[0] * e[1] + c[0][0] * e[1] * e[1]) / det;
+  return q <= chiSquareQuantile(0.999, 2);
 }
 
 describe('solveFix() outlier rejection', () => {
@@ -26,15 +31,20 @@ describe('solveFix() outlier rejection', () => {
           delays[bad] = { ...delays[bad], delaySeconds: delays[bad].delaySeconds + (rng.uniform() < 0.5 ? -4e-4 : 4e-4) };
           const result = solveFix(microphonesAt(points), delays, { speedMetersPerSecond: C, dimensions: dims });
           const fix = result.fix!;
-          const dropped = fix.residuals.findIndex((r) => !r.used);
-          expect(dropped).toBe(bad);
+          // the bad pair, and at most one clean pair failing the 1 % test by chance
+          const dropped = fix.residuals.flatMap((r, k) => (r.used ? [] : [k]));
+          expect(dropped).toContain(bad);
+          expect(dropped.length).toBeLessThanOrEqual(2);
           expect(fix.residuals[bad].reason).toMatch(/outlier/);
           expect(fix.droppedPairs.some((r) => r.indexA === delays[bad].indexA && r.indexB === delays[bad].indexB)).toBe(true);
           expect(fix.pairsUsed).toBe(28 - fix.droppedPairs.length);
           expect(result.warnings.join(' ')).toMatch(new RegExp(`Dropped pair M${delays[bad].indexA + 1}-M${delays[bad].indexB + 1} \\(delays\\[${bad}\\]\\)`));
           // the dropped pair's residual is still reported: about the 0.4 ms it was moved by
           expect(Math.abs(fix.residuals[bad].residualSeconds)).toBeGreaterThan(3e-4);
-          expect(within(fix, source, 0.2)).toBe(true);
+          // as good as a clean fix: within 5 times the RMS error of the CRLB (sigma from residuals may be trimmed low)
+          const bound = crlbCovariance(microphonesAt(points), { eastMeters: source[0], northMeters: source[1], upMeters: source[2] }, { speedMetersPerSecond: C, dimensions: dims, timingSigmaSeconds: 2e-5 });
+          const rms = Math.sqrt(bound.reduce((s, row, i) => s + row[i], 0));
+          expect(distance([fix.eastMeters, fix.northMeters, fix.upMeters], source)).toBeLessThan(5 * rms);
         }
       });
     }
@@ -52,7 +62,7 @@ describe('solveFix() outlier rejection', () => {
     expect(fix.droppedPairs).toHaveLength(1);
     expect(fix.droppedPairs[0].indexA).toBe(4);
     expect(fix.droppedPairs[0].reason).toMatch(/arrival time at M5/);
-    expect(within(fix, source, 0.2)).toBe(true);
+    expect(covers(fix, source)).toBe(true);
   });
 
   it('keeps every pair when rejectOutliers is false, and when no redundancy is left to judge', () => {
@@ -111,7 +121,7 @@ describe('deletionStatistics()', () => {
         const without = refinePosition(problem, best.position);
         problem.active[k] = 1;
         const exact = best.cost - without.cost;
-        expect(Math.abs(statistics[k] - exact)).toBeLessThan(1e-3 * Math.max(exact, 1));
+        expect(Math.abs(statistics[k] - exact)).toBeLessThan(0.02 * Math.max(exact, 1));
       }
       expect(evaluateCost(problem, best.position)).toBeCloseTo(best.cost, 10);
     }

@@ -1,0 +1,120 @@
+// Writes the demo files: the synthesized recording (WAV, 24-bit, BWF start time), the array (WGS84 and local), the truth
+// (sources and their true pair delays). Run: npx tsx assets/demo/make-demo.ts [outFolder]  (default assets/demo/out/).
+import { mkdir } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { formatCsv } from '../../core/csv';
+import { enuToGeodetic } from '../../core/geo';
+import { sceneTruth } from '../../core/simulate';
+import { writeFileAtomic } from '../../main/files';
+import { writeSceneWav } from '../../main/simulate';
+import { DEMO_SCENE, DEMO_SITE } from './scenario';
+
+export const DEMO_FILES = Object.freeze({
+  recording: 'demo-recording.wav',
+  array: 'demo-array.csv',
+  arrayLocal: 'demo-array-local.csv',
+  truth: 'demo-truth.csv',
+  delays: 'demo-delays.csv',
+});
+
+const NOTE = 'Invented demo data (core/simulate); not a measurement.';
+
+/** Rounds to `digits` decimals for a table (positions to 0.1 mm, angles to 1e-9 degrees, times to 1 ns). */
+function round(value: number, digits: number): number {
+  const scale = 10 ** digits;
+  return Math.round(value * scale) / scale;
+}
+
+function toWgs84(east: number, north: number, up: number) {
+  return enuToGeodetic({ eastMeters: east, northMeters: north, upMeters: up }, DEMO_SITE.origin);
+}
+
+const originText = `${DEMO_SITE.origin.latitudeDegrees},${DEMO_SITE.origin.longitudeDegrees},${DEMO_SITE.origin.heightMeters}`;
+
+/** channel,label,lat,lon,alt_m,sigma_m: WGS84 positions of the microphones (alt_m above the ellipsoid). */
+export function demoArrayCsv(): string {
+  const rows = DEMO_SCENE.microphones.map((m) => {
+    const p = toWgs84(m.eastMeters, m.northMeters, m.upMeters);
+    return [m.channel, m.label, round(p.latitudeDegrees, 9), round(p.longitudeDegrees, 9), round(p.heightMeters, 4), DEMO_SITE.surveySigmaMeters];
+  });
+  return formatCsv(['channel', 'label', 'lat', 'lon', 'alt_m', 'sigma_m'], rows, [`${DEMO_SITE.name}: microphones in WGS84. ${NOTE}`]);
+}
+
+/** channel,label,x_m,y_m,z_m,sigma_m: the same microphones in the local frame (x east, y north, z up about the survey peg). */
+export function demoArrayLocalCsv(): string {
+  const rows = DEMO_SCENE.microphones.map((m) => [m.channel, m.label, m.eastMeters, m.northMeters, m.upMeters, DEMO_SITE.surveySigmaMeters]);
+  return formatCsv(['channel', 'label', 'x_m', 'y_m', 'z_m', 'sigma_m'], rows, [`${DEMO_SITE.name}: microphones in local metres about the survey peg at ${originText} (WGS84 lat, lon, ellipsoidal height). ${NOTE}`]);
+}
+
+/** id,kind,x_m,y_m,z_m,emission_s,lat,lon,alt_m: where and when each sound was made. */
+export function demoTruthCsv(): string {
+  const rows = DEMO_SCENE.sources.map((s) => {
+    const p = toWgs84(s.eastMeters, s.northMeters, s.upMeters);
+    return [s.id, s.kind, s.eastMeters, s.northMeters, s.upMeters, s.emissionTimeSeconds, round(p.latitudeDegrees, 9), round(p.longitudeDegrees, 9), round(p.heightMeters, 4)];
+  });
+  return formatCsv(['id', 'kind', 'x_m', 'y_m', 'z_m', 'emission_s', 'lat', 'lon', 'alt_m'], rows, [
+    `${DEMO_SITE.name}: the sounds in the demo recording; x/y/z in local metres about ${originText}; emission_s from the first frame. ${NOTE}`,
+  ]);
+}
+
+/** event,mic_a,mic_b,delay_s,sigma_s: the true delay of every pair for every sound (arrival at mic_a minus arrival at mic_b). */
+export function demoDelaysCsv(): string {
+  const truth = sceneTruth(DEMO_SCENE);
+  const rows = truth.sources.flatMap((source) => source.pairDelays.map((pair) => [source.id, pair.channelA, pair.channelB, round(pair.delaySeconds, 9), DEMO_SITE.delaySigmaSeconds]));
+  return formatCsv(['event', 'mic_a', 'mic_b', 'delay_s', 'sigma_s'], rows, [
+    `${DEMO_SITE.name}: true pair delays at ${truth.speedMetersPerSecond.toFixed(3)} m/s (Cramer 1993, ${DEMO_SITE.temperatureCelsius} C, ${DEMO_SITE.relativeHumidityPercent} % RH); sigma_s is nominal. ${NOTE}`,
+  ]);
+}
+
+export interface MakeDemoResult {
+  folder: string;
+  files: string[];
+  seconds: number;
+  clippedSampleCount: number;
+  peakAbsolute: number;
+}
+
+/** Writes every demo file into `outFolder` (created if missing), each atomically. */
+export async function makeDemo(outFolder: string): Promise<MakeDemoResult> {
+  const started = performance.now();
+  const folder = resolve(outFolder);
+  await mkdir(folder, { recursive: true });
+  const [hours, minutes, seconds] = DEMO_SITE.recordingTime.split(':').map(Number) as [number, number, number];
+  const wav = await writeSceneWav(DEMO_SCENE, join(folder, DEMO_FILES.recording), {
+    bitsPerSample: 24,
+    bext: {
+      description: `Whence demo: ${DEMO_SITE.name}, synthesized`,
+      originator: 'Whence demo generator',
+      originationDate: DEMO_SITE.recordingDate,
+      originationTime: DEMO_SITE.recordingTime,
+      timeReferenceFrames: (hours * 3600 + minutes * 60 + seconds) * DEMO_SCENE.sampleRateHz,
+    },
+  });
+  await writeFileAtomic(join(folder, DEMO_FILES.array), demoArrayCsv());
+  await writeFileAtomic(join(folder, DEMO_FILES.arrayLocal), demoArrayLocalCsv());
+  await writeFileAtomic(join(folder, DEMO_FILES.truth), demoTruthCsv());
+  await writeFileAtomic(join(folder, DEMO_FILES.delays), demoDelaysCsv());
+  return {
+    folder,
+    files: Object.values(DEMO_FILES),
+    seconds: (performance.now() - started) / 1000,
+    clippedSampleCount: wav.clippedSampleCount,
+    peakAbsolute: wav.peakAbsolute,
+  };
+}
+
+const invokedDirectly = process.argv[1] !== undefined && import.meta.url === pathToFileURL(resolve(process.argv[1])).href;
+if (invokedDirectly) {
+  const defaultFolder = fileURLToPath(new URL('./out/', import.meta.url));
+  makeDemo(process.argv[2] ?? defaultFolder).then(
+    (result) => {
+      console.log(`Wrote ${result.files.join(', ')} to ${result.folder} in ${result.seconds.toFixed(2)} s (peak ${(20 * Math.log10(result.peakAbsolute)).toFixed(1)} dBFS).`);
+      if (result.clippedSampleCount > 0) console.warn(`Warning: ${result.clippedSampleCount} samples were clipped; lower the levels in scenario.ts.`);
+    },
+    (error: unknown) => {
+      console.error(error instanceof Error ? error.message : String(error));
+      process.exitCode = 1;
+    },
+  );
+}

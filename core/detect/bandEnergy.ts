@@ -1,0 +1,75 @@
+// Band energy per hop of one channel: a Butterworth high-pass (4th order) and low-pass (2nd order) run sample by sample
+// in one fused loop, squared outputs summed per hop (signal units² · frames). Sections from core/dsp (RBJ cookbook),
+// transposed direct form II with the feedback term added last, which shortens the recursion's dependency chain.
+import { butterworthSections, type BiquadCoefficients } from '../dsp';
+import type { DetectionBand } from './types';
+
+export interface BandEnergyChannel {
+  /**
+   * Filters input[fromFrame, toFrame) and adds the squared outputs to the running hop; each completed hop's sum is
+   * written to `hopEnergies` from index 0. Returns the number of completed hops. The state carries over calls, so any
+   * split of the recording gives bit-identical sums. Non-finite samples reset the filter and leave a hop energy of 0.
+   */
+  run(input: Float32Array, fromFrame: number, toFrame: number, hopEnergies: Float64Array): number;
+}
+
+/** The three sections of the detection filter: high-pass order 4 at lowHz, low-pass order 2 at highHz. */
+export function detectionSections(bandHz: DetectionBand, sampleRateHz: number): BiquadCoefficients[] {
+  return [
+    ...butterworthSections('high-pass', 4, bandHz.lowHz, sampleRateHz),
+    ...butterworthSections('low-pass', 2, bandHz.highHz, sampleRateHz),
+  ];
+}
+
+export function createBandEnergyChannel(bandHz: DetectionBand, sampleRateHz: number, hopFrames: number): BandEnergyChannel {
+  const sections = detectionSections(bandHz, sampleRateHz);
+  const c = new Float64Array(15);
+  sections.forEach((s, i) => c.set([s.b0, s.b1, s.b2, s.a1, s.a2], 5 * i));
+  const z = new Float64Array(6);
+  let partialSum = 0;
+  let partialFrames = 0;
+
+  return {
+    run(input: Float32Array, fromFrame: number, toFrame: number, hopEnergies: Float64Array): number {
+      const b00 = c[0]!, b10 = c[1]!, b20 = c[2]!, a10 = c[3]!, a20 = c[4]!;
+      const b01 = c[5]!, b11 = c[6]!, b21 = c[7]!, a11 = c[8]!, a21 = c[9]!;
+      const b02 = c[10]!, b12 = c[11]!, b22 = c[12]!, a12 = c[13]!, a22 = c[14]!;
+      let z10 = z[0]!, z20 = z[1]!, z11 = z[2]!, z21 = z[3]!, z12 = z[4]!, z22 = z[5]!;
+      let sum = partialSum;
+      let inHop = partialFrames;
+      let completed = 0;
+      let i = fromFrame;
+      while (i < toFrame) {
+        const end = Math.min(toFrame, i + (hopFrames - inHop));
+        inHop += end - i;
+        for (; i < end; i++) {
+          const x = input[i]!;
+          const y0 = b00 * x + z10;
+          z10 = b10 * x + z20 - a10 * y0;
+          z20 = b20 * x - a20 * y0;
+          const y1 = b01 * y0 + z11;
+          z11 = b11 * y0 + z21 - a11 * y1;
+          z21 = b21 * y0 - a21 * y1;
+          const y2 = b02 * y1 + z12;
+          z12 = b12 * y1 + z22 - a12 * y2;
+          z22 = b22 * y1 - a22 * y2;
+          sum += y2 * y2;
+        }
+        if (inHop === hopFrames) {
+          if (!(sum < Infinity)) {
+            // NaN or infinity in the input: treat the hop as silence and restart the filter.
+            sum = 0;
+            z10 = z20 = z11 = z21 = z12 = z22 = 0;
+          }
+          hopEnergies[completed++] = sum;
+          sum = 0;
+          inHop = 0;
+        }
+      }
+      z[0] = z10; z[1] = z20; z[2] = z11; z[3] = z21; z[4] = z12; z[5] = z22;
+      partialSum = sum;
+      partialFrames = inHop;
+      return completed;
+    },
+  };
+}

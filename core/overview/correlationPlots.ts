@@ -1,0 +1,148 @@
+// What to draw for one event window: every pair's weighted cross-correlation with its chosen peak and lag limit, and every
+// channel's in-band autocorrelation with its widths. Lags in frames, delays and widths in seconds, spacings in metres.
+// Generalized cross-correlation (Knapp & Carter 1976) via core/dsp; timing scale 1/(2π f_rms) after Carter (1987).
+import { autocorrelation, autocorrelationWidth, createGccEngine, type FrequencyBand, type GccWeighting } from '../dsp';
+import { WhenceError } from '../errors';
+
+export interface PairCorrelationPlot {
+  indexA: number;
+  indexB: number;
+  labelA: string;
+  labelB: string;
+  sampleRateHz: number;
+  /** Normalised weighted correlation at integer lags -maxLagFrames..maxLagFrames (index = lag + maxLagFrames). */
+  values: Float64Array;
+  maxLagFrames: number;
+  /** Arrival at A minus arrival at B, seconds (the interpolated peak). */
+  delaySeconds: number;
+  sigmaSeconds: number;
+  peakToSecondRatio: number;
+  snrDb: number;
+  /** Whether the fix used this pair. */
+  used: boolean;
+  /** The pair's spacing over the speed of sound: no real delay exceeds it. */
+  spacingLimitSeconds?: number;
+}
+
+export interface ChannelAutocorrelationPlot {
+  label: string;
+  sampleRateHz: number;
+  /** Normalised in-band autocorrelation at lags 0..N frames (values[0] = 1). */
+  values: Float64Array;
+  halfMaxWidthSeconds: number | null;
+  firstZeroSeconds: number | null;
+  /** RMS frequency of the in-band spectrum, Hz. */
+  rmsFrequencyHz?: number;
+  /** 1/(2π f_rms): the spread of a delay estimate set by the signal's own sharpness, before noise and echoes widen it. */
+  timingPrecisionSeconds?: number | null;
+}
+
+export interface CorrelationPlots {
+  pairs: PairCorrelationPlot[];
+  autocorrelations: ChannelAutocorrelationPlot[];
+}
+
+/** Local position of a microphone (an ArrayMicrophone fits). */
+export interface MicrophonePosition {
+  eastMeters: number;
+  northMeters: number;
+  upMeters: number;
+}
+
+export interface CorrelationPlotOptions {
+  /** Added to each pair's d/c for its lag limit (default 2 frames, as the locate pipeline). */
+  lagMarginSeconds?: number;
+  /** Whether the fix used pair (indexA, indexB); default every pair. */
+  isPairUsed?: (indexA: number, indexB: number) => boolean;
+}
+
+/** Lags shown in an autocorrelation: this many half-maximum widths, within 16..4096 frames and the window. */
+const autocorrelationWidthsShown = 8;
+
+/** One plot per pair (a < b) and per channel, for the event window `channels` (array order, equal lengths). */
+export function correlationPlots(
+  channels: readonly Float32Array[],
+  labels: readonly string[],
+  microphones: readonly MicrophonePosition[],
+  speedMetersPerSecond: number,
+  sampleRateHz: number,
+  bandHz: FrequencyBand,
+  weighting: GccWeighting,
+  options: CorrelationPlotOptions = {},
+): CorrelationPlots {
+  const count = channels.length;
+  if (count < 2 || labels.length !== count || microphones.length !== count) {
+    throw new WhenceError(
+      'overview-correlation-input',
+      `Correlation plots need at least 2 channels with one label and one microphone each; got ${count} channels, ${labels.length} labels, ${microphones.length} microphones.`,
+    );
+  }
+  if (!(speedMetersPerSecond > 0) || !(sampleRateHz > 0)) {
+    throw new WhenceError('overview-correlation-input', `The speed of sound and the sample rate must be positive, got ${speedMetersPerSecond} m/s and ${sampleRateHz} Hz.`);
+  }
+  const windowFrames = Math.max(...channels.map((c) => c.length));
+  const marginSeconds = options.lagMarginSeconds ?? 2 / sampleRateHz;
+  const spacing = (a: number, b: number) => {
+    const p = microphones[a]!;
+    const q = microphones[b]!;
+    return Math.hypot(p.eastMeters - q.eastMeters, p.northMeters - q.northMeters, p.upMeters - q.upMeters);
+  };
+  let largestLagSeconds = 0;
+  for (let a = 0; a < count; a++) for (let b = a + 1; b < count; b++) largestLagSeconds = Math.max(largestLagSeconds, spacing(a, b) / speedMetersPerSecond + marginSeconds);
+  const engine = createGccEngine(windowFrames, { sampleRateHz, weighting, bandHz, maxLagSeconds: largestLagSeconds });
+  channels.forEach((samples, index) => engine.setChannel(index, samples));
+  const engineLagFrames = Math.min(windowFrames - 1, Math.floor(largestLagSeconds * sampleRateHz + 1e-9));
+
+  const pairs: PairCorrelationPlot[] = [];
+  for (let a = 0; a < count; a++) {
+    for (let b = a + 1; b < count; b++) {
+      const spacingLimitSeconds = spacing(a, b) / speedMetersPerSecond;
+      const maxLagSeconds = Math.min(engine.maxLagSeconds, spacingLimitSeconds + marginSeconds);
+      const delay = engine.pairDelay(a, b, maxLagSeconds);
+      // The same integer limit the engine used for this pair (gccEngine.ts, pairDelayInto).
+      const maxLagFrames = Math.min(engineLagFrames, Math.floor(maxLagSeconds * sampleRateHz + 1e-9));
+      const values = engine.lastCorrelation(new Float64Array(2 * maxLagFrames + 1));
+      pairs.push({
+        indexA: a,
+        indexB: b,
+        labelA: labels[a]!,
+        labelB: labels[b]!,
+        sampleRateHz,
+        values,
+        maxLagFrames,
+        delaySeconds: delay.delaySeconds,
+        sigmaSeconds: delay.sigmaSeconds,
+        peakToSecondRatio: delay.peakToSecondRatio,
+        snrDb: delay.snrDb,
+        used: options.isPairUsed ? options.isPairUsed(a, b) : true,
+        spacingLimitSeconds,
+      });
+    }
+  }
+
+  const widths = channels.map((samples) => {
+    try {
+      return autocorrelationWidth(samples, sampleRateHz, bandHz);
+    } catch (error) {
+      if (error instanceof WhenceError && error.code === 'dsp-signal-silent') return null;
+      throw error;
+    }
+  });
+  const widestFrames = Math.max(0, ...widths.map((w) => (w?.halfMaxWidthSeconds ?? 0) * sampleRateHz));
+  const lagCount = Math.min(windowFrames - 1, 4096, Math.max(16, Math.ceil(autocorrelationWidthsShown * widestFrames)));
+  const autocorrelations: ChannelAutocorrelationPlot[] = channels.map((samples, index) => {
+    const width = widths[index];
+    const values = new Float64Array(lagCount + 1);
+    if (width && samples.length > lagCount) autocorrelation(samples, lagCount, values, { bandHz, sampleRateHz });
+    return {
+      label: labels[index]!,
+      sampleRateHz,
+      values,
+      halfMaxWidthSeconds: width?.halfMaxWidthSeconds ?? null,
+      firstZeroSeconds: width?.firstZeroSeconds ?? null,
+      rmsFrequencyHz: width?.rmsFrequencyHz ?? 0,
+      timingPrecisionSeconds: width && width.rmsFrequencyHz > 0 ? 1 / (2 * Math.PI * width.rmsFrequencyHz) : null,
+    };
+  });
+  return { pairs, autocorrelations };
+}

@@ -1,0 +1,76 @@
+// Builds a scene once for rendering many windows: checks it, designs the noise filters, tabulates hums and lists every
+// source-to-microphone path with its delay (r / c), gain (level at 1 m times 1 / r) and the frames it can touch.
+import { HumRenderer, planeWaveDelaysSeconds } from './hum';
+import { dbToAmplitude } from './levels';
+import { NoiseTiles } from './noiseTiles';
+import { soundPaths } from './propagation';
+import type { SceneSpec } from './sceneTypes';
+import { sourceWaveform } from './sourceWaveform';
+import { validateScene } from './validateScene';
+import type { SourceWaveform } from './waveform';
+
+export const DEFAULT_SCENE_SEED = 1;
+
+/** One source heard at one microphone along one path. */
+export interface RenderPath {
+  sourceIndex: number;
+  channelIndex: number;
+  waveform: SourceWaveform;
+  /** Emission time plus propagation delay: the waveform's tau = 0 falls at this time at the microphone. */
+  offsetSeconds: number;
+  gain: number;
+  /** Frames [firstFrame, endFrame) of the recording where this path can be nonzero (clipped to the recording). */
+  firstFrame: number;
+  endFrame: number;
+}
+
+/** Frames in the scene's recording: round(durationSeconds * sampleRateHz). */
+export function sceneFrameCount(spec: Pick<SceneSpec, 'durationSeconds' | 'sampleRateHz'>): number {
+  return Math.round(spec.durationSeconds * spec.sampleRateHz);
+}
+
+/** A checked, built scene. Its only mutable part is a cache of noise tiles, which never changes what is rendered. */
+export class PreparedScene {
+  /** A private copy of the description the scene was built from. */
+  readonly spec: SceneSpec;
+  readonly sampleRateHz: number;
+  readonly frameCount: number;
+  readonly channelCount: number;
+  readonly noise: NoiseTiles | undefined;
+  readonly hums: readonly HumRenderer[];
+  readonly paths: readonly RenderPath[];
+
+  constructor(spec: SceneSpec) {
+    validateScene(spec);
+    this.spec = JSON.parse(JSON.stringify(spec)) as SceneSpec;
+    const scene = this.spec;
+    const rate = scene.sampleRateHz;
+    const seed = scene.seed ?? DEFAULT_SCENE_SEED;
+    this.sampleRateHz = rate;
+    this.frameCount = sceneFrameCount(scene);
+    this.channelCount = scene.microphones.length;
+    this.noise = scene.background === undefined ? undefined : new NoiseTiles(seed, rate, this.frameCount, this.channelCount, scene.background);
+    const channelIndexes = scene.microphones.map((m) => m.channel - 1);
+    this.hums = (scene.interference ?? []).map((hum, index) => new HumRenderer(hum, index, seed, rate, planeWaveDelaysSeconds(hum, scene.microphones, scene.speedMetersPerSecond), channelIndexes));
+    const paths: RenderPath[] = [];
+    scene.sources.forEach((source, sourceIndex) => {
+      const waveform = sourceWaveform(source, rate);
+      const level = dbToAmplitude(source.levelDb);
+      for (const mic of scene.microphones) {
+        for (const path of soundPaths(source, mic, scene)) {
+          const offsetSeconds = source.emissionTimeSeconds + path.delaySeconds;
+          const firstFrame = Math.max(0, Math.ceil((offsetSeconds + waveform.startSeconds) * rate));
+          const endFrame = Math.min(this.frameCount, Math.floor((offsetSeconds + waveform.endSeconds) * rate) + 1);
+          if (firstFrame >= endFrame) continue;
+          paths.push({ sourceIndex, channelIndex: mic.channel - 1, waveform, offsetSeconds, gain: level * path.relativeAmplitude, firstFrame, endFrame });
+        }
+      }
+    });
+    this.paths = paths;
+  }
+}
+
+/** Checks and builds a scene for renderScene(); throws SceneSpecError naming the first bad field. */
+export function prepareScene(spec: SceneSpec): PreparedScene {
+  return new PreparedScene(spec);
+}

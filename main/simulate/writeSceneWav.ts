@@ -1,0 +1,130 @@
+// Writes a synthesized scene to a WAV/RF64 file block by block (never the whole recording in memory), atomically:
+// a temporary file in the same folder, flushed, then renamed over the target. Sizes in bytes, counts in frames.
+import { open, rename, unlink, type FileHandle } from 'node:fs/promises';
+import { basename, dirname, join } from 'node:path';
+import { encodeFrames, encodeWavHeader, wavFileLayout, type WavBextSpec, type WavWriteSpec } from '../../core/audio';
+import { isWhenceError, WhenceError } from '../../core/errors';
+import { NOISE_TILE_FRAMES, PreparedScene, prepareScene, renderScene, type SceneSpec } from '../../core/simulate';
+
+export interface WriteSceneWavOptions {
+  /** Default 24. */
+  bitsPerSample?: 16 | 24 | 32;
+  /** Default 'pcm-int'; 'ieee-float' needs 32 bits. */
+  sampleFormat?: 'pcm-int' | 'ieee-float';
+  /** Broadcast Wave start time and description. */
+  bext?: WavBextSpec;
+  /** Default: RIFF, or RF64 when the audio passes 4 GiB. */
+  container?: 'RIFF' | 'RF64';
+  /** Frames rendered and written at a time. Default 65536 (the noise tile, about 1.4 s at 48 kHz). */
+  blockFrames?: number;
+  /** Called after each block with the frames written so far. */
+  onProgress?: (framesWritten: number, frameCount: number) => void;
+}
+
+export interface WriteSceneWavResult {
+  path: string;
+  frameCount: number;
+  channelCount: number;
+  sampleRateHz: number;
+  fileLengthBytes: number;
+  /** Samples beyond full scale that were clipped (integer formats only). */
+  clippedSampleCount: number;
+  /** Largest absolute sample value rendered (full scale = 1). */
+  peakAbsolute: number;
+}
+
+function countClipped(channels: readonly Float32Array[], frames: number, spec: WavWriteSpec): { clipped: number; peak: number } {
+  let clipped = 0;
+  let peak = 0;
+  const half = 2 ** (spec.bitsPerSample - 1);
+  // round(x * half) leaves -half .. half - 1 exactly when -half - 0.5 <= x * half < half - 0.5.
+  const high = (half - 0.5) / half;
+  const low = (-half - 0.5) / half;
+  const integer = spec.sampleFormat === 'pcm-int';
+  for (const channel of channels) {
+    for (let i = 0; i < frames; i++) {
+      const x = channel[i];
+      const magnitude = Math.abs(x);
+      if (magnitude > peak) peak = magnitude;
+      if (integer && (x >= high || x < low)) clipped++;
+    }
+  }
+  return { clipped, peak };
+}
+
+/**
+ * Renders `scene` and writes it to `path` as WAV (RF64 past 4 GiB). The file appears complete or not at all; an earlier
+ * file at `path` stays untouched until the rename. Throws SceneSpecError for a bad scene, WhenceError 'file-write-failed'.
+ */
+export async function writeSceneWav(scene: SceneSpec | PreparedScene, path: string, options: WriteSceneWavOptions = {}): Promise<WriteSceneWavResult> {
+  const prepared = scene instanceof PreparedScene ? scene : prepareScene(scene);
+  const blockFrames = options.blockFrames ?? NOISE_TILE_FRAMES;
+  if (!Number.isSafeInteger(blockFrames) || blockFrames < 1) {
+    throw new WhenceError('scene-write-invalid', `writeSceneWav(): blockFrames must be a whole number of frames from 1; got ${blockFrames}.`);
+  }
+  const spec: WavWriteSpec = {
+    channelCount: prepared.channelCount,
+    sampleRateHz: prepared.sampleRateHz,
+    bitsPerSample: options.bitsPerSample ?? 24,
+    sampleFormat: options.sampleFormat ?? 'pcm-int',
+    frameCount: prepared.frameCount,
+    bext: options.bext,
+    container: options.container,
+  };
+  const layout = wavFileLayout(spec);
+  const header = encodeWavHeader(spec);
+
+  const temporaryPath = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
+  const channels = Array.from({ length: prepared.channelCount }, () => new Float32Array(Math.min(blockFrames, Math.max(1, prepared.frameCount))));
+  const buffers = [0, 1].map(() => new Uint8Array(channels[0].length * layout.blockAlignBytes));
+  let handle: FileHandle | undefined;
+  let clippedSampleCount = 0;
+  let peakAbsolute = 0;
+  try {
+    handle = await open(temporaryPath, 'wx');
+    let position = 0;
+    const write = async (bytes: Uint8Array) => {
+      let done = 0;
+      while (done < bytes.length) {
+        const { bytesWritten } = await handle!.write(bytes, done, bytes.length - done, position + done);
+        done += bytesWritten;
+      }
+      position += bytes.length;
+    };
+    await write(header);
+    // Double buffering: block k is written while block k + 1 is rendered.
+    let pending: Promise<void> | undefined;
+    for (let start = 0, block = 0; start < prepared.frameCount; start += blockFrames, block++) {
+      const frames = Math.min(blockFrames, prepared.frameCount - start);
+      renderScene(prepared, start, frames, channels);
+      const { clipped, peak } = countClipped(channels, frames, spec);
+      clippedSampleCount += clipped;
+      peakAbsolute = Math.max(peakAbsolute, peak);
+      const bytes = encodeFrames(channels, 0, frames, spec, buffers[block % 2]);
+      if (pending !== undefined) await pending;
+      pending = write(bytes);
+      options.onProgress?.(start + frames, prepared.frameCount);
+    }
+    if (pending !== undefined) await pending;
+    if (layout.padLengthBytes > 0) await write(new Uint8Array(layout.padLengthBytes));
+    await handle.sync();
+    await handle.close();
+    handle = undefined;
+    await rename(temporaryPath, path);
+  } catch (error) {
+    if (handle !== undefined) await handle.close().catch(() => undefined);
+    await unlink(temporaryPath).catch(() => undefined);
+    if (isWhenceError(error)) throw error;
+    const reason = error instanceof Error ? error.message : String(error);
+    throw new WhenceError('file-write-failed', `Could not write ${path}: ${reason}. Check that the folder exists and is writable and that the disk has space (${layout.fileLengthBytes} bytes needed); any previous file there is unchanged.`);
+  }
+  return {
+    path,
+    frameCount: prepared.frameCount,
+    channelCount: prepared.channelCount,
+    sampleRateHz: prepared.sampleRateHz,
+    fileLengthBytes: layout.fileLengthBytes,
+    clippedSampleCount,
+    peakAbsolute,
+  };
+}

@@ -1,0 +1,586 @@
+// The map view: array, pair hyperbolae, fixes with their uncertainty ellipses and an optional SRP or precision raster,
+// with a metric grid, scale bar and north arrow; wheel/keyboard zoom, drag to pan, draggable microphones when editable.
+// Units: local east/north metres in the props, pixels only here and through the one MapScale.
+
+import type Konva from 'konva';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { Circle, Group, Image as KonvaImage, Layer, Line, Rect, Stage, Text } from 'react-konva';
+import { WhenceError } from '../../core/errors';
+import { fixShapes, type FixShape } from './fixShapes';
+import { mapGrid } from './gridLines';
+import { hyperbolaShapes } from './hyperbolaShapes';
+import { MapCursorReadout, type CursorSink } from './MapCursorReadout';
+import { contentBounds } from './mapExtent';
+import { MapLegend } from './MapLegend';
+import { MapNorthArrow } from './MapNorthArrow';
+import { MapScale, type MapBounds } from './mapScale';
+import { MapScaleBar } from './MapScaleBar';
+import { microphoneMarkers } from './microphoneMarkers';
+import { overlayRaster, type OverlayRaster } from './overlayRaster';
+import type { MapViewProps } from './types';
+import { useElementSize } from './useElementSize';
+import './mapView.css';
+
+/** One wheel notch (100 px of deltaY) zooms by about 1.2×. */
+const wheelZoomPerPixel = 0.0018;
+const keyZoomFactor = 1.25;
+const keyPanFraction = 0.1;
+/** A press that moves less than this is a click, not a pan. */
+const clickSlopPixels = 4;
+const micRadiusPixels = 6.5;
+/** Grid labels are left out where the toolbar (top right) and the scale box (bottom left) would cover them. */
+const gridLabelClearRightPixels = 150;
+const gridLabelClearBottomPixels = 80;
+const emptyBounds: MapBounds = { minEastMeters: -50, maxEastMeters: 50, minNorthMeters: -50, maxNorthMeters: 50 };
+
+function fitPadding(widthPixels: number, heightPixels: number): number {
+  return Math.max(36, Math.round(0.08 * Math.min(widthPixels, heightPixels)));
+}
+
+function rasterCanvas(raster: OverlayRaster): HTMLCanvasElement | null {
+  const canvas = document.createElement('canvas');
+  canvas.width = raster.width;
+  canvas.height = raster.height;
+  const context = canvas.getContext('2d');
+  if (context === null) return null;
+  context.putImageData(new ImageData(raster.data, raster.width, raster.height), 0, 0);
+  return canvas;
+}
+
+export function MapView(props: MapViewProps) {
+  const { microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, fixes, overlay, origin, editable } = props;
+  const containerRef = useRef<HTMLDivElement>(null);
+  const size = useElementSize(containerRef);
+  const [scale, setScale] = useState<MapScale | null>(null);
+  const [hoveredFixId, setHoveredFixId] = useState<string | null>(null);
+  const [panning, setPanning] = useState(false);
+  const [hoverCursor, setHoverCursor] = useState<'grab' | 'grabbing' | 'pointer' | null>(null);
+
+  // Latest values for handlers that outlive a render (window listeners, animation frames).
+  const latest = useRef({ scale, props });
+  useLayoutEffect(() => {
+    latest.current = { scale, props };
+  });
+
+  const fitted = useRef(false);
+  const fitScale = useCallback((widthPixels: number, heightPixels: number): MapScale => {
+    const { microphones: mics, fixes: fx } = latest.current.props;
+    const bounds = contentBounds(mics, fx);
+    return MapScale.fit(bounds ?? emptyBounds, widthPixels, heightPixels, fitPadding(widthPixels, heightPixels));
+  }, []);
+
+  // First fit once there is a size and something to show; afterwards a resize keeps the centre and zoom.
+  const hasContent = microphones.length + fixes.length > 0;
+  useLayoutEffect(() => {
+    if (size === null) return;
+    setScale((previous) => {
+      if (previous !== null && (fitted.current || !hasContent)) return previous.resized(size.widthPixels, size.heightPixels);
+      if (hasContent) fitted.current = true;
+      return fitScale(size.widthPixels, size.heightPixels);
+    });
+  }, [size, hasContent, fitScale]);
+
+  const fitView = useCallback(() => {
+    if (size === null) return;
+    fitted.current = true;
+    setScale(fitScale(size.widthPixels, size.heightPixels));
+  }, [size, fitScale]);
+
+  // View-models: each recomputed only when its own inputs change.
+  const grid = useMemo(() => (scale ? mapGrid(scale) : null), [scale]);
+  const curves = useMemo(
+    () => (scale ? hyperbolaShapes(microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale) : []),
+    [microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale],
+  );
+  const markers = useMemo(() => (scale ? microphoneMarkers(microphones, scale) : []), [microphones, scale]);
+  const fixList = useMemo(() => (scale ? fixShapes(fixes, scale) : []), [fixes, scale]);
+  const rasterResult = useMemo((): { raster: OverlayRaster | null; error: string | null } => {
+    if (overlay === undefined) return { raster: null, error: null };
+    try {
+      return { raster: overlayRaster(overlay), error: null };
+    } catch (error) {
+      if (error instanceof WhenceError) return { raster: null, error: error.message };
+      throw error;
+    }
+  }, [overlay]);
+  const overlayImage = useMemo(() => (rasterResult.raster ? rasterCanvas(rasterResult.raster) : null), [rasterResult]);
+  const overlayRect = scale && rasterResult.raster ? scale.toScreenRect(rasterResult.raster.bounds) : null;
+
+  // Cursor readout, fed without re-rendering the map.
+  const cursorSink = useRef<CursorSink | null>(null);
+  const stageRef = useRef<Konva.Stage>(null);
+  const reportPointer = useCallback(() => {
+    const position = stageRef.current?.getPointerPosition();
+    cursorSink.current?.(position ? { xPixels: position.x, yPixels: position.y } : null);
+  }, []);
+
+  // Wheel zoom about the cursor.
+  const onWheel = useCallback((event: Konva.KonvaEventObject<WheelEvent>) => {
+    event.evt.preventDefault();
+    const position = stageRef.current?.getPointerPosition();
+    if (!position) return;
+    const deltaPixels = event.evt.deltaY * (event.evt.deltaMode === 1 ? 16 : event.evt.deltaMode === 2 ? 400 : 1);
+    const factor = Math.exp(-deltaPixels * wheelZoomPerPixel);
+    fitted.current = true;
+    setScale((previous) => previous?.zoomedAbout(factor, { xPixels: position.x, yPixels: position.y }) ?? previous);
+  }, []);
+
+  // Drag on the background (or on a fix) to pan; updates are gathered per animation frame.
+  const panCleanup = useRef<(() => void) | null>(null);
+  const pressTravel = useRef(0);
+  const onPointerDown = useCallback((event: Konva.KonvaEventObject<PointerEvent>) => {
+    if (event.evt.button !== 0 || event.target.hasName('microphone-handle')) return;
+    containerRef.current?.focus({ preventScroll: true });
+    panCleanup.current?.();
+    pressTravel.current = 0;
+    let lastX = event.evt.clientX;
+    let lastY = event.evt.clientY;
+    let pendingX = 0;
+    let pendingY = 0;
+    let frame = 0;
+    const flush = (): void => {
+      frame = 0;
+      const dx = pendingX;
+      const dy = pendingY;
+      pendingX = 0;
+      pendingY = 0;
+      if (dx !== 0 || dy !== 0) setScale((previous) => previous?.panned(dx, dy) ?? previous);
+    };
+    const move = (moveEvent: PointerEvent): void => {
+      const dx = moveEvent.clientX - lastX;
+      const dy = moveEvent.clientY - lastY;
+      lastX = moveEvent.clientX;
+      lastY = moveEvent.clientY;
+      pressTravel.current += Math.hypot(dx, dy);
+      if (pressTravel.current < clickSlopPixels) return;
+      if (!fitted.current) fitted.current = true;
+      setPanning(true);
+      pendingX += dx;
+      pendingY += dy;
+      if (frame === 0) frame = requestAnimationFrame(flush);
+    };
+    const end = (): void => {
+      window.removeEventListener('pointermove', move);
+      window.removeEventListener('pointerup', end);
+      window.removeEventListener('pointercancel', end);
+      if (frame !== 0) {
+        cancelAnimationFrame(frame);
+        flush();
+      }
+      setPanning(false);
+      panCleanup.current = null;
+    };
+    window.addEventListener('pointermove', move);
+    window.addEventListener('pointerup', end);
+    window.addEventListener('pointercancel', end);
+    panCleanup.current = end;
+  }, []);
+  useEffect(() => () => panCleanup.current?.(), []);
+
+  // Dragging a microphone: report its new place once per animation frame, and once more on release.
+  const dragPending = useRef<{ index: number; xPixels: number; yPixels: number } | null>(null);
+  const dragFrame = useRef(0);
+  const reportMicrophone = useCallback(() => {
+    dragFrame.current = 0;
+    const pending = dragPending.current;
+    dragPending.current = null;
+    const { scale: current, props: currentProps } = latest.current;
+    if (pending === null || current === null) return;
+    currentProps.onMoveMicrophone?.(pending.index, current.eastMeters(pending.xPixels), current.northMeters(pending.yPixels));
+  }, []);
+  // Leading edge: the first move of a frame is reported at once; later moves in that frame are merged into one
+  // report when the frame begins.
+  const onMicrophoneDragMove = useCallback(
+    (index: number, node: Konva.Node) => {
+      dragPending.current = { index, xPixels: node.x(), yPixels: node.y() };
+      if (dragFrame.current !== 0) return;
+      reportMicrophone();
+      dragFrame.current = requestAnimationFrame(reportMicrophone);
+    },
+    [reportMicrophone],
+  );
+  const onMicrophoneDragEnd = useCallback(
+    (index: number, node: Konva.Node) => {
+      if (dragFrame.current !== 0) cancelAnimationFrame(dragFrame.current);
+      dragPending.current = { index, xPixels: node.x(), yPixels: node.y() };
+      reportMicrophone();
+      setHoverCursor(null);
+      // Back to where the props put it: if the parent accepted the move, the next render moves it there.
+      const { scale: current, props: currentProps } = latest.current;
+      const mic = currentProps.microphones[index];
+      if (current !== null && mic !== undefined) node.position({ x: current.xPixels(mic.eastMeters), y: current.yPixels(mic.northMeters) });
+    },
+    [reportMicrophone],
+  );
+  useEffect(
+    () => () => {
+      if (dragFrame.current !== 0) cancelAnimationFrame(dragFrame.current);
+    },
+    [],
+  );
+
+  const selectFix = useCallback((id: string) => {
+    if (pressTravel.current >= clickSlopPixels) return;
+    latest.current.props.onSelectFix?.(id);
+  }, []);
+
+  const onKeyDown = useCallback(
+    (event: KeyboardEvent<HTMLDivElement>) => {
+      if (event.altKey || event.ctrlKey || event.metaKey) return;
+      const step = (scale?.widthPixels ?? 0) * keyPanFraction;
+      const stepY = (scale?.heightPixels ?? 0) * keyPanFraction;
+      let change: ((s: MapScale) => MapScale) | null = null;
+      switch (event.key) {
+        case '+':
+        case '=':
+          change = (s) => s.zoomed(keyZoomFactor);
+          break;
+        case '-':
+        case '_':
+          change = (s) => s.zoomed(1 / keyZoomFactor);
+          break;
+        case 'ArrowLeft':
+          change = (s) => s.panned(step, 0);
+          break;
+        case 'ArrowRight':
+          change = (s) => s.panned(-step, 0);
+          break;
+        case 'ArrowUp':
+          change = (s) => s.panned(0, stepY);
+          break;
+        case 'ArrowDown':
+          change = (s) => s.panned(0, -stepY);
+          break;
+        case 'f':
+        case '0':
+          event.preventDefault();
+          fitView();
+          return;
+        default:
+          return;
+      }
+      event.preventDefault();
+      fitted.current = true;
+      const apply = change;
+      setScale((previous) => (previous ? apply(previous) : previous));
+    },
+    [scale, fitView],
+  );
+
+  const hoveredFix = fixList.find((fix) => fix.id === hoveredFixId) ?? null;
+  const cursor = panning ? 'grabbing' : (hoverCursor ?? 'crosshair');
+  const width = size?.widthPixels ?? 0;
+  const height = size?.heightPixels ?? 0;
+
+  return (
+    <div
+      className="map-view"
+      data-testid="map-view"
+      ref={containerRef}
+      tabIndex={0}
+      role="application"
+      aria-label="Map of the array and fixes. Plus and minus zoom, arrow keys pan, F fits the view."
+      onKeyDown={onKeyDown}
+      data-meters-per-pixel={scale?.metersPerPixel}
+      data-center-east-meters={scale?.centerEastMeters}
+      data-center-north-meters={scale?.centerNorthMeters}
+      style={{ cursor }}
+    >
+      <div className="map-stage" data-testid="map-stage">
+        {scale !== null && width > 0 && height > 0 && (
+          <Stage
+            ref={stageRef}
+            width={width}
+            height={height}
+            onWheel={onWheel}
+            onPointerDown={onPointerDown}
+            onPointerMove={reportPointer}
+            onPointerLeave={() => cursorSink.current?.(null)}
+          >
+            <Layer listening={false}>
+              <Rect x={0} y={0} width={width} height={height} fill="#fbf9f4" />
+              {overlayImage && overlayRect && (
+                <KonvaImage
+                  image={overlayImage}
+                  x={overlayRect.xPixels}
+                  y={overlayRect.yPixels}
+                  width={overlayRect.widthPixels}
+                  height={overlayRect.heightPixels}
+                />
+              )}
+              {overlayRect && (
+                <Rect
+                  x={overlayRect.xPixels}
+                  y={overlayRect.yPixels}
+                  width={overlayRect.widthPixels}
+                  height={overlayRect.heightPixels}
+                  stroke="#8662b0"
+                  strokeWidth={1}
+                  dash={[2, 4]}
+                  opacity={0.6}
+                />
+              )}
+              {grid?.eastLines.map((line) => (
+                <Line
+                  key={`e${line.valueMeters}`}
+                  points={[line.positionPixels, 0, line.positionPixels, height]}
+                  stroke={line.isOrigin ? '#a89f8c' : '#ddd6c8'}
+                  strokeWidth={1}
+                />
+              ))}
+              {grid?.northLines.map((line) => (
+                <Line
+                  key={`n${line.valueMeters}`}
+                  points={[0, line.positionPixels, width, line.positionPixels]}
+                  stroke={line.isOrigin ? '#a89f8c' : '#ddd6c8'}
+                  strokeWidth={1}
+                />
+              ))}
+            </Layer>
+            <Layer listening={false}>
+              {curves.map((curve) =>
+                curve.polylinesPixels.map((points, k) =>
+                  points.length === 2 ? (
+                    <Circle key={`${curve.key}/${k}`} x={points[0]} y={points[1]} radius={2.5} fill={curve.colour} />
+                  ) : (
+                    <Line
+                      key={`${curve.key}/${k}`}
+                      points={points}
+                      stroke={curve.colour}
+                      strokeWidth={curve.strokePixels}
+                      lineCap="round"
+                      lineJoin="round"
+                      perfectDrawEnabled={false}
+                    />
+                  ),
+                ),
+              )}
+            </Layer>
+            <Layer>
+              {fixList.map((fix) => (
+                <FixMark
+                  key={fix.id}
+                  fix={fix}
+                  hovered={fix.id === hoveredFixId}
+                  onEnter={() => {
+                    setHoveredFixId(fix.id);
+                    setHoverCursor('pointer');
+                  }}
+                  onLeave={() => {
+                    setHoveredFixId((current) => (current === fix.id ? null : current));
+                    setHoverCursor(null);
+                  }}
+                  onSelect={() => selectFix(fix.id)}
+                />
+              ))}
+              {markers.map((marker) => (
+                <Group
+                  key={marker.index}
+                  x={marker.xPixels}
+                  y={marker.yPixels}
+                  draggable={editable}
+                  onDragStart={() => setHoverCursor('grabbing')}
+                  onDragMove={(event) => onMicrophoneDragMove(marker.index, event.target)}
+                  onDragEnd={(event) => onMicrophoneDragEnd(marker.index, event.target)}
+                  onMouseEnter={() => setHoverCursor(editable ? 'grab' : null)}
+                  onMouseLeave={() => setHoverCursor((current) => (current === 'grabbing' ? current : null))}
+                >
+                  <Circle name="microphone-handle" radius={editable ? 11 : micRadiusPixels} fill="rgba(47,111,98,0.001)" />
+                  <Circle
+                    name="microphone-handle"
+                    radius={micRadiusPixels}
+                    fill="#2f6f62"
+                    stroke="#fffdf8"
+                    strokeWidth={2}
+                    shadowColor="#1d2a2f"
+                    shadowBlur={3}
+                    shadowOpacity={0.35}
+                  />
+                  <Text
+                    name="microphone-handle"
+                    x={micRadiusPixels + 3}
+                    y={-micRadiusPixels - 13}
+                    text={marker.label}
+                    fontSize={12}
+                    fontStyle="bold"
+                    fill="#1d2a2f"
+                    stroke="#fbf9f4"
+                    strokeWidth={3}
+                    fillAfterStrokeEnabled
+                  />
+                </Group>
+              ))}
+            </Layer>
+            <Layer listening={false}>
+              {curves.map((curve) =>
+                curve.labelAt === undefined ? null : (
+                  <Text
+                    key={`label/${curve.key}`}
+                    x={curve.labelAt.xPixels + 4}
+                    y={curve.labelAt.yPixels + 2}
+                    text={curve.pairLabel}
+                    fontSize={11}
+                    fill={curve.colour}
+                    stroke="#fbf9f4"
+                    strokeWidth={3}
+                    fillAfterStrokeEnabled
+                  />
+                ),
+              )}
+              {grid?.eastLines.filter((line) => line.positionPixels < width - gridLabelClearRightPixels).map((line) => (
+                <Text
+                  key={`le${line.valueMeters}`}
+                  x={line.positionPixels + 3}
+                  y={4}
+                  text={line.label}
+                  fontSize={11}
+                  fill="#5d6b70"
+                  stroke="#fbf9f4"
+                  strokeWidth={3}
+                  fillAfterStrokeEnabled
+                />
+              ))}
+              {grid?.northLines.filter((line) => line.positionPixels < height - gridLabelClearBottomPixels).map((line) => (
+                <Text
+                  key={`ln${line.valueMeters}`}
+                  x={4}
+                  y={line.positionPixels - 14}
+                  text={line.label}
+                  fontSize={11}
+                  fill="#5d6b70"
+                  stroke="#fbf9f4"
+                  strokeWidth={3}
+                  fillAfterStrokeEnabled
+                />
+              ))}
+            </Layer>
+          </Stage>
+        )}
+      </div>
+
+      <div className="map-toolbar">
+        <button type="button" onClick={() => setScale((s) => s?.zoomed(keyZoomFactor) ?? s)} aria-label="Zoom in" title="Zoom in (+)">
+          +
+        </button>
+        <button type="button" onClick={() => setScale((s) => s?.zoomed(1 / keyZoomFactor) ?? s)} aria-label="Zoom out" title="Zoom out (−)">
+          −
+        </button>
+        <button type="button" data-testid="map-fit" onClick={fitView} title="Fit the array and fixes (F)">
+          Fit
+        </button>
+      </div>
+      <div className="map-north">
+        <MapNorthArrow />
+      </div>
+      {scale !== null && (
+        <div className="map-footer">
+          <MapScaleBar metersPerPixel={scale.metersPerPixel} />
+          <MapCursorReadout sinkRef={cursorSink} scale={scale} origin={origin} planeUpMeters={planeUpMeters} />
+        </div>
+      )}
+      <MapLegend showHyperbolae={hyperbolae.length > 0} overlay={rasterResult.raster?.legend ?? null} overlayError={rasterResult.error} />
+      {hoveredFix !== null && (
+        <div className="map-tooltip" data-testid="map-fix-tooltip" style={{ left: hoveredFix.xPixels + 14, top: hoveredFix.yPixels + 14 }}>
+          <strong>{hoveredFix.label}</strong> <span className={`map-status map-status-${hoveredFix.status}`}>{hoveredFix.status}</span>
+          {hoveredFix.ellipseLabel !== undefined && <div>{hoveredFix.ellipseLabel}</div>}
+          {hoveredFix.alternative !== undefined && <div>other solution marked ○</div>}
+          <div className="muted">click to select</div>
+        </div>
+      )}
+
+      <ul className="map-probe" aria-hidden="true">
+        {markers.map((marker) => (
+          <li
+            key={marker.index}
+            data-testid={`map-microphone-${marker.index}`}
+            data-label={marker.label}
+            data-channel={marker.channel}
+            data-x-pixels={marker.xPixels}
+            data-y-pixels={marker.yPixels}
+            data-east-meters={microphones[marker.index]?.eastMeters}
+            data-north-meters={microphones[marker.index]?.northMeters}
+          >
+            {marker.title}
+          </li>
+        ))}
+        {fixList.map((fix) => (
+          <li
+            key={fix.id}
+            data-testid={`map-fix-${fix.id}`}
+            data-status={fix.status}
+            data-selected={fix.selected}
+            data-x-pixels={fix.xPixels}
+            data-y-pixels={fix.yPixels}
+            data-alternative-x-pixels={fix.alternative?.xPixels}
+            data-alternative-y-pixels={fix.alternative?.yPixels}
+          >
+            {fix.title}
+          </li>
+        ))}
+        {curves.map((curve) => (
+          <li key={curve.key} data-testid={`map-hyperbola-${curve.indexA}-${curve.indexB}`} data-polylines={curve.polylinesPixels.length} data-colour={curve.colour}>
+            {curve.pairLabel}
+            {curve.note !== undefined ? `: ${curve.note}` : ''}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+interface FixMarkProps {
+  fix: FixShape;
+  hovered: boolean;
+  onEnter: () => void;
+  onLeave: () => void;
+  onSelect: () => void;
+}
+
+/** One fix: ellipse, centre cross, label and, when ambiguous, a dashed link to the other solution. */
+function FixMark({ fix, hovered, onEnter, onLeave, onSelect }: FixMarkProps) {
+  const emphasis = fix.selected || hovered ? 1.5 : 0;
+  const arm = 7 + emphasis * 1.5;
+  return (
+    <Group onMouseEnter={onEnter} onMouseLeave={onLeave} onClick={onSelect} onTap={onSelect}>
+      {fix.ellipsePixels !== undefined && (
+        <Line
+          points={fix.ellipsePixels}
+          closed
+          stroke={fix.colour}
+          strokeWidth={1.5 + emphasis}
+          fill={fix.selected ? 'rgba(209,67,47,0.12)' : 'rgba(29,42,47,0.08)'}
+          perfectDrawEnabled={false}
+        />
+      )}
+      {fix.alternative !== undefined && (
+        <>
+          <Line
+            points={[fix.xPixels, fix.yPixels, fix.alternative.xPixels, fix.alternative.yPixels]}
+            stroke={fix.colour}
+            strokeWidth={1}
+            dash={[5, 4]}
+            opacity={0.8}
+          />
+          <Circle x={fix.alternative.xPixels} y={fix.alternative.yPixels} radius={6 + emphasis} stroke={fix.colour} strokeWidth={2} fill="rgba(255,253,248,0.85)" />
+          <Text x={fix.alternative.xPixels + 9} y={fix.alternative.yPixels + 4} text={`${fix.label}?`} fontSize={11} fill={fix.colour} />
+        </>
+      )}
+      <Circle x={fix.xPixels} y={fix.yPixels} radius={12} fill="rgba(0,0,0,0.001)" />
+      <Line points={[fix.xPixels - arm, fix.yPixels, fix.xPixels + arm, fix.yPixels]} stroke="#fffdf8" strokeWidth={5 + emphasis} lineCap="round" />
+      <Line points={[fix.xPixels, fix.yPixels - arm, fix.xPixels, fix.yPixels + arm]} stroke="#fffdf8" strokeWidth={5 + emphasis} lineCap="round" />
+      <Line points={[fix.xPixels - arm, fix.yPixels, fix.xPixels + arm, fix.yPixels]} stroke={fix.colour} strokeWidth={2 + emphasis} lineCap="round" />
+      <Line points={[fix.xPixels, fix.yPixels - arm, fix.xPixels, fix.yPixels + arm]} stroke={fix.colour} strokeWidth={2 + emphasis} lineCap="round" />
+      <Text
+        x={fix.xPixels + 10}
+        y={fix.yPixels - 20}
+        text={fix.status === 'ok' ? fix.label : `${fix.label} (${fix.status})`}
+        fontSize={12}
+        fontStyle={fix.selected ? 'bold' : 'normal'}
+        fill={fix.colour}
+        stroke="#fbf9f4"
+        strokeWidth={3}
+        fillAfterStrokeEnabled
+      />
+    </Group>
+  );
+}

@@ -1,0 +1,80 @@
+// Fixes on screen: the position, its uncertainty ellipse as a closed polygon, the mirror position of an ambiguous
+// fix, colours by status and selection. Units: metres in, pixels out; ellipse angle counter-clockwise from east.
+
+import { ellipseOutlineMeters, ellipseSegmentsFor } from './ellipseOutline';
+import type { MapScale } from './mapScale';
+import { formatLength, signedFixed } from './formatNumbers';
+import type { MapFix } from './types';
+
+export const FIX_COLOURS = {
+  ok: '#1d2a2f',
+  ambiguous: '#9a4b12',
+  other: '#7a4f8a',
+  selected: '#d1432f',
+} as const;
+
+export interface FixShape {
+  id: string;
+  label: string;
+  status: string;
+  xPixels: number;
+  yPixels: number;
+  /** Closed polygon, flat [x0, y0, ...] pixels (Konva Line with closed); absent without a usable ellipse. */
+  ellipsePixels?: number[];
+  /** e.g. "95 % ellipse 5.3 m × 1.5 m". */
+  ellipseLabel?: string;
+  /** The other solution of an ambiguous fix. */
+  alternative?: { xPixels: number; yPixels: number };
+  selected: boolean;
+  colour: string;
+  title: string;
+}
+
+function statusColour(status: string): string {
+  return status === 'ok' ? FIX_COLOURS.ok : status === 'ambiguous' ? FIX_COLOURS.ambiguous : FIX_COLOURS.other;
+}
+
+export function fixShapes(fixes: readonly MapFix[], scale: MapScale): FixShape[] {
+  return fixes.map((fix) => {
+    const shape: FixShape = {
+      id: fix.id,
+      label: fix.label,
+      status: fix.status,
+      xPixels: scale.xPixels(fix.eastMeters),
+      yPixels: scale.yPixels(fix.northMeters),
+      selected: fix.selected,
+      colour: fix.selected ? FIX_COLOURS.selected : statusColour(fix.status),
+      title: `${fix.label} (${fix.status}) · E ${signedFixed(fix.eastMeters, 2)} m, N ${signedFixed(fix.northMeters, 2)} m`,
+    };
+    const e = fix.ellipse;
+    if (e !== undefined && e.semiMajorMeters > 0 && Number.isFinite(e.semiMajorMeters) && e.semiMinorMeters >= 0) {
+      const outline = ellipseOutlineMeters(
+        {
+          centerEastMeters: fix.eastMeters,
+          centerNorthMeters: fix.northMeters,
+          semiMajorMeters: e.semiMajorMeters,
+          semiMinorMeters: e.semiMinorMeters,
+          majorAxisDegreesFromEast: e.majorAxisDegreesFromEast,
+        },
+        ellipseSegmentsFor(scale.pixelsFromMeters(e.semiMajorMeters)),
+      );
+      if (outline.length > 0) {
+        const flat = new Array<number>(2 * outline.length);
+        outline.forEach((p, k) => {
+          flat[2 * k] = scale.xPixels(p.eastMeters);
+          flat[2 * k + 1] = scale.yPixels(p.northMeters);
+        });
+        shape.ellipsePixels = flat;
+        const precision = Math.min(e.semiMinorMeters || e.semiMajorMeters, e.semiMajorMeters) / 10;
+        shape.ellipseLabel =
+          `${Math.round(e.confidence * 100)} % ellipse ${formatLength(e.semiMajorMeters, precision)} × ${formatLength(e.semiMinorMeters, precision)}`;
+        shape.title += ` · ${shape.ellipseLabel} (semi-axes)`;
+      }
+    }
+    if (fix.alternative !== undefined) {
+      shape.alternative = { xPixels: scale.xPixels(fix.alternative.eastMeters), yPixels: scale.yPixels(fix.alternative.northMeters) };
+      shape.title += ` · other solution E ${signedFixed(fix.alternative.eastMeters, 2)} m, N ${signedFixed(fix.alternative.northMeters, 2)} m`;
+    }
+    return shape;
+  });
+}
