@@ -60,24 +60,24 @@ const FARM_DOG = { eastMeters: 160.0, northMeters: -215.0, upMeters: 0.6 };
 const SURVEY_PEG_SPEAKER = { eastMeters: 0.0, northMeters: 0.0, upMeters: 1.0 };
 
 const croak = (id: string, at: typeof FROG_OPEN_WATER, emissionTimeSeconds: number, shape: Partial<FmCallSource> = {}): FmCallSource => ({
-  id, kind: 'fm-call', ...at, emissionTimeSeconds, levelDb: -28,
+  id, kind: 'fm-call', ...at, emissionTimeSeconds, levelDb: -24,
   durationSeconds: 0.18, startFrequencyHz: 1600, endFrequencyHz: 2100, bendHz: 250, harmonicLevelsDb: [-8, -14, -22],
   ...shape,
 });
 
 const knock = (id: string, emissionTimeSeconds: number): SceneSource => ({
-  id, kind: 'click', ...DEAD_ALDER, emissionTimeSeconds, levelDb: -20,
+  id, kind: 'click', ...DEAD_ALDER, emissionTimeSeconds, levelDb: -16,
   peakFrequencyHz: 2500, ringFrequencyHz: 1150, ringDecaySeconds: 0.0035, ringLevelDb: -4,
 });
 
 const bark = (id: string, emissionTimeSeconds: number, startFrequencyHz: number): SceneSource => ({
-  id, kind: 'fm-call', ...FARM_DOG, emissionTimeSeconds, levelDb: -6,
+  id, kind: 'fm-call', ...FARM_DOG, emissionTimeSeconds, levelDb: -4,
   durationSeconds: 0.16, startFrequencyHz, endFrequencyHz: startFrequencyHz * 0.7, bendHz: 120,
   harmonicLevelsDb: [-3, -6, -9, -12, -16, -20], attackSeconds: 0.01, releaseSeconds: 0.08,
 });
 
 export const DEMO_SOURCES: SceneSource[] = [
-  { id: 'sweep-start', kind: 'chirp', ...SURVEY_PEG_SPEAKER, emissionTimeSeconds: 2.0, levelDb: -24, startFrequencyHz: 500, endFrequencyHz: 6000, durationSeconds: 0.5, sweep: 'exponential' },
+  { id: 'sweep-start', kind: 'chirp', ...SURVEY_PEG_SPEAKER, emissionTimeSeconds: 2.0, levelDb: -20, startFrequencyHz: 500, endFrequencyHz: 6000, durationSeconds: 0.5, sweep: 'exponential' },
   croak('frog-a1', FROG_OPEN_WATER, 4.5),
   croak('frog-b1', FROG_WEST_MARGIN, 6.2, { startFrequencyHz: 1900, endFrequencyHz: 1500, bendHz: 150, durationSeconds: 0.22 }),
   knock('knock-1', 8.0),
@@ -87,21 +87,21 @@ export const DEMO_SOURCES: SceneSource[] = [
   bark('bark-1', 14.0, 900),
   bark('bark-2', 14.6, 850),
   croak('frog-a2', FROG_OPEN_WATER, 18.3, { endFrequencyHz: 2200 }),
-  { id: 'bird-1', kind: 'fm-call', ...WILLOW, emissionTimeSeconds: 21.0, levelDb: -30, durationSeconds: 0.09, startFrequencyHz: 5200, endFrequencyHz: 3800, vibratoRateHz: 60, vibratoDepthHz: 250, harmonicLevelsDb: [-20] },
+  { id: 'bird-1', kind: 'fm-call', ...WILLOW, emissionTimeSeconds: 21.0, levelDb: -26, durationSeconds: 0.09, startFrequencyHz: 5200, endFrequencyHz: 3800, vibratoRateHz: 60, vibratoDepthHz: 250, harmonicLevelsDb: [-20] },
   { id: 'beaver-slap', kind: 'knock', eastMeters: -6.0, northMeters: -21.0, upMeters: 0.0, emissionTimeSeconds: 23.5, levelDb: -8, frequencyHz: 180, decaySeconds: 0.03, overtoneRatio: 2.4, overtoneLevelDb: -6 },
   croak('frog-b2', FROG_WEST_MARGIN, 27.0, { startFrequencyHz: 1850, endFrequencyHz: 1450, bendHz: 150, durationSeconds: 0.22 }),
   knock('knock-4', 30.2),
   knock('knock-5', 30.75),
   croak('frog-c2', FROG_LILY_PADS, 33.5, { durationSeconds: 0.26, startFrequencyHz: 2450, endFrequencyHz: 2550, bendHz: 0, pulseRateHz: 25, attackSeconds: 0.02, releaseSeconds: 0.05 }),
-  { id: 'bird-2', kind: 'fm-call', ...WILLOW, emissionTimeSeconds: 36.0, levelDb: -30, durationSeconds: 0.07, startFrequencyHz: 4100, endFrequencyHz: 5600, harmonicLevelsDb: [-20] },
+  { id: 'bird-2', kind: 'fm-call', ...WILLOW, emissionTimeSeconds: 36.0, levelDb: -26, durationSeconds: 0.07, startFrequencyHz: 4100, endFrequencyHz: 5600, harmonicLevelsDb: [-20] },
   croak('frog-a3', FROG_OPEN_WATER, 39.2, { durationSeconds: 0.15 }),
   bark('bark-3', 42.0, 950),
   croak('frog-b3', FROG_WEST_MARGIN, 45.5, { startFrequencyHz: 1900, endFrequencyHz: 1500, bendHz: 180, durationSeconds: 0.2 }),
-  { id: 'twig-snap', kind: 'click', eastMeters: 25.0, northMeters: 5.0, upMeters: 0.3, emissionTimeSeconds: 48.0, levelDb: -26, peakFrequencyHz: 4000 },
+  { id: 'twig-snap', kind: 'click', eastMeters: 25.0, northMeters: 5.0, upMeters: 0.3, emissionTimeSeconds: 48.0, levelDb: -22, peakFrequencyHz: 4000 },
   croak('frog-c3', FROG_LILY_PADS, 51.0, { durationSeconds: 0.3, startFrequencyHz: 2400, endFrequencyHz: 2600, bendHz: 0, pulseRateHz: 25, attackSeconds: 0.02, releaseSeconds: 0.05 }),
   knock('knock-6', 54.0),
   knock('knock-7', 54.6),
-  { id: 'sweep-end', kind: 'chirp', ...SURVEY_PEG_SPEAKER, emissionTimeSeconds: 57.0, levelDb: -24, startFrequencyHz: 500, endFrequencyHz: 6000, durationSeconds: 0.5, sweep: 'exponential' },
+  { id: 'sweep-end', kind: 'chirp', ...SURVEY_PEG_SPEAKER, emissionTimeSeconds: 57.0, levelDb: -20, startFrequencyHz: 500, endFrequencyHz: 6000, durationSeconds: 0.5, sweep: 'exponential' },
 ];
 
 /** The whole scene: 60 s, 48 kHz, six channels, ground (water) plane at 0 m reflecting 0.6 of the pressure. */
@@ -114,6 +114,6 @@ export const DEMO_SCENE: SceneSpec = {
   groundUpMeters: 0,
   reflectionCoefficient: 0.6,
   sources: DEMO_SOURCES,
-  background: { noiseLevelDb: -72, noiseColor: 'pink', wind: { levelDb: -62, cornerHz: 25, gustDepthDb: 4 } },
-  interference: [{ kind: 'hum', id: 'pump-house', fundamentalHz: 100, levelDb: -66, harmonicLevelsDb: [-6, -12, -18], bearingDegrees: 225 }],
+  background: { noiseLevelDb: -82, noiseColor: 'pink', wind: { levelDb: -68, cornerHz: 25, gustDepthDb: 4 } },
+  interference: [{ kind: 'hum', id: 'pump-house', fundamentalHz: 100, levelDb: -70, harmonicLevelsDb: [-6, -12, -18], bearingDegrees: 225 }],
 };

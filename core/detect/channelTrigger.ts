@@ -1,7 +1,6 @@
-// Onset and release of one channel: frame energy (the last four hops) against its noise floor, with hysteresis and hangover.
-// Energies are sums of squared band-filtered samples; thresholds in dB above the floor; times in hops.
-// Onset: the first hop of the triggering frame that alone clears the threshold, traced back over the hops just before it
-// that stay above the release level (quarter-frame resolution), so a slowly rising sound is dated by its start.
+// Onset and release of one channel: frame energy (last four hops, signal units²) against its floor, thresholds in dB,
+// hysteresis and hangover; times in hops. Onset: the first hop of the triggering frame that clears the threshold alone,
+// traced back over the hops before it that stay above the release level, so a slowly rising sound is dated by its start.
 
 /** Hops per energy frame: onsets are resolved to a quarter frame. */
 export const hopsPerFrame = 4;

@@ -14,6 +14,20 @@ const chunkFrames = 8192;
 /** Keeps the level of digital silence finite (-200 dB). */
 const tinyMeanSquare = 1e-20;
 
+/**
+ * A detector for one recording. Behaviour worth knowing:
+ * - The floor is first estimated from the first `initialNoiseSeconds` (default 1 s), which are then searched like the
+ *   rest: a tone or hum present from the start is background and never triggers.
+ * - A steady sound that starts later (a generator switched on) triggers once, at its start: that event lasts until the
+ *   floor has risen to it (about 80 % of the 4 s noise window) and is cut at maxEventSeconds, flagged 'truncated'.
+ *   Its channels re-arm only after they fall back near the floor, so it never triggers again.
+ * - Sounds in the first 4 periods of the band's lower edge (20 ms at 200 Hz) are not called while the filter settles.
+ * - Events less than the array's largest delay apart are merged ('merged') unless the result would be longer than
+ *   maxEventSeconds ('close-to-previous'); windows that overlap are flagged 'overlaps-previous'.
+ * - An event is reported once no later detection can merge with it and its whole window has been pushed, i.e. about
+ *   0.5 s after its sound ends with the defaults and a 0.15 s array; finish() reports the rest.
+ * - Blocks may have any size: the same recording gives the same events (bit for bit) whatever its blocks.
+ */
 export function createDetector(config: DetectorConfig): StreamingDetector {
   const settings = resolveDetectorConfig(config);
   const { channelCount, hopFrames, floorBlockHops, initialHops, settleHops, sampleRateHz } = settings;

@@ -58,8 +58,9 @@ export class EventAssembler {
         if (t.peakRatio > open.peakRatio) open.peakRatio = t.peakRatio;
         if (t.lastAboveHop + 1 > open.lastOffsetHop) open.lastOffsetHop = t.lastAboveHop + 1;
       }
-      if (hop + 1 - open.firstOnsetHop >= maxEventHops) this.close(open, hop, true);
-      else if (!anyActive && hop >= open.firstOnsetHop + spanHops) this.close(open, hop, false);
+      // The sound itself (onset to last hop above the release level), not the hangover, counts against the longest event.
+      if (open.lastOffsetHop - open.firstOnsetHop >= maxEventHops) this.close(open, true);
+      else if (!anyActive && hop >= open.firstOnsetHop + spanHops) this.close(open, false);
     } else {
       // Activations (still sounding or not) that have not yet found agreement.
       let agreeing = 0;
@@ -68,7 +69,7 @@ export class EventAssembler {
         if (hop - t.onsetHop > spanHops) t.status = loneStatus;
         else agreeing++;
       }
-      if (agreeing >= minChannels) this.openEvent(hop);
+      if (agreeing >= minChannels) this.openEvent();
     }
     this.emitReady(hop, out);
   }
@@ -83,7 +84,7 @@ export class EventAssembler {
           open.lastOffsetHop = Math.max(open.lastOffsetHop, hopCount);
         }
       }
-      this.close(open, hopCount - 1, false);
+      this.close(open, open.lastOffsetHop - open.firstOnsetHop >= this.config.maxEventHops);
     }
     for (const event of this.held) out.push(this.report(event, durationSeconds));
     this.held.length = 0;
@@ -105,7 +106,7 @@ export class EventAssembler {
     t.eventSerial = event.serial;
   }
 
-  private openEvent(hop: number): void {
+  private openEvent(): void {
     const { mergeGapHops, maxEventHops } = this.config;
     let first = Infinity;
     for (const t of this.triggers) if (t.status === pendingStatus && t.onsetHop < first) first = t.onsetHop;
@@ -123,7 +124,7 @@ export class EventAssembler {
     });
     const previous = this.held[this.held.length - 1];
     if (previous && event.firstOnsetHop - previous.lastOffsetHop < mergeGapHops) {
-      if (!previous.truncated && hop + 1 - previous.firstOnsetHop < maxEventHops) {
+      if (!previous.truncated && event.lastOffsetHop - previous.firstOnsetHop < maxEventHops) {
         // Reopen the previous event with these channels added.
         this.held.pop();
         event.onsetHops.forEach((onset, c) => {
@@ -144,11 +145,11 @@ export class EventAssembler {
     this.open = event;
   }
 
-  private close(event: WorkingEvent, hop: number, truncated: boolean): void {
+  private close(event: WorkingEvent, truncated: boolean): void {
     if (truncated) {
       event.truncated = true;
       event.flags.add('truncated');
-      event.lastOffsetHop = Math.max(event.lastOffsetHop, hop + 1);
+      event.lastOffsetHop = event.firstOnsetHop + this.config.maxEventHops;
     }
     this.held.push(event);
     this.open = null;

@@ -1,6 +1,6 @@
-// What to draw for one event window: every pair's weighted cross-correlation with its chosen peak and lag limit, and every
-// channel's in-band autocorrelation with its widths. Lags in frames, delays and widths in seconds, spacings in metres.
-// Generalized cross-correlation (Knapp & Carter 1976) via core/dsp; timing scale 1/(2π f_rms) after Carter (1987).
+// What to draw for one event window: every pair's weighted cross-correlation with its chosen peak and lag limits, and every
+// channel's in-band autocorrelation with its widths and expected timing precision. Lags in frames, times in seconds, metres.
+// GCC after Knapp & Carter (1976); precision from the CRLB for flat spectra, σ² = 3(1+2s)/(8π²T s²(f2³−f1³)) (Carter 1987).
 import { autocorrelation, autocorrelationWidth, createGccEngine, type FrequencyBand, type GccWeighting } from '../dsp';
 import { WhenceError } from '../errors';
 
@@ -10,7 +10,10 @@ export interface PairCorrelationPlot {
   labelA: string;
   labelB: string;
   sampleRateHz: number;
-  /** Normalised weighted correlation at integer lags -maxLagFrames..maxLagFrames (index = lag + maxLagFrames). */
+  /**
+   * Normalised weighted correlation at integer lags -maxLagFrames..maxLagFrames (index = lag + maxLagFrames). The plotted
+   * range reaches past the search limit (plotRangeFactor × it) so that a stronger peak outside the possible lags shows.
+   */
   values: Float64Array;
   maxLagFrames: number;
   /** Arrival at A minus arrival at B, seconds (the interpolated peak). */
@@ -22,6 +25,8 @@ export interface PairCorrelationPlot {
   used: boolean;
   /** The pair's spacing over the speed of sound: no real delay exceeds it. */
   spacingLimitSeconds?: number;
+  /** Lags the peak was searched within: ±(d/c + margin). */
+  searchLimitSeconds?: number;
 }
 
 export interface ChannelAutocorrelationPlot {
@@ -33,7 +38,14 @@ export interface ChannelAutocorrelationPlot {
   firstZeroSeconds: number | null;
   /** RMS frequency of the in-band spectrum, Hz. */
   rmsFrequencyHz?: number;
-  /** 1/(2π f_rms): the spread of a delay estimate set by the signal's own sharpness, before noise and echoes widen it. */
+  /** 1/(2π f_rms): the spread of the autocorrelation's main lobe (a Gaussian with the same curvature at lag 0). */
+  lobeScaleSeconds?: number | null;
+  /** The channel's in-band SNR, dB: the median of its pairs' SNR (null when no pair gives one). */
+  snrDb?: number | null;
+  /**
+   * Expected standard deviation of a delay with this channel: the CRLB for flat spectra over the band and the window,
+   * σ = lobeScale / sqrt(2·T·B·s²/(1 + 2s)), s the SNR (linear), T the window, B the band width. Null when silent.
+   */
   timingPrecisionSeconds?: number | null;
 }
 
@@ -58,6 +70,21 @@ export interface CorrelationPlotOptions {
 
 /** Lags shown in an autocorrelation: this many half-maximum widths, within 16..4096 frames and the window. */
 const autocorrelationWidthsShown = 8;
+/** Pair plots show lags out to this many times the search limit. */
+export const plotRangeFactor = 1.5;
+
+/** CRLB of a delay for flat signal and noise spectra (Carter 1987): seconds, from 1/(2π f_rms), T, B and the SNR s (linear). */
+export function expectedDelaySigmaSeconds(lobeScaleSeconds: number, windowSeconds: number, bandWidthHz: number, snrLinear: number): number {
+  const effective = (snrLinear * snrLinear) / (1 + 2 * snrLinear);
+  return lobeScaleSeconds / Math.sqrt(2 * windowSeconds * bandWidthHz * effective);
+}
+
+function median(values: number[]): number | null {
+  const finite = values.filter((v) => Number.isFinite(v)).sort((a, b) => a - b);
+  if (finite.length === 0) return null;
+  const mid = finite.length >> 1;
+  return finite.length % 2 === 1 ? finite[mid]! : (finite[mid - 1]! + finite[mid]!) / 2;
+}
 
 /** One plot per pair (a < b) and per channel, for the event window `channels` (array order, equal lengths). */
 export function correlationPlots(
@@ -89,19 +116,22 @@ export function correlationPlots(
   };
   let largestLagSeconds = 0;
   for (let a = 0; a < count; a++) for (let b = a + 1; b < count; b++) largestLagSeconds = Math.max(largestLagSeconds, spacing(a, b) / speedMetersPerSecond + marginSeconds);
-  const engine = createGccEngine(windowFrames, { sampleRateHz, weighting, bandHz, maxLagSeconds: largestLagSeconds });
+  const engine = createGccEngine(windowFrames, { sampleRateHz, weighting, bandHz, maxLagSeconds: plotRangeFactor * largestLagSeconds });
   channels.forEach((samples, index) => engine.setChannel(index, samples));
-  const engineLagFrames = Math.min(windowFrames - 1, Math.floor(largestLagSeconds * sampleRateHz + 1e-9));
+  const engineLagFrames = Math.min(windowFrames - 1, Math.floor(plotRangeFactor * largestLagSeconds * sampleRateHz + 1e-9));
 
   const pairs: PairCorrelationPlot[] = [];
   for (let a = 0; a < count; a++) {
     for (let b = a + 1; b < count; b++) {
       const spacingLimitSeconds = spacing(a, b) / speedMetersPerSecond;
-      const maxLagSeconds = Math.min(engine.maxLagSeconds, spacingLimitSeconds + marginSeconds);
-      const delay = engine.pairDelay(a, b, maxLagSeconds);
-      // The same integer limit the engine used for this pair (gccEngine.ts, pairDelayInto).
-      const maxLagFrames = Math.min(engineLagFrames, Math.floor(maxLagSeconds * sampleRateHz + 1e-9));
+      const searchLimitSeconds = Math.min(engine.maxLagSeconds, spacingLimitSeconds + marginSeconds);
+      // First the wider range for the picture (the engine keeps the last correlation), then the delay within the limit.
+      const plotLagSeconds = Math.min(engine.maxLagSeconds, plotRangeFactor * searchLimitSeconds);
+      engine.pairDelay(a, b, plotLagSeconds);
+      // The same integer limit the engine used for that call (gccEngine.ts, pairDelayInto).
+      const maxLagFrames = Math.min(engineLagFrames, Math.floor(plotLagSeconds * sampleRateHz + 1e-9));
       const values = engine.lastCorrelation(new Float64Array(2 * maxLagFrames + 1));
+      const delay = engine.pairDelay(a, b, searchLimitSeconds);
       pairs.push({
         indexA: a,
         indexB: b,
@@ -116,6 +146,7 @@ export function correlationPlots(
         snrDb: delay.snrDb,
         used: options.isPairUsed ? options.isPairUsed(a, b) : true,
         spacingLimitSeconds,
+        searchLimitSeconds,
       });
     }
   }
@@ -130,10 +161,16 @@ export function correlationPlots(
   });
   const widestFrames = Math.max(0, ...widths.map((w) => (w?.halfMaxWidthSeconds ?? 0) * sampleRateHz));
   const lagCount = Math.min(windowFrames - 1, 4096, Math.max(16, Math.ceil(autocorrelationWidthsShown * widestFrames)));
+  const windowSeconds = windowFrames / sampleRateHz;
+  const bandWidthHz = Math.min(bandHz.highHz, sampleRateHz / 2) - bandHz.lowHz;
   const autocorrelations: ChannelAutocorrelationPlot[] = channels.map((samples, index) => {
     const width = widths[index];
     const values = new Float64Array(lagCount + 1);
     if (width && samples.length > lagCount) autocorrelation(samples, lagCount, values, { bandHz, sampleRateHz });
+    const lobeScaleSeconds = width && width.rmsFrequencyHz > 0 ? 1 / (2 * Math.PI * width.rmsFrequencyHz) : null;
+    const snrDb = median(pairs.filter((p) => p.indexA === index || p.indexB === index).map((p) => p.snrDb));
+    const timingPrecisionSeconds =
+      lobeScaleSeconds === null || snrDb === null ? null : expectedDelaySigmaSeconds(lobeScaleSeconds, windowSeconds, bandWidthHz, 10 ** (snrDb / 10));
     return {
       label: labels[index]!,
       sampleRateHz,
@@ -141,7 +178,9 @@ export function correlationPlots(
       halfMaxWidthSeconds: width?.halfMaxWidthSeconds ?? null,
       firstZeroSeconds: width?.firstZeroSeconds ?? null,
       rmsFrequencyHz: width?.rmsFrequencyHz ?? 0,
-      timingPrecisionSeconds: width && width.rmsFrequencyHz > 0 ? 1 / (2 * Math.PI * width.rmsFrequencyHz) : null,
+      lobeScaleSeconds,
+      snrDb,
+      timingPrecisionSeconds,
     };
   });
   return { pairs, autocorrelations };

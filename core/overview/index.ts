@@ -31,6 +31,8 @@ export {
 export { spectrogramFromSource, type SpectrogramPassOptions } from './spectrogramFromSource';
 export {
   correlationPlots,
+  expectedDelaySigmaSeconds,
+  plotRangeFactor,
   type ChannelAutocorrelationPlot,
   type CorrelationPlotOptions,
   type CorrelationPlots,

@@ -38,11 +38,16 @@ export interface PipelineResult {
   warnings: string[];
 }
 
+/** Energy frame of the pipeline's detector. */
+export const DETECTION_FRAME_SECONDS = 0.002;
+
 export function detectorConfigFor(recording: RecordingAccess, context: LocateContext): DetectorConfig {
   const config: DetectorConfig = {
     sampleRateHz: recording.info.sampleRateHz,
     channelCount: context.channelIndexOfMicrophone.length,
     maxArrayDelaySeconds: maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98),
+    // 2 ms energy frames: short enough that a click or a clap of a few hundred microseconds stands out of the noise.
+    frameSeconds: DETECTION_FRAME_SECONDS,
   };
   if (context.settings.detectionThresholdDb !== undefined) config.thresholdDb = context.settings.detectionThresholdDb;
   if (context.settings.minChannels !== undefined) config.minChannels = context.settings.minChannels;

@@ -203,10 +203,14 @@ export function validateScene(spec: SceneSpec): void {
 
   if (spec.interference !== undefined) {
     if (!Array.isArray(spec.interference)) fail('interference', 'must be a list of hums', spec.interference);
+    const humIds = new Map<string, number>();
     spec.interference.forEach((hum, index) => {
       const at = `interference[${index}]`;
       if (typeof hum !== 'object' || hum === null || hum.kind !== 'hum') fail(`${at}.kind`, "must be 'hum'", hum?.kind);
-      text(`${at}.id`, hum.id);
+      const id = text(`${at}.id`, hum.id);
+      const previous = humIds.get(id);
+      if (previous !== undefined) fail(`${at}.id`, `is already used by interference[${previous}]; give each hum its own id`, id);
+      humIds.set(id, index);
       tone(`${at}.fundamentalHz`, hum.fundamentalHz, rate);
       within(`${at}.levelDb`, hum.levelDb, -200, 0, 'RMS dBFS at each microphone');
       optional(hum.harmonicLevelsDb, (v) => levels(`${at}.harmonicLevelsDb`, v));

@@ -124,7 +124,11 @@ export function createHostServices(deps: HostServiceDeps): HostServices {
       return { path: target };
     },
 
-    listRecentProjects: () => recent.list(),
+    async listRecentProjects() {
+      const projects = await recent.list();
+      deps.onRecentProjectsChanged?.(projects);
+      return projects;
+    },
 
     writeRecoveryCopy: (document, projectPath) => recovery.write(document, projectPath),
     takeRecoveryCopy: () => recovery.take(),

@@ -58,54 +58,59 @@ function createWindow(): void {
 }
 
 app.enableSandbox();
-if (!app.requestSingleInstanceLock()) app.quit();
 
-app.on('second-instance', () => {
-  if (mainWindow === undefined) return;
-  if (mainWindow.isMinimized()) mainWindow.restore();
-  mainWindow.focus();
-});
-
-// Every web contents, including any the page might create, refuses navigation, new windows and webviews.
-app.on('web-contents-created', (_event, contents) => {
-  const guard = navigationGuard(paths.rendererIndexUrl);
-  contents.setWindowOpenHandler(guard.windowOpenHandler);
-  contents.on('will-navigate', guard.onWillNavigate);
-  contents.on('will-redirect', guard.onWillRedirect);
-  contents.on('will-attach-webview', guard.onWillAttachWebview);
-});
-
-app.whenReady().then(async () => {
-  session.defaultSession.setPermissionRequestHandler(denyPermissionRequest);
-  session.defaultSession.setPermissionCheckHandler(denyPermissionCheck);
-  session.defaultSession.webRequest.onBeforeRequest((details, callback) => callback({ cancel: !isAllowedRequestUrl(details.url, paths.rendererFolderUrl) }));
-  session.defaultSession.webRequest.onHeadersReceived((details, callback) => callback({ responseHeaders: withContentSecurityPolicy(details.responseHeaders) }));
-
-  const userData = app.getPath('userData');
-  const recent = createRecentProjectsStore(join(userData, RECENT_PROJECTS_FILE_NAME));
-  const services = createHostServices({
-    dialogs,
-    recordings,
-    recovery: createRecoveryStore(join(userData, 'recovery')),
-    recent,
-    demoFolder: paths.demoFolder,
-    onRecentProjectsChanged: rebuildMenu,
-    log,
+function start(): void {
+  app.on('second-instance', () => {
+    if (mainWindow === undefined) return;
+    if (mainWindow.isMinimized()) mainWindow.restore();
+    mainWindow.focus();
   });
-  registerIpcHandlers(ipcMain, services, {
-    isTrustedSender: (event) => isTrustedSender(event, { webContentsId: () => mainWindow?.webContents.id, pageUrl: paths.rendererIndexUrl }),
-    log,
-  });
-  rebuildMenu(await recent.list());
-  createWindow();
-  app.on('activate', () => {
-    if (BrowserWindow.getAllWindows().length === 0) createWindow();
-  });
-}).catch((error: unknown) => {
-  log(`Whence could not start its window: ${String(error)}`);
-  app.exit(1);
-});
 
-app.on('window-all-closed', () => {
-  if (process.platform !== 'darwin') app.quit();
-});
+  // Every web contents, including any the page might create, refuses navigation, new windows and webviews.
+  app.on('web-contents-created', (_event, contents) => {
+    const guard = navigationGuard(paths.rendererIndexUrl);
+    contents.setWindowOpenHandler(guard.windowOpenHandler);
+    contents.on('will-navigate', guard.onWillNavigate);
+    contents.on('will-redirect', guard.onWillRedirect);
+    contents.on('will-attach-webview', guard.onWillAttachWebview);
+  });
+
+  app.whenReady().then(async () => {
+    session.defaultSession.setPermissionRequestHandler(denyPermissionRequest);
+    session.defaultSession.setPermissionCheckHandler(denyPermissionCheck);
+    session.defaultSession.webRequest.onBeforeRequest((details, callback) => callback({ cancel: !isAllowedRequestUrl(details.url, paths.rendererFolderUrl) }));
+    session.defaultSession.webRequest.onHeadersReceived((details, callback) => callback({ responseHeaders: withContentSecurityPolicy(details.responseHeaders) }));
+
+    const userData = app.getPath('userData');
+    const recent = createRecentProjectsStore(join(userData, RECENT_PROJECTS_FILE_NAME));
+    const services = createHostServices({
+      dialogs,
+      recordings,
+      recovery: createRecoveryStore(join(userData, 'recovery')),
+      recent,
+      demoFolder: paths.demoFolder,
+      onRecentProjectsChanged: rebuildMenu,
+      log,
+    });
+    registerIpcHandlers(ipcMain, services, {
+      isTrustedSender: (event) => isTrustedSender(event, { webContentsId: () => mainWindow?.webContents.id, pageUrl: paths.rendererIndexUrl }),
+      log,
+    });
+    rebuildMenu(await recent.list());
+    createWindow();
+    app.on('activate', () => {
+      if (BrowserWindow.getAllWindows().length === 0) createWindow();
+    });
+  }).catch((error: unknown) => {
+    log(`Whence could not start its window: ${String(error)}`);
+    app.exit(1);
+  });
+
+  app.on('window-all-closed', () => {
+    if (process.platform !== 'darwin') app.quit();
+  });
+}
+
+// A second copy of Whence hands over to the first (one recovery copy, one recent list).
+if (app.requestSingleInstanceLock()) start();
+else app.quit();

@@ -69,7 +69,7 @@ function PairCard({ plot }: { plot: PairCorrelationPlot }) {
         {!plot.used && <span className="cv-badge">not used</span>}
         {shape.beyondSpacing && <span className="cv-badge cv-badge-warn">beyond d/c</span>}
       </figcaption>
-      <svg width={pairBox.widthPixels} height={pairBox.heightPixels} role="img" aria-label={`${shape.title}: ${shape.delayText}, ${shape.qualityText}`}>
+      <svg viewBox={`0 0 ${pairBox.widthPixels} ${pairBox.heightPixels}`} width="100%" className="cv-svg" role="img" aria-label={`${shape.title}: ${shape.delayText}, ${shape.qualityText}`}>
         <rect x={pairBox.left} y={pairBox.top} width={pairBox.widthPixels - pairBox.left - pairBox.right} height={plotBottom - pairBox.top} className="cv-plot-area" />
         {shape.spacingBand && (
           <rect x={shape.spacingBand.x0} y={pairBox.top} width={Math.max(1, shape.spacingBand.x1 - shape.spacingBand.x0)} height={plotBottom - pairBox.top} className="cv-band" />
@@ -89,7 +89,7 @@ function PairCard({ plot }: { plot: PairCorrelationPlot }) {
         <text x={pairBox.widthPixels - pairBox.right} y={pairBox.top + 9} className="cv-unit">{shape.xUnit}</text>
       </svg>
       <div className="cv-text">{shape.delayText}</div>
-      <div className={weak ? 'cv-text cv-warn' : 'cv-text cv-muted'}>{shape.qualityText}{weak ? ' · weak peak' : ''}</div>
+      <div className={weak ? 'cv-text cv-warn' : 'cv-text cv-muted'}>{shape.qualityText}{weak ? ' · close second peak' : ''}</div>
     </figure>
   );
 }
@@ -100,7 +100,7 @@ function AutocorrelationCard({ plot, index }: { plot: ChannelAutocorrelationPlot
   return (
     <figure className="cv-card" data-testid={`autocorrelation-${index}`}>
       <figcaption className="cv-card-title"><span>{shape.title}</span></figcaption>
-      <svg width={autoBox.widthPixels} height={autoBox.heightPixels} role="img" aria-label={`${shape.title}: ${shape.widthText}, ${shape.precisionText}`}>
+      <svg viewBox={`0 0 ${autoBox.widthPixels} ${autoBox.heightPixels}`} width="100%" className="cv-svg" role="img" aria-label={`${shape.title}: ${shape.widthText}, ${shape.precisionText}`}>
         <rect x={autoBox.left} y={autoBox.top} width={autoBox.widthPixels - autoBox.left - autoBox.right} height={plotBottom - autoBox.top} className="cv-plot-area" />
         <line x1={autoBox.left} x2={autoBox.widthPixels - autoBox.right} y1={shape.zeroY} y2={shape.zeroY} className="cv-zero" />
         {shape.halfWidthX !== undefined && (
@@ -122,6 +122,7 @@ function AutocorrelationCard({ plot, index }: { plot: ChannelAutocorrelationPlot
       </svg>
       <div className="cv-text cv-muted">{shape.widthText}</div>
       <div className="cv-text">{shape.precisionText}</div>
+      {shape.basisText && <div className="cv-text cv-muted cv-small">{shape.basisText}</div>}
     </figure>
   );
 }

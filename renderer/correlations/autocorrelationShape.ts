@@ -1,9 +1,9 @@
 // View-model of one channel's autocorrelation plot: the curve over lags 0..N, the half-maximum width (drawn at half its
-// full width, since only positive lags show), the first zero, and the timing text; SVG pixels, lags in seconds.
+// full width, since only positive lags show), the first zero, and the expected timing precision; SVG pixels, seconds.
 import type { ChannelAutocorrelationPlot } from '../../core/overview';
 import { lagAxisTicks, type AxisTick } from './lagAxis';
 import type { PlotBox } from './pairPlotShape';
-import { formatShortDuration } from './plotFormat';
+import { formatShortDuration, formatSnrDb } from './plotFormat';
 
 export interface AutocorrelationShape {
   curvePath: string;
@@ -17,6 +17,8 @@ export interface AutocorrelationShape {
   title: string;
   widthText: string;
   precisionText: string;
+  /** What the precision rests on: the channel's SNR and the lobe scale 1/(2π f_rms). */
+  basisText: string;
 }
 
 export function autocorrelationShape(plot: ChannelAutocorrelationPlot, box: PlotBox): AutocorrelationShape {
@@ -31,7 +33,7 @@ export function autocorrelationShape(plot: ChannelAutocorrelationPlot, box: Plot
   for (let k = 0; k < plot.values.length; k++) parts.push(`${k === 0 ? 'M' : 'L'}${x(k / fs).toFixed(2)} ${y(plot.values[k]!).toFixed(2)}`);
   const half = plot.halfMaxWidthSeconds;
   const zero = plot.firstZeroSeconds;
-  const { ticks: xTicks, unit: xUnit } = lagAxisTicks(0, spanSeconds, innerWidth, x);
+  const { ticks: xTicks, unit: xUnit } = lagAxisTicks(0, spanSeconds, innerWidth, x, { leftPixels: 0, rightPixels: box.widthPixels });
   const precision = plot.timingPrecisionSeconds;
   return {
     curvePath: parts.join(' '),
@@ -45,7 +47,13 @@ export function autocorrelationShape(plot: ChannelAutocorrelationPlot, box: Plot
     widthText: half === null ? 'no half-maximum within the window' : `half-max width ${formatShortDuration(half)}`,
     precisionText:
       precision === undefined || precision === null
-        ? 'silent in the band: no timing'
-        : `expected timing precision ≈ ${formatShortDuration(precision)}`,
+        ? plot.lobeScaleSeconds ? 'expected timing precision: no SNR to judge by' : 'silent in the band: no timing'
+        : precision >= 1e-3
+          ? 'expected timing precision: worse than 1 ms'
+          : `expected timing precision ≈ ${formatShortDuration(precision)}`,
+    basisText: [
+      plot.snrDb === undefined || plot.snrDb === null ? '' : `at ${formatSnrDb(plot.snrDb)} SNR`,
+      plot.lobeScaleSeconds ? `lobe 1/(2πf_rms) ${formatShortDuration(plot.lobeScaleSeconds)}` : '',
+    ].filter((t) => t !== '').join(' · '),
   };
 }

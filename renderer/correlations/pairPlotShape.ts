@@ -2,7 +2,7 @@
 // band |τ| ≤ d/c and the lag ticks, all in SVG pixels; lags in seconds (arrival at A minus arrival at B).
 import type { PairCorrelationPlot } from '../../core/overview';
 import { lagAxisTicks, type AxisTick } from './lagAxis';
-import { formatRatio, formatShortDuration } from './plotFormat';
+import { formatRatio, formatShortDuration, formatSnrDb } from './plotFormat';
 
 export interface PlotBox {
   widthPixels: number;
@@ -60,7 +60,8 @@ export function pairPlotShape(plot: PairCorrelationPlot, box: PlotBox): PairPlot
     high = 1;
     low = 0;
   }
-  const top = Math.max(high, 1e-12) * 1.1;
+  // headroom above the peak for the ±σ bar
+  const top = Math.max(high, 1e-12) * 1.25;
   const bottom = Math.min(low * 1.1, -0.1 * top);
   const y = (value: number) => box.top + ((top - value) / (top - bottom)) * innerHeight;
 
@@ -94,7 +95,7 @@ export function pairPlotShape(plot: PairCorrelationPlot, box: PlotBox): PairPlot
   const limit = plot.spacingLimitSeconds;
   const spacingBand = limit === undefined ? undefined : { x0: x(Math.max(-maxLagSeconds, -limit)), x1: x(Math.min(maxLagSeconds, limit)) };
 
-  const { ticks: xTicks, unit: xUnit } = lagAxisTicks(-maxLagSeconds, maxLagSeconds, innerWidth, x);
+  const { ticks: xTicks, unit: xUnit } = lagAxisTicks(-maxLagSeconds, maxLagSeconds, innerWidth, x, { leftPixels: 0, rightPixels: box.widthPixels });
   return {
     curvePath: parts.join(' '),
     zeroY: y(0),
@@ -106,6 +107,6 @@ export function pairPlotShape(plot: PairCorrelationPlot, box: PlotBox): PairPlot
     beyondSpacing: limit !== undefined && Math.abs(plot.delaySeconds) > limit * (1 + 1e-9),
     title: `${plot.labelA} – ${plot.labelB}`,
     delayText: `Δt ${formatShortDuration(plot.delaySeconds, true)} ± ${formatShortDuration(plot.sigmaSeconds)}`,
-    qualityText: `peak/2nd ${formatRatio(plot.peakToSecondRatio)} · SNR ${plot.snrDb.toFixed(0)} dB`,
+    qualityText: `peak/2nd ${formatRatio(plot.peakToSecondRatio)} · SNR ${formatSnrDb(plot.snrDb)}`,
   };
 }

@@ -53,6 +53,8 @@ export function MapView(props: MapViewProps) {
   const size = useElementSize(containerRef);
   const [scale, setScale] = useState<MapScale | null>(null);
   const [hoveredFixId, setHoveredFixId] = useState<string | null>(null);
+  const [hoveredMicrophone, setHoveredMicrophone] = useState<number | null>(null);
+  const [draggedMicrophone, setDraggedMicrophone] = useState<number | null>(null);
   const [panning, setPanning] = useState(false);
   const [hoverCursor, setHoverCursor] = useState<'grab' | 'grabbing' | 'pointer' | null>(null);
 
@@ -129,7 +131,7 @@ export function MapView(props: MapViewProps) {
   const panCleanup = useRef<(() => void) | null>(null);
   const pressTravel = useRef(0);
   const onPointerDown = useCallback((event: Konva.KonvaEventObject<PointerEvent>) => {
-    if (event.evt.button !== 0 || event.target.hasName('microphone-handle')) return;
+    if (event.evt.button !== 0 || (latest.current.props.editable && event.target.hasName('microphone-handle'))) return;
     containerRef.current?.focus({ preventScroll: true });
     panCleanup.current?.();
     pressTravel.current = 0;
@@ -193,11 +195,12 @@ export function MapView(props: MapViewProps) {
   const onMicrophoneDragMove = useCallback(
     (index: number, node: Konva.Node) => {
       dragPending.current = { index, xPixels: node.x(), yPixels: node.y() };
+      reportPointer(); // the stage sees no pointer moves while Konva drags
       if (dragFrame.current !== 0) return;
       reportMicrophone();
       dragFrame.current = requestAnimationFrame(reportMicrophone);
     },
-    [reportMicrophone],
+    [reportMicrophone, reportPointer],
   );
   const onMicrophoneDragEnd = useCallback(
     (index: number, node: Konva.Node) => {
@@ -205,6 +208,7 @@ export function MapView(props: MapViewProps) {
       dragPending.current = { index, xPixels: node.x(), yPixels: node.y() };
       reportMicrophone();
       setHoverCursor(null);
+      setDraggedMicrophone(null);
       // Back to where the props put it: if the parent accepted the move, the next render moves it there.
       const { scale: current, props: currentProps } = latest.current;
       const mic = currentProps.microphones[index];
@@ -268,6 +272,8 @@ export function MapView(props: MapViewProps) {
   );
 
   const hoveredFix = fixList.find((fix) => fix.id === hoveredFixId) ?? null;
+  const shownIndex = draggedMicrophone ?? hoveredMicrophone;
+  const shownMicrophone = markers.find((marker) => marker.index === shownIndex) ?? null;
   const cursor = panning ? 'grabbing' : (hoverCursor ?? 'crosshair');
   const width = size?.widthPixels ?? 0;
   const height = size?.heightPixels ?? 0;
@@ -379,11 +385,20 @@ export function MapView(props: MapViewProps) {
                   x={marker.xPixels}
                   y={marker.yPixels}
                   draggable={editable}
-                  onDragStart={() => setHoverCursor('grabbing')}
+                  onDragStart={() => {
+                    setHoverCursor('grabbing');
+                    setDraggedMicrophone(marker.index);
+                  }}
                   onDragMove={(event) => onMicrophoneDragMove(marker.index, event.target)}
                   onDragEnd={(event) => onMicrophoneDragEnd(marker.index, event.target)}
-                  onMouseEnter={() => setHoverCursor(editable ? 'grab' : null)}
-                  onMouseLeave={() => setHoverCursor((current) => (current === 'grabbing' ? current : null))}
+                  onMouseEnter={() => {
+                    setHoverCursor(editable ? 'grab' : null);
+                    setHoveredMicrophone(marker.index);
+                  }}
+                  onMouseLeave={() => {
+                    setHoverCursor((current) => (current === 'grabbing' ? current : null));
+                    setHoveredMicrophone((current) => (current === marker.index ? null : current));
+                  }}
                 >
                   <Circle name="microphone-handle" radius={editable ? 11 : micRadiusPixels} fill="rgba(47,111,98,0.001)" />
                   <Circle
@@ -485,6 +500,13 @@ export function MapView(props: MapViewProps) {
           {hoveredFix.ellipseLabel !== undefined && <div>{hoveredFix.ellipseLabel}</div>}
           {hoveredFix.alternative !== undefined && <div>other solution marked ○</div>}
           <div className="muted">click to select</div>
+        </div>
+      )}
+
+      {shownMicrophone !== null && hoveredFix === null && (
+        <div className="map-tooltip" data-testid="map-microphone-tooltip" style={{ left: shownMicrophone.xPixels + 14, top: shownMicrophone.yPixels + 14 }}>
+          {shownMicrophone.title}
+          {editable && draggedMicrophone === null && <div className="muted">drag to move</div>}
         </div>
       )}
 

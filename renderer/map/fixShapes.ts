@@ -34,8 +34,9 @@ function statusColour(status: string): string {
   return status === 'ok' ? FIX_COLOURS.ok : status === 'ambiguous' ? FIX_COLOURS.ambiguous : FIX_COLOURS.other;
 }
 
+/** Shapes of the fixes that have a finite position (others are left out); an alternative without one is dropped. */
 export function fixShapes(fixes: readonly MapFix[], scale: MapScale): FixShape[] {
-  return fixes.map((fix) => {
+  return fixes.filter((fix) => Number.isFinite(fix.eastMeters) && Number.isFinite(fix.northMeters)).map((fix) => {
     const shape: FixShape = {
       id: fix.id,
       label: fix.label,
@@ -71,7 +72,7 @@ export function fixShapes(fixes: readonly MapFix[], scale: MapScale): FixShape[]
         shape.title += ` · ${shape.ellipseLabel} (semi-axes)`;
       }
     }
-    if (fix.alternative !== undefined) {
+    if (fix.alternative !== undefined && Number.isFinite(fix.alternative.eastMeters) && Number.isFinite(fix.alternative.northMeters)) {
       shape.alternative = { xPixels: scale.xPixels(fix.alternative.eastMeters), yPixels: scale.yPixels(fix.alternative.northMeters) };
       shape.title += ` · other solution E ${signedFixed(fix.alternative.eastMeters, 2)} m, N ${signedFixed(fix.alternative.northMeters, 2)} m`;
     }

@@ -15,8 +15,12 @@ export interface MicrophoneMarker {
   title: string;
 }
 
+/** Markers of the microphones with a finite position (others are left out); `index` is the place in the input list. */
 export function microphoneMarkers(microphones: readonly MapMicrophone[], scale: MapScale): MicrophoneMarker[] {
-  return microphones.map((mic, index) => ({
+  const markers: MicrophoneMarker[] = [];
+  microphones.forEach((mic, index) => {
+    if (!Number.isFinite(mic.eastMeters) || !Number.isFinite(mic.northMeters)) return;
+    markers.push({
     index,
     label: mic.label || `#${index + 1}`,
     channel: mic.channel,
@@ -25,5 +29,7 @@ export function microphoneMarkers(microphones: readonly MapMicrophone[], scale: 
     title:
       `${mic.label || `#${index + 1}`} · channel ${mic.channel} · ` +
       `E ${signed(mic.eastMeters, 2)} m, N ${signed(mic.northMeters, 2)} m, up ${signed(mic.upMeters, 2)} m`,
-  }));
+    });
+  });
+  return markers;
 }

@@ -11,7 +11,7 @@ export interface NorthArrow {
   label: { text: 'N'; xPixels: number; yPixels: number };
 }
 
-/** North arrow in a square box of `sizePixels`; `upDegrees` turns it when the map is rotated (0 = north up). */
+/** North arrow in a square box of `sizePixels`; `upDegrees` turns it clockwise on screen for a rotated map (0 = north up). */
 export function northArrow(sizePixels: number, upDegrees = 0): NorthArrow {
   const cx = sizePixels / 2;
   const cy = sizePixels * 0.62;

@@ -213,8 +213,9 @@ export function RecordingView(props: RecordingViewProps) {
       const length = current.endSeconds - current.startSeconds;
       const eventLength = selectedEvent.endSeconds - selectedEvent.startSeconds;
       const inside = selectedEvent.startSeconds >= current.startSeconds && selectedEvent.endSeconds <= current.endSeconds;
-      if (inside && eventLength > length * 0.01) return current;
-      if (eventLength > length * 0.8 || eventLength < length * 0.01) return spanAround(selectedEvent.startSeconds, selectedEvent.endSeconds, 1, duration, minSpan);
+      // keep a view that already shows the event at a readable size; else show it at a third of the view
+      if (inside && eventLength >= length * 0.05) return current;
+      if (eventLength > length * 0.8 || eventLength < length * 0.05) return spanAround(selectedEvent.startSeconds, selectedEvent.endSeconds, 1, duration, minSpan);
       const centre = (selectedEvent.startSeconds + selectedEvent.endSeconds) / 2;
       return clampSpan({ startSeconds: centre - length / 2, endSeconds: centre + length / 2 }, duration, minSpan);
     });

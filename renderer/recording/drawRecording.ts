@@ -103,8 +103,9 @@ export function drawLanes(context: CanvasRenderingContext2D, d: LanesDrawing): v
     context.fillStyle = fill;
     context.fillRect(x0, axisHeight, x1 - x0, layout.totalHeight - axisHeight);
     if (mark.selected) {
-      context.fillStyle = edge;
       context.fillRect(x0, axisHeight, x1 - x0, layout.totalHeight - axisHeight);
+      context.fillStyle = edge;
+      context.fillRect(x0, axisHeight, x1 - x0, 4);
       context.strokeStyle = palette.ink;
       context.lineWidth = 1.5;
       context.strokeRect(x0 + 0.75, axisHeight + 0.75, Math.max(1, x1 - x0 - 1.5), layout.totalHeight - axisHeight - 1.5);

@@ -89,7 +89,7 @@ export interface SceneOptions {
   sounds?: SceneSound[];
   /** Independent white sensor noise per channel, rms. */
   whiteRms?: number;
-  /** Independent pink noise per channel, rms (approximately). */
+  /** Independent pink noise per channel, rms (expected value; 1/f noise wanders over short stretches). */
   pinkRms?: number;
   /** Slow level change of white and pink noise: ± levelSwingDb over levelPeriodSeconds (sinusoid). */
   levelSwingDb?: number;
@@ -128,7 +128,8 @@ interface ChannelState {
   gustPhase: number;
 }
 
-/** P. Kellett's refined pink filter (7 poles), accurate to about ±0.05 dB above 9 Hz at 44.1 kHz; output gain about 0.11 for unit rms. */
+/** P. Kellett's refined pink filter: six one-pole sections plus a direct and a one-sample term, within about ±0.05 dB
+ * of a -3 dB/octave slope above 9 Hz at 44.1 kHz (from memory). */
 function kellettPink(state: Float64Array, white: number): number {
   state[0] = 0.99886 * state[0]! + white * 0.0555179;
   state[1] = 0.99332 * state[1]! + white * 0.0750759;
@@ -140,8 +141,8 @@ function kellettPink(state: Float64Array, white: number): number {
   state[6] = white * 0.115926;
   return pink;
 }
-/** Rms of kellettPink() for unit white input: about 3.05 (measured over 40 s at 48 kHz; 1/f noise wanders, so pinkRms is approximate). */
-const kellettPinkRms = 3.05;
+/** Rms of kellettPink() for unit white input, from its impulse response (computed: test/reference/detect_reference.py). */
+const kellettPinkRms = 3.0525;
 
 export function createSceneStream(options: SceneOptions): SceneStream {
   const fs = options.sampleRateHz;

@@ -11,11 +11,13 @@ import {
   knockShape,
   maxArrayDelaySeconds,
   renderScene,
+  sweepShape,
   type SceneOptions,
   type SceneSound,
 } from '../../helpers/detectSignals';
 
-// Five microphones over a 40 m x 30 m field; the largest spacing is the 50 m diagonal: 50 / 343 = 0.1458 s (geometry).
+// Five microphones over a 40 m x 30 m field; the largest spacing is the 50 m diagonal: 50 / 343 = 0.145773 s (geometry;
+// computed: test/reference/detect_reference.py).
 const microphones: Array<readonly [number, number]> = [[0, 0], [40, 0], [40, 30], [0, 30], [20, 15]];
 const maxDelaySeconds = maxArrayDelaySeconds(microphones);
 const sampleRateHz = 48000;
@@ -70,6 +72,7 @@ describe('createDetector()', () => {
   const channels = renderScene(scene);
 
   it('finds each of a dozen clicks, calls and knocks once, with onsets within a few ms of the true arrivals', () => {
+    expect(maxDelaySeconds).toBeCloseTo(0.145773, 6); // computed: test/reference/detect_reference.py
     const events = detectInBlocks(detectorFor(scene), channels, 4800);
     expect(events).toHaveLength(sounds.length);
     events.forEach((e, i) => expect(e.index).toBe(i));
@@ -80,8 +83,9 @@ describe('createDetector()', () => {
       expect(event.channelsTriggered).toBe(microphones.length);
       expect(event.flags.filter((f) => f !== 'clipped-at-start')).toEqual([]);
       arrivals(sound).forEach((arrival, c) => {
-        // "within a few ms": 3 ms here, about two onset steps of 1.25 ms (common practice for energy detectors)
-        expect(Math.abs(event.onsetSeconds[c]! - arrival)).toBeLessThan(0.003);
+        // "within a few ms": 4 ms here, about three onset steps of 1.25 ms (the task's requirement); the calls' 10 ms
+        // raised-cosine rise makes them the latest, about 3 ms
+        expect(Math.abs(event.onsetSeconds[c]! - arrival)).toBeLessThan(0.004);
       });
       expect(event.peakSnrDb).toBeGreaterThan(10);
     }
@@ -194,6 +198,22 @@ describe('createDetector() merging', () => {
     expect(coveringEvents(events, second)).toHaveLength(1);
   });
 
+  it('does not merge when the result would be longer than maxEventSeconds, and flags the second event instead', () => {
+    // Same place: every microphone hears the click 0.18 s after the call ends, which is after all of them fell quiet
+    // (arrival spread 0.075 s + hangover 0.05 s) yet less than the array delay after the call's last offset.
+    const call: SceneSound = { shape: sweepShape(2000, 5000, 0.9, 0.01), emitSeconds: 4, source: [20, -20], amplitude: 0.1 };
+    const tick: SceneSound = { shape: click, emitSeconds: 4 + 0.9 + 0.18, source: [20, -20], amplitude: 0.5 };
+    const options = { ...base, sounds: [call, tick] };
+    const events = detectInBlocks(detectorFor(options, { maxEventSeconds: 1 }), renderScene(options), 4800);
+    expect(events).toHaveLength(2);
+    expect(events[0]!.flags).toEqual([]);
+    expect(events[1]!.flags).toEqual(['close-to-previous', 'overlaps-previous']);
+    // merged, the two would have lasted 0.9 + 0.18 + the arrival spread: more than the 1 s allowed
+    const merged = detectInBlocks(detectorFor(options, { maxEventSeconds: 1.5 }), renderScene(options), 4800);
+    expect(merged).toHaveLength(1);
+    expect(merged[0]!.flags).toEqual(['merged']);
+  });
+
   it('keeps sounds farther apart than the array delay separate and flags overlapping windows', () => {
     const first: SceneSound = { shape: click, emitSeconds: 4, source: [-20, 15], amplitude: 0.5 };
     // 0.25 s: more than the array delay (0.146 s), less than the two windows' reach 2·(margin + delay) = 0.39 s.
@@ -238,7 +258,7 @@ describe('createDetector() on background only', () => {
 
   it('finds nothing in two minutes of mains hum (50, 100, 150 Hz) and a 2 kHz whistle present from the start', () => {
     const tones: SceneOptions = {
-      sampleRateHz,
+      sampleRateHz: 16000,
       durationSeconds: 120,
       microphones: fieldMicrophones,
       ...quietBackground,
@@ -253,19 +273,20 @@ describe('createDetector() on background only', () => {
     expect(detectStream(detectorFor(tones), createSceneStream(tones), 4, 8192)).toEqual([]);
   });
 
-  it('reports a louder tone that starts mid-recording and stays at most once, at its start', () => {
+  it.each([0.03, 0.3])('reports a tone of amplitude %s that starts mid-recording and stays at most once, at its start', (amplitude) => {
+    // band noise rms about 0.002 here: the tones stand about 20 and 40 dB above it
     const startSeconds = 30;
     const tone: SceneOptions = {
       sampleRateHz,
       durationSeconds: 60,
       microphones: fieldMicrophones,
       ...quietBackground,
-      // about 20 dB above the band's noise (band noise rms about 0.002 here)
-      tones: [{ frequencyHz: 3000, amplitude: 0.03, startSeconds }],
+      tones: [{ frequencyHz: 3000, amplitude, startSeconds }],
       seed: 23,
     };
     const events = detectStream(detectorFor(tone), createSceneStream(tone), 4, 8192);
     expect(events.length).toBeLessThanOrEqual(1);
+    // Documented behaviour: one event at the tone's start, cut at maxEventSeconds while the floor rises to the tone.
     for (const e of events) {
       expect(Math.min(...e.onsetSeconds.filter((t): t is number => t !== undefined))).toBeCloseTo(startSeconds, 1);
       expect(e.flags).toContain('truncated');

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { correlationPlots } from '../../../core/overview';
+import { correlationPlots, expectedDelaySigmaSeconds } from '../../../core/overview';
 import { WhenceError } from '../../../core/errors';
-import { bandLimit, whiteNoise } from '../../helpers/signals';
+import { bandLimit, delayedNoisePair, whiteNoise } from '../../helpers/signals';
 
 const fs = 48_000;
 const band = { lowHz: 0, highHz: 24_000 };
@@ -27,10 +27,11 @@ describe('correlationPlots()', () => {
       const argmax = pair.values.indexOf(Math.max(...pair.values));
       expect(argmax - pair.maxLagFrames).toBe(expectedLag[i]);
       expect(pair.delaySeconds * fs).toBeCloseTo(expectedLag[i]!, 2);
-      // lag limit: spacing / c plus 2 frames of margin (as the locate pipeline), whole frames
+      // search limit: spacing / c plus 2 frames of margin (as the locate pipeline); the plot reaches 1.5 times further
       const spacing = [1, 2.5, 1.5][i]!;
       expect(pair.spacingLimitSeconds).toBeCloseTo(spacing / 343, 12);
-      expect(pair.maxLagFrames).toBe(Math.floor((spacing / 343 + 2 / fs) * fs));
+      expect(pair.searchLimitSeconds).toBeCloseTo(spacing / 343 + 2 / fs, 12);
+      expect(pair.maxLagFrames).toBe(Math.floor(1.5 * (spacing / 343 + 2 / fs) * fs + 1e-9));
       expect(pair.values.length).toBe(2 * pair.maxLagFrames + 1);
       // a copy: the peak comes near its largest possible value, 1 (gccEngine.lastCorrelation normalisation); the engine's
       // linear (zero-padded) correlation sees the wrapped D of 8192 samples as mismatch, so a little less than 1
@@ -68,12 +69,13 @@ describe('correlationPlots()', () => {
     near(w!.halfMaxWidthSeconds! * 1e6, 20.833);
     near(b!.halfMaxWidthSeconds! * 1e6, 53.531);
     near(l!.halfMaxWidthSeconds! * 1e6, 125.72);
-    near(w!.timingPrecisionSeconds! * 1e6, 11.76);
-    near(b!.timingPrecisionSeconds! * 1e6, 26.048);
-    near(l!.timingPrecisionSeconds! * 1e6, 58.92);
-    // sharper autocorrelation, more precise delay
-    expect(w!.timingPrecisionSeconds!).toBeLessThan(b!.timingPrecisionSeconds!);
-    expect(b!.timingPrecisionSeconds!).toBeLessThan(l!.timingPrecisionSeconds!);
+    near(w!.lobeScaleSeconds! * 1e6, 11.76);
+    near(b!.lobeScaleSeconds! * 1e6, 26.048);
+    near(l!.lobeScaleSeconds! * 1e6, 58.92);
+    // sharper autocorrelation, more precise delay: at one SNR, window and band the expected σ scales with the lobe
+    const sigma = (lobe: number) => expectedDelaySigmaSeconds(lobe, 0.1, 20_000, 10);
+    expect(sigma(w!.lobeScaleSeconds!)).toBeLessThan(sigma(b!.lobeScaleSeconds!));
+    expect(sigma(b!.lobeScaleSeconds!)).toBeLessThan(sigma(l!.lobeScaleSeconds!));
     // every channel shares one lag axis: 8 of the widest half-max widths (0-4 kHz: 6.03 frames -> 49 lags)
     for (const plot of plots.autocorrelations) {
       expect(plot.values.length).toBe(Math.ceil(8 * l!.halfMaxWidthSeconds! * fs) + 1);
@@ -81,11 +83,39 @@ describe('correlationPlots()', () => {
     }
   });
 
+  it('expectedDelaySigmaSeconds() is the flat-spectrum CRLB of Carter (1987)', () => {
+    // σ² = 3(1 + 2s) / (8π² T s² (f2³ − f1³)) for flat signal and noise over f1..f2 (Carter 1987, Proc. IEEE 75(2), from
+    // memory); with f_rms² = (f2³ − f1³) / (3B) the lobe scale is 1/(2π f_rms)
+    const [f1, f2, T, s] = [1000, 6000, 0.05, 4];
+    const fRms = Math.sqrt((f2 ** 3 - f1 ** 3) / (3 * (f2 - f1)));
+    const expected = Math.sqrt((3 * (1 + 2 * s)) / (8 * Math.PI ** 2 * T * s * s * (f2 ** 3 - f1 ** 3)));
+    expect(expectedDelaySigmaSeconds(1 / (2 * Math.PI * fRms), T, f2 - f1, s)).toBeCloseTo(expected, 15);
+  });
+
+  it('states an expected precision that matches the spread of measured delays (plain GCC, white noise at -10 dB SNR)', () => {
+    // The CRLB is reached by the plain cross-correlation for flat spectra above the threshold SNR (Carter 1987, from
+    // memory); 40 seeded trials, each a pair of 4096 frames with a fractional delay: the RMS error within a factor 1.5.
+    const errors: number[] = [];
+    const expected: number[] = [];
+    for (let trial = 0; trial < 40; trial++) {
+      const delaySamples = 3 + 0.37 * (trial % 3);
+      const { a, b } = delayedNoisePair({ lengthFrames: 4096, delaySamples, seed: 500 + trial, snrDb: -10 });
+      const plots = correlationPlots([Float32Array.from(a), Float32Array.from(b)], ['a', 'b'], [line(0), line(1)], 343, fs, { lowHz: 100, highHz: 23_900 }, 'plain');
+      errors.push(plots.pairs[0]!.delaySeconds - delaySamples / fs);
+      expected.push(plots.autocorrelations[0]!.timingPrecisionSeconds!);
+    }
+    const rmsError = Math.sqrt(errors.reduce((sum, e) => sum + e * e, 0) / errors.length);
+    const meanExpected = expected.reduce((sum, e) => sum + e, 0) / expected.length;
+    expect(rmsError / meanExpected).toBeGreaterThan(1 / 1.5);
+    expect(rmsError / meanExpected).toBeLessThan(1.5);
+  });
+
   it('gives a silent channel an empty autocorrelation instead of failing', () => {
     const noise = whiteNoise(4096, 8);
     const plots = correlationPlots([Float32Array.from(noise), new Float32Array(4096)], ['live', 'dead'], [line(0), line(1)], 343, fs, band, 'phat');
     expect(plots.autocorrelations[1]!.halfMaxWidthSeconds).toBeNull();
     expect(plots.autocorrelations[1]!.timingPrecisionSeconds).toBeNull();
+    expect(plots.autocorrelations[1]!.lobeScaleSeconds).toBeNull();
     expect(Math.max(...plots.autocorrelations[1]!.values)).toBe(0);
   });
 

@@ -20,9 +20,11 @@ describe('planSpectrogram()', () => {
     expect(plan.fftSizePoints).toBe(512);
     expect(plan.binCount).toBe(257);
     expect(plan.columnCount).toBe(1000);
-    expect(plan.columnStartFrames[1]! - plan.columnStartFrames[0]!).toBe(480);
-    // column 0 is centred on frame 5 s + 240 frames
-    expect(plan.columnStartFrames[0]!).toBe(5 * fs + 240 - 256);
+    // columns of 480 frames hold ceil(480 / 256) = 2 windows, centred at 1/4 and 3/4 of the column
+    expect(plan.windowsPerColumn).toBe(2);
+    expect(plan.windowStartFrames[0]!).toBe(5 * fs + 120 - 256);
+    expect(plan.windowStartFrames[1]!).toBe(5 * fs + 360 - 256);
+    expect(plan.windowStartFrames[2]! - plan.windowStartFrames[0]!).toBe(480);
   });
 
   it('shortens the FFT for a short span and never has more columns than frames', () => {
@@ -30,6 +32,7 @@ describe('planSpectrogram()', () => {
     const plan = planSpectrogram({ startSeconds: 1, endSeconds: 1.02, widthPixels: 1440, heightPixels: 400 }, fs);
     expect(plan.fftSizePoints).toBe(64);
     expect(plan.columnCount).toBe(960);
+    expect(plan.windowsPerColumn).toBe(1);
   });
 
   it('refuses an empty span or a size of zero pixels', () => {
@@ -72,6 +75,18 @@ describe('computeSpectrogram()', () => {
       expect(peakHz).toBeGreaterThanOrEqual(previous);
       previous = peakHz;
     }
+  });
+
+  it('shows a click shorter than a column, in that column only (the loudest of the column\'s windows)', () => {
+    // 1 s over 50 px: 960-frame columns; 128 rows -> 256 points; ceil(960 / 128) = 8 windows, 120 frames apart, cover it all
+    const signal = new Float32Array(fs);
+    const clickAt = 24_000 + 517; // inside column 25 (frames 24000..24959), between window centres
+    for (let i = -40; i <= 40; i++) signal[clickAt + i] = Math.exp(-0.5 * (i / 8) ** 2) * Math.cos(2 * Math.PI * 0.2 * i);
+    const spectrogram = computeSpectrogram([signal], 0, fs, { startSeconds: 0, endSeconds: 1, widthPixels: 50, heightPixels: 128 });
+    const columnPeak = (column: number) => Math.max(...spectrogram.decibels.subarray(column * spectrogram.binCount, (column + 1) * spectrogram.binCount));
+    expect(columnPeak(25)).toBeGreaterThan(-40);
+    expect(columnPeak(10)).toBe(-200);
+    expect(columnPeak(40)).toBe(-200);
   });
 
   it('averages power over channels and treats frames outside the data as silence', () => {

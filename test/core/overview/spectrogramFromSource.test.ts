@@ -26,6 +26,9 @@ describe('spectrogramFromSource()', () => {
     // only the whole read carries the exact per-pixel detail of every channel
     expect(whole.detail).toEqual(detailEnvelope(channels, 0, fs, 0.5, 2.5, 120));
     expect(perColumn.detail).toBeUndefined();
+    // wide columns (12000 frames, 8 windows spread over each) are read one window at a time: still the same levels
+    const wide = { startSeconds: 0, endSeconds: 3, widthPixels: 4, heightPixels: 64 };
+    expect((await spectrogramFromSource(source, info, wide, { contiguousLimitFrames: 100 })).decibels).toEqual(computeSpectrogram(channels, 0, fs, wide).decibels);
   });
 
   it('averages only the channels asked for, and zero-pads past the end of the recording', async () => {

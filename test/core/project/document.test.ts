@@ -32,8 +32,12 @@ function thrown(action: () => unknown): WhenceError {
   throw new Error('expected a WhenceError, nothing was thrown');
 }
 
-function edited(change: (data: Record<string, any>) => void): string {
-  const data = JSON.parse(fixtureText) as Record<string, any>;
+// The fixture as loosely typed JSON, to be damaged on purpose.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type LooseJson = Record<string, any>;
+
+function edited(change: (data: LooseJson) => void): string {
+  const data = JSON.parse(fixtureText) as LooseJson;
   change(data);
   return JSON.stringify(data);
 }

@@ -10,6 +10,8 @@ const speedMetersPerSecond = 343;
 const planeUpMeters = 1.5;
 const timingSigmaSeconds = 1e-4;
 
+// ?array=8 adds two microphones and draws every pair of call 1 (28 hyperbolae), the drag-speed case of the brief.
+const eightMicrophones = new URLSearchParams(window.location.search).get('array') === '8';
 const surveyedArray: MapMicrophone[] = [
   { label: 'M1', channel: 1, eastMeters: 0, northMeters: 0, upMeters: 1.5 },
   { label: 'M2', channel: 2, eastMeters: 38, northMeters: 4, upMeters: 1.5 },
@@ -17,7 +19,19 @@ const surveyedArray: MapMicrophone[] = [
   { label: 'M4', channel: 4, eastMeters: 30, northMeters: 62, upMeters: 1.5 },
   { label: 'M5', channel: 5, eastMeters: -6, northMeters: 50, upMeters: 1.5 },
   { label: 'M6', channel: 6, eastMeters: 20, northMeters: 28, upMeters: 1.5 },
+  ...(eightMicrophones
+    ? [
+        { label: 'M7', channel: 7, eastMeters: 64, northMeters: 8, upMeters: 1.5 },
+        { label: 'M8', channel: 8, eastMeters: -20, northMeters: 18, upMeters: 1.5 },
+      ]
+    : []),
 ];
+
+function everyPair(count: number): Array<[number, number, number]> {
+  const pairs: Array<[number, number, number]> = [];
+  for (let a = 0; a < count; a += 1) for (let b = a + 1; b < count; b += 1) pairs.push([a, b, ((a * 7 + b * 3) % 10) / 9]);
+  return pairs;
+}
 
 interface HarnessEvent {
   id: string;
@@ -42,7 +56,11 @@ const events: HarnessEvent[] = [
   {
     id: 'call-1',
     label: 'call 1',
-    pairs: measuredPairs([31, 19], [[0, 1, 0.95], [0, 2, 0.85], [0, 3, 0.7], [0, 4, 0.55], [0, 5, 0.9], [1, 3, 0.35], [2, 4, 0.12]], 11),
+    pairs: measuredPairs(
+      [31, 19],
+      eightMicrophones ? everyPair(8) : [[0, 1, 0.95], [0, 2, 0.85], [0, 3, 0.7], [0, 4, 0.55], [0, 5, 0.9], [1, 3, 0.35], [2, 4, 0.12]],
+      11,
+    ),
   },
   { id: 'call-2', label: 'call 2', pairs: measuredPairs([95, 80], [[0, 1, 0.8], [0, 2, 0.6]], 12) },
 ];
@@ -92,7 +110,11 @@ function Harness() {
   const [showOverlay, setShowOverlay] = useState(true);
   const [editable, setEditable] = useState(true);
 
-  const fixes = useMemo(() => events.map((event) => solve(event, microphones, event.id === selectedId)), [microphones, selectedId]);
+  // A fix the solver could not place (no position) is not drawn.
+  const fixes = useMemo(
+    () => events.map((event) => solve(event, microphones, event.id === selectedId)).filter((fix) => Number.isFinite(fix.eastMeters)),
+    [microphones, selectedId],
+  );
   const hyperbolae = useMemo(() => events.find((event) => event.id === selectedId)?.pairs ?? [], [selectedId]);
   const [overlay, setOverlay] = useState(() => precisionOverlay(surveyedArray));
   // The precision map is a planning aid: recomputed once the array has stopped moving, not on every drag step.

@@ -16,24 +16,28 @@ const speedMetersPerSecond = 343;
 const band = { lowHz: 500, highHz: 12_000 };
 const weighting = 'phat' as const;
 
-const microphones = [
+const allMicrophones = [
   { label: 'North post', eastMeters: 2, northMeters: 31, upMeters: 1.5 },
   { label: 'Oak', eastMeters: 27, northMeters: 18, upMeters: 2.0 },
   { label: 'Fence east', eastMeters: 29, northMeters: -9, upMeters: 1.2 },
   { label: 'Gate', eastMeters: 1, northMeters: -24, upMeters: 1.5 },
   { label: 'Reed bed', eastMeters: -26, northMeters: -12, upMeters: 0.8 },
   { label: 'Hide', eastMeters: -24, northMeters: 15, upMeters: 2.5 },
+  { label: 'Willow', eastMeters: 14, northMeters: 4, upMeters: 3.0 },
+  { label: 'Pond edge', eastMeters: -10, northMeters: -2, upMeters: 0.5 },
 ];
+/** ?channels=N (2..8, default 6). */
+const microphones = allMicrophones.slice(0, Math.max(2, Math.min(8, Number(params.get('channels') ?? 6))));
 
 type Kind = 'click' | 'call' | 'burst' | 'clicks' | 'hoot';
 interface SourceEvent { kind: Kind; emitSeconds: number; east: number; north: number; level: number; status?: string }
 
 const sourceEvents: SourceEvent[] = [
-  { kind: 'click', emitSeconds: 3.2, east: 60, north: 40, level: 6, status: 'ok' },
-  { kind: 'call', emitSeconds: 8.5, east: -35, north: 70, level: 9, status: 'ok' },
-  { kind: 'burst', emitSeconds: 15.0, east: 10, north: -80, level: 5, status: 'ambiguous' },
-  { kind: 'call', emitSeconds: 22.3, east: 45, north: -30, level: 6, status: 'ok' },
-  { kind: 'clicks', emitSeconds: 30.7, east: -50, north: -45, level: 5 },
+  { kind: 'click', emitSeconds: 3.2, east: 60, north: 40, level: 30, status: 'ok' },
+  { kind: 'call', emitSeconds: 8.5, east: -35, north: 70, level: 12, status: 'ok' },
+  { kind: 'burst', emitSeconds: 15.0, east: 10, north: -80, level: 14, status: 'ambiguous' },
+  { kind: 'call', emitSeconds: 22.3, east: 45, north: -30, level: 8, status: 'ok' },
+  { kind: 'clicks', emitSeconds: 30.7, east: -50, north: -45, level: 20 },
   { kind: 'hoot', emitSeconds: 35.6, east: 5, north: 5, level: 1.2, status: 'insufficient' },
 ];
 
@@ -161,12 +165,14 @@ function Harness() {
       sampleFormat: 'ieee-float',
       bext: { description: 'Harness dawn', originator: 'harness', originationDate: '2026-05-03', originationTime: '05:12:00', timeReferenceFrames: (5 * 3600 + 12 * 60) * sampleRateHz },
     });
-    const source = memoryByteSource(bytes, 'harness-dawn-6ch.wav');
+    const source = memoryByteSource(bytes, `harness-dawn-${microphones.length}ch.wav`);
     void readWavInfo(source).then(async (info) => {
       if (stopped) return;
       setLoaded({ synth, source, info });
       const pyramid = await envelopeFromSource(source, info, {
         blockFrames: 1 << 17,
+        // ?bucket=N forces a coarse overview, to see the exact detail that comes with the spectrogram at deep zoom
+        baseBucketFrames: params.has('bucket') ? Number(params.get('bucket')) : undefined,
         onProgress: (f) => setProgress(f),
       });
       if (!stopped) setEnvelope(pyramid);

@@ -137,7 +137,7 @@ describe('createHostServices(): projects', () => {
   });
 
   it('keeps unsaved work in the recovery copy, gives it back once, and drops it once that work is saved', async () => {
-    const { services, folder, userData } = setUp([], ['p.whence']);
+    const { services, userData } = setUp([], ['p.whence']);
     const document = emptyProjectDocument('unsaved');
     await services.writeRecoveryCopy(document, '/old/place.whence');
     expect(await services.takeRecoveryCopy()).toMatchObject({ document: { name: 'unsaved' }, projectPath: '/old/place.whence', savedAtIso: '2024-05-14T22:00:00.000Z' });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { PairCorrelationPlot } from '../../../core/overview';
 import { pairPlotShape } from '../../../renderer/correlations/pairPlotShape';
 import { lagAxisTicks } from '../../../renderer/correlations/lagAxis';
-import { formatShortDuration } from '../../../renderer/correlations/plotFormat';
+import { formatShortDuration, formatSnrDb } from '../../../renderer/correlations/plotFormat';
 
 const box = { widthPixels: 220, heightPixels: 100, left: 10, right: 10, top: 5, bottom: 15 };
 
@@ -25,8 +25,8 @@ describe('pairPlotShape()', () => {
     expect(shape.spacingBand!.x1).toBeCloseTo(110 + 2 * 20, 9);
     // ±σ = ±0.5 ms = ±10 px
     expect(shape.sigmaBar.x1 - shape.sigmaBar.x0).toBeCloseTo(20, 9);
-    // y: top of the range is 1.1 × the largest value; the peak value at lag 1.1 interpolates 0.9 → 0.4
-    const top = 0.9 * 1.1;
+    // y: top of the range is 1.25 × the largest value; the peak value at lag 1.1 interpolates 0.9 → 0.4
+    const top = 0.9 * 1.25;
     const bottom = -0.1 * top;
     const expectedY = 5 + ((top - (0.9 * 0.9 + 0.4 * 0.1)) / (top - bottom)) * 80;
     expect(shape.peak.y).toBeCloseTo(expectedY, 9);
@@ -44,7 +44,7 @@ describe('pairPlotShape()', () => {
     const points = shape.curvePath.split(/[ML]/).filter((s) => s.trim() !== '');
     expect(points.length).toBe(2 * 200);
     const ys = points.map((p) => Number(p.trim().split(' ')[1]));
-    const top = 1.1;
+    const top = 1.25;
     const bottom = Math.min(-0.01 * 1.1, -0.1 * top);
     // the single-lag spike still reaches y(1)
     expect(Math.min(...ys)).toBeCloseTo(5 + ((top - 1) / (top - bottom)) * 80, 1);
@@ -66,8 +66,14 @@ describe('lagAxisTicks() and formatShortDuration()', () => {
     const milli = lagAxisTicks(-0.012, 0.012, 220, x);
     expect(milli.unit).toBe('ms');
     expect(milli.ticks.map((t) => t.label)).toEqual(['−10', '0', '10']);
+    // labels that would cross the plot's edges are left out
+    const edged = lagAxisTicks(-0.0004, 0.0004, 220, (s) => 110 + s * 250_000, { leftPixels: 0, rightPixels: 220 });
+    expect(edged.ticks.map((t) => t.label)).toEqual(['−200', '0', '200']);
     expect(formatShortDuration(4.2e-6)).toBe('4.2 µs');
     expect(formatShortDuration(-0.00073125, true)).toBe('−731 µs');
     expect(formatShortDuration(0.00125, true)).toBe('+1.250 ms');
+    expect(formatShortDuration(1.34e-7)).toBe('0.13 µs');
+    expect(formatSnrDb(-7.4)).toBe('−7 dB');
+    expect(formatSnrDb(-60)).toBe('≤ −60 dB');
   });
 });
