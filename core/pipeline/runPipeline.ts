@@ -60,11 +60,11 @@ export function scanSpanFrames(recording: RecordingAccess, fromSeconds: number |
   const { sampleRateHz, frameCount, durationSeconds } = recording.info;
   const from = fromSeconds ?? 0;
   const to = toSeconds ?? durationSeconds;
-  if (!(from >= 0) || !(to > from)) {
-    throw new WhenceError('bad-span', `the span to scan must start at 0 s or later and end after it starts; got ${from} s to ${to} s.`);
-  }
   if (from >= durationSeconds) {
     throw new WhenceError('bad-span', `the span starts at ${from} s but ${recording.name} lasts ${durationSeconds.toFixed(3)} s.`);
+  }
+  if (!(from >= 0) || !(to > from)) {
+    throw new WhenceError('bad-span', `the span to scan must start at 0 s or later and end after it starts; got ${from} s to ${to} s.`);
   }
   return { startFrame: Math.floor(from * sampleRateHz), endFrame: Math.min(frameCount, Math.ceil(to * sampleRateHz)) };
 }

@@ -34,19 +34,23 @@ export interface WriteSceneWavResult {
 }
 
 function countClipped(channels: readonly Float32Array[], frames: number, spec: WavWriteSpec): { clipped: number; peak: number } {
-  let clipped = 0;
-  let peak = 0;
   const half = 2 ** (spec.bitsPerSample - 1);
   // round(x * half) leaves -half .. half - 1 exactly when -half - 0.5 <= x * half < half - 0.5.
   const high = (half - 0.5) / half;
   const low = (-half - 0.5) / half;
-  const integer = spec.sampleFormat === 'pcm-int';
+  let clipped = 0;
+  let peak = 0;
   for (const channel of channels) {
+    let largest = 0;
+    let smallest = 0;
     for (let i = 0; i < frames; i++) {
       const x = channel[i];
-      const magnitude = Math.abs(x);
-      if (magnitude > peak) peak = magnitude;
-      if (integer && (x >= high || x < low)) clipped++;
+      largest = Math.max(largest, x);
+      smallest = Math.min(smallest, x);
+    }
+    peak = Math.max(peak, largest, -smallest);
+    if (spec.sampleFormat === 'pcm-int' && (largest >= high || smallest < low)) {
+      for (let i = 0; i < frames; i++) if (channel[i] >= high || channel[i] < low) clipped++;
     }
   }
   return { clipped, peak };

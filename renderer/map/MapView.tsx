@@ -6,6 +6,7 @@ import type Konva from 'konva';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { Circle, Group, Image as KonvaImage, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import { WhenceError } from '../../core/errors';
+import { LABEL_OFFSET_PIXELS, type LabelBox } from './curveLabels';
 import { fixShapes, type FixShape } from './fixShapes';
 import { mapGrid } from './gridLines';
 import { hyperbolaShapes } from './hyperbolaShapes';
@@ -32,6 +33,17 @@ const micRadiusPixels = 6.5;
 const gridLabelClearRightPixels = 150;
 const gridLabelClearBottomPixels = 80;
 const emptyBounds: MapBounds = { minEastMeters: -50, maxEastMeters: 50, minNorthMeters: -50, maxNorthMeters: 50 };
+
+/** Where the floating panels cover the map (toolbar and north arrow, scale box, legend), for label placement. */
+function panelBoxes(scale: MapScale): LabelBox[] {
+  const w = scale.widthPixels;
+  const h = scale.heightPixels;
+  return [
+    { xPixels: w - 150, yPixels: 0, widthPixels: 150, heightPixels: 110 },
+    { xPixels: 0, yPixels: h - 80, widthPixels: 230, heightPixels: 80 },
+    { xPixels: w - 275, yPixels: h - 120, widthPixels: 275, heightPixels: 120 },
+  ];
+}
 
 function fitPadding(widthPixels: number, heightPixels: number): number {
   return Math.max(36, Math.round(0.08 * Math.min(widthPixels, heightPixels)));
@@ -91,7 +103,7 @@ export function MapView(props: MapViewProps) {
   // View-models: each recomputed only when its own inputs change.
   const grid = useMemo(() => (scale ? mapGrid(scale) : null), [scale]);
   const curves = useMemo(
-    () => (scale ? hyperbolaShapes(microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale) : []),
+    () => (scale ? hyperbolaShapes(microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale, { labelAvoid: panelBoxes(scale) }) : []),
     [microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale],
   );
   const markers = useMemo(() => (scale ? microphoneMarkers(microphones, scale) : []), [microphones, scale]);
@@ -431,8 +443,8 @@ export function MapView(props: MapViewProps) {
                 curve.labelAt === undefined ? null : (
                   <Text
                     key={`label/${curve.key}`}
-                    x={curve.labelAt.xPixels + 4}
-                    y={curve.labelAt.yPixels + 2}
+                    x={curve.labelAt.xPixels + LABEL_OFFSET_PIXELS.x}
+                    y={curve.labelAt.yPixels + LABEL_OFFSET_PIXELS.y}
                     text={curve.pairLabel}
                     fontSize={11}
                     fill={curve.colour}

@@ -3,6 +3,7 @@
 
 import { WhenceError } from '../../core/errors';
 import { hyperbolaBranch } from '../../core/locate';
+import { placeCurveLabels, type LabelBox } from './curveLabels';
 import type { MapScale } from './mapScale';
 import { qualityColour, qualityStrokePixels } from './qualityColour';
 import type { MapHyperbola, MapMicrophone } from './types';
@@ -18,7 +19,7 @@ export interface HyperbolaShape {
   strokePixels: number;
   /** Flat [x0, y0, x1, y1, ...] pixel polylines (Konva Line points); a single point has one pair. */
   polylinesPixels: number[][];
-  /** Where to write the pair label: on the longest polyline, the first point from its start at least the label inset inside the view. */
+  /** Where to write the pair label: where the curve enters the view, inset from the edge, clear of other labels. */
   labelAt?: { xPixels: number; yPixels: number };
   /** Why less than a curve is drawn, in words for the user. */
   note?: string;
@@ -29,14 +30,8 @@ export interface HyperbolaShapeOptions {
   marginPixels?: number;
   /** Labels sit at least this far inside the view edges (default 28 px). */
   labelInsetPixels?: number;
-}
-
-/** The first point of the polyline, walking from its start (then from its end), inside the view by `inset` pixels. */
-function labelPoint(flat: readonly number[], scale: MapScale, inset: number): { xPixels: number; yPixels: number } | undefined {
-  const inside = (k: number): boolean =>
-    flat[k] >= inset && flat[k] <= scale.widthPixels - inset && flat[k + 1] >= inset && flat[k + 1] <= scale.heightPixels - inset;
-  for (let k = 0; k < flat.length; k += 2) if (inside(k)) return { xPixels: flat[k], yPixels: flat[k + 1] };
-  return undefined;
+  /** Screen boxes labels keep clear of (panels over the map). */
+  labelAvoid?: readonly LabelBox[];
 }
 
 /**
@@ -52,7 +47,7 @@ export function hyperbolaShapes(
   options: HyperbolaShapeOptions = {},
 ): HyperbolaShape[] {
   const bounds = scale.bounds(options.marginPixels ?? 8);
-  return hyperbolae.map((pair, k) => {
+  const shapes = hyperbolae.map((pair, k) => {
     const micA = microphones[pair.indexA];
     const micB = microphones[pair.indexB];
     const name = (mic: MapMicrophone | undefined, index: number): string => mic?.label || `#${index + 1}`;
@@ -80,9 +75,6 @@ export function hyperbolaShapes(
         }
         return flat;
       });
-      const longest = shape.polylinesPixels.reduce<number[] | null>((best, p) => (best === null || p.length > best.length ? p : best), null);
-      const labelAt = longest === null ? undefined : labelPoint(longest, scale, options.labelInsetPixels ?? 28);
-      if (labelAt !== undefined) shape.labelAt = labelAt;
       if (branch.note !== undefined) shape.note = branch.note;
     } catch (error) {
       if (!(error instanceof WhenceError)) throw error;
@@ -90,4 +82,12 @@ export function hyperbolaShapes(
     }
     return shape;
   });
+  const anchors = placeCurveLabels(
+    shapes.map((shape) => ({ text: shape.pairLabel, polylinesPixels: shape.polylinesPixels, priority: Number.isFinite(shape.quality) ? shape.quality : 0 })),
+    { widthPixels: scale.widthPixels, heightPixels: scale.heightPixels, insetPixels: options.labelInsetPixels ?? 28, avoid: options.labelAvoid },
+  );
+  anchors.forEach((anchor, k) => {
+    if (anchor !== undefined) shapes[k].labelAt = anchor;
+  });
+  return shapes;
 }

@@ -382,7 +382,12 @@ export function RecordingView(props: RecordingViewProps) {
       <div className="rv-status">
         <span>View {formatSpan(view.startSeconds, view.endSeconds, duration)}</span>
         {chosenSelection && <span>Selection {formatSpan(chosenSelection.startSeconds, chosenSelection.endSeconds, duration)}</span>}
-        {coarse && <span className="rv-note">Zoomed past the overview’s {formatSeconds(baseBucketSeconds)} resolution; the exact waveform comes with the spectrogram.</span>}
+        {coarse && (
+          <span className="rv-note">
+            Zoomed past the overview’s {formatSeconds(baseBucketSeconds)} resolution;{' '}
+            {showSpectrogram ? 'the exact waveform comes with the spectrogram.' : 'turn the spectrogram on to fetch the exact waveform.'}
+          </span>
+        )}
         <span className="rv-hover">{hoverText}</span>
       </div>
 

@@ -1,0 +1,55 @@
+// Benchmark: `whence locate` (the bundled command line, with its worker threads) on generated 8-channel, 48 kHz,
+// 24-bit recordings of 1 and 10 minutes with about one sound every 10 s: wall time, real-time factor, events per
+// second and peak RSS (GNU time), so the scaling from 1 to 10 minutes shows.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { SceneSource, SceneSpec } from '../core/simulate';
+import { writeSceneWav } from '../main/simulate';
+
+const microphones: Array<[number, number, number]> = [[0, 0, 1.2], [45, 0, 1.6], [50, 42, 2.1], [4, 46, 1.0], [24, 22, 2.6], [-12, 22, 1.8], [26, -8, 1.4], [28, 50, 1.9]];
+
+function scene(durationSeconds: number): SceneSpec {
+  const sources: SceneSource[] = [];
+  for (let t = 2, i = 0; t < durationSeconds - 2; t += 10, i++) {
+    const east = 5 + ((i * 17) % 40);
+    const north = 5 + ((i * 29) % 40);
+    const base = { id: `s${i}`, eastMeters: east, northMeters: north, upMeters: 1, emissionTimeSeconds: t, levelDb: -10 };
+    sources.push(i % 2 === 0
+      ? { ...base, kind: 'fm-call', durationSeconds: 0.2, startFrequencyHz: 2000, endFrequencyHz: 4000 }
+      : { ...base, kind: 'click', peakFrequencyHz: 5000, ringFrequencyHz: 2800, ringDecaySeconds: 0.004, ringLevelDb: -3 });
+  }
+  return {
+    sampleRateHz: 48_000, durationSeconds, seed: 5, speedMetersPerSecond: 343,
+    microphones: microphones.map(([e, n, u], i) => ({ label: `M${i + 1}`, channel: i + 1, eastMeters: e, northMeters: n, upMeters: u })),
+    groundUpMeters: 0, sources,
+    background: { noiseLevelDb: -56, noiseColor: 'pink', wind: { levelDb: -46 } },
+  };
+}
+
+const folder = mkdtempSync(join(tmpdir(), 'whence-bench-locate-'));
+try {
+  spawnSync(process.execPath, ['scripts/build.mjs', 'cli'], { stdio: 'inherit' });
+  const arrayPath = join(folder, 'array.csv');
+  writeFileSync(arrayPath, 'channel,label,x_m,y_m,z_m,sigma_m\n' + microphones.map(([e, n, u], i) => `${i + 1},M${i + 1},${e},${n},${u},0.02`).join('\n') + '\n');
+  console.log('locate: whence locate on 8-channel 48 kHz 24-bit recordings, one sound per 10 s (workers: cores - 1)');
+  for (const minutes of [1, 10]) {
+    const spec = scene(minutes * 60);
+    const recordingPath = join(folder, `bench-${minutes}min.wav`);
+    const written = await writeSceneWav(spec, recordingPath, { bitsPerSample: 24 });
+    const outPath = join(folder, `bench-${minutes}min.csv`);
+    const started = process.hrtime.bigint();
+    const run = spawnSync('/usr/bin/time', ['-f', 'maxrss_kb=%M', process.execPath, 'dist/cli/whence.mjs', 'locate', recordingPath, '--array', arrayPath, '--sound-speed', '343', '--height', '1', '--out', outPath], { encoding: 'utf8' });
+    const wallSeconds = Number(process.hrtime.bigint() - started) / 1e9;
+    if (run.status !== 0) { console.log(run.stderr); process.exitCode = 1; continue; }
+    const maxRssKb = Number(/maxrss_kb=(\d+)/.exec(run.stderr)?.[1] ?? Number.NaN);
+    const rows = readFileSync(outPath, 'utf8').split('\n').filter((line) => line !== '' && !line.startsWith('#')).length - 1;
+    const ok = readFileSync(outPath, 'utf8').split('\n').filter((line) => /^\d+,ok,/.test(line)).length;
+    const audioSeconds = written.frameCount / written.sampleRateHz;
+    console.log(`  ${String(minutes).padStart(2)} min (${(written.fileLengthBytes / 1048576).toFixed(0)} MB, ${spec.sources.length} sounds): ${wallSeconds.toFixed(2)} s wall, ${(audioSeconds / wallSeconds).toFixed(0)}x real time, ${(rows / wallSeconds).toFixed(1)} events/s, ${rows} events (${ok} ok), peak RSS ${(maxRssKb / 1024).toFixed(0)} MB`);
+    rmSync(recordingPath);
+  }
+} finally {
+  rmSync(folder, { recursive: true, force: true });
+}

@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+import { curveEntryPoint, LABEL_OFFSET_PIXELS, placeCurveLabels } from '../../../renderer/map/curveLabels';
+
+const box = { minX: 20, maxX: 380, minY: 20, maxY: 280 };
+
+describe('curveEntryPoint()', () => {
+  it('curveEntryPoint() finds where a segment crosses into the inner box, not the next vertex', () => {
+    // A straight line from below the view up to its middle, sampled only at its ends (as along an asymptote).
+    const flat = [100, 310, 100, 150];
+    expect(curveEntryPoint(flat, false, box)).toEqual({ xPixels: 100, yPixels: 280 });
+    // Walking from the other end, the first point is already inside.
+    expect(curveEntryPoint(flat, true, box)).toEqual({ xPixels: 100, yPixels: 150 });
+    const diagonal = [-10, -10, 90, 90];
+    expect(curveEntryPoint(diagonal, false, box)).toEqual({ xPixels: 20, yPixels: 20 });
+  });
+
+  it('curveEntryPoint() returns undefined for a curve that never enters the box', () => {
+    expect(curveEntryPoint([0, 0, 10, 500], false, box)).toBeUndefined();
+  });
+});
+
+describe('placeCurveLabels()', () => {
+  const options = { widthPixels: 400, heightPixels: 300, insetPixels: 20 };
+
+  it('placeCurveLabels() gives the better curve the first place and moves a clashing label to the other end', () => {
+    const line = [150, 310, 150, -10];
+    const anchors = placeCurveLabels(
+      [
+        { text: 'M1–M2', polylinesPixels: [line], priority: 0.2 },
+        { text: 'M3–M4', polylinesPixels: [line], priority: 0.9 },
+      ],
+      options,
+    );
+    expect(anchors[1]).toEqual({ xPixels: 150, yPixels: 280 }); // higher quality placed first, at the start
+    expect(anchors[0]).toEqual({ xPixels: 150, yPixels: 20 }); // same start taken: the other end
+  });
+
+  it('placeCurveLabels() leaves a curve unlabelled when both ends are taken or covered', () => {
+    const line = [150, 310, 150, -10];
+    const anchors = placeCurveLabels(
+      [
+        { text: 'a', polylinesPixels: [line], priority: 3 },
+        { text: 'b', polylinesPixels: [line], priority: 2 },
+        { text: 'c', polylinesPixels: [line], priority: 1 },
+      ],
+      options,
+    );
+    expect(anchors[2]).toBeUndefined();
+    const covered = placeCurveLabels([{ text: 'd', polylinesPixels: [line], priority: 1 }], {
+      ...options,
+      avoid: [{ xPixels: 100, yPixels: 0, widthPixels: 100, heightPixels: 300 }],
+    });
+    expect(covered[0]).toBeUndefined();
+  });
+
+  it('placeCurveLabels() keeps label boxes apart', () => {
+    const requests = Array.from({ length: 12 }, (_, k) => ({ text: `M${k}–M${k + 1}`, polylinesPixels: [[40 + 25 * k, 320, 200, 150]], priority: k / 12 }));
+    const anchors = placeCurveLabels(requests, options).filter((a) => a !== undefined);
+    expect(anchors.length).toBeGreaterThan(3);
+    const boxes = anchors.map((a) => ({ x: a.xPixels + LABEL_OFFSET_PIXELS.x, y: a.yPixels + LABEL_OFFSET_PIXELS.y }));
+    for (let i = 0; i < boxes.length; i += 1) {
+      for (let j = i + 1; j < boxes.length; j += 1) {
+        const apart = Math.abs(boxes[i].x - boxes[j].x) >= 6.5 * 7 + 4 || Math.abs(boxes[i].y - boxes[j].y) >= 14;
+        expect(apart).toBe(true);
+      }
+    }
+  });
+});
