@@ -6,9 +6,10 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { formatCsv } from '../../core/csv';
 import { enuToGeodetic } from '../../core/geo';
 import { sceneTruth } from '../../core/simulate';
+import { serializeProjectDocument, type ProjectDocument } from '../../core/project';
 import { writeFileAtomic } from '../../main/files';
 import { writeSceneWav } from '../../main/simulate';
-import { DEMO_SCENE, DEMO_SITE } from './scenario';
+import { DEMO_MICROPHONES, DEMO_SCENE, DEMO_SITE } from './scenario';
 
 export const DEMO_FILES = Object.freeze({
   recording: 'demo-recording.wav',
@@ -16,6 +17,7 @@ export const DEMO_FILES = Object.freeze({
   arrayLocal: 'demo-array-local.csv',
   truth: 'demo-truth.csv',
   delays: 'demo-delays.csv',
+  project: 'demo-project.whence',
 });
 
 const NOTE = 'Invented demo data (core/simulate); not a measurement.';
@@ -67,6 +69,26 @@ export function demoDelaysCsv(): string {
   ]);
 }
 
+/**
+ * The demo project the app opens on start: the array with its WGS84 origin, the morning's air, and settings for
+ * 2-D fixes at 0.3 m, where most of the morning's callers sit (on the water).
+ */
+export function demoProject(recording: { sizeBytes: number; frameCount: number }): ProjectDocument {
+  return {
+    schemaVersion: 1,
+    name: 'Quillmere Pond dawn survey (invented demo)',
+    array: {
+      microphones: DEMO_MICROPHONES.map((m) => ({ channel: m.channel, label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: DEMO_SITE.surveySigmaMeters })),
+      origin: { ...DEMO_SITE.origin },
+      sourceName: DEMO_FILES.array,
+    },
+    medium: { medium: 'air', temperatureCelsius: DEMO_SITE.temperatureCelsius, relativeHumidityPercent: DEMO_SITE.relativeHumidityPercent, pressureKilopascals: DEMO_SITE.pressureKilopascals, temperatureSigmaKelvin: 1 },
+    settings: { dimensions: 2, sourceUpMeters: 0.3, confidence: 0.95, weighting: 'phat', bandHz: 'automatic' },
+    recording: { name: DEMO_FILES.recording, sizeBytes: recording.sizeBytes, channelCount: DEMO_MICROPHONES.length, sampleRateHz: DEMO_SCENE.sampleRateHz, frameCount: recording.frameCount },
+    fixes: [],
+  };
+}
+
 export interface MakeDemoResult {
   folder: string;
   files: string[];
@@ -95,6 +117,7 @@ export async function makeDemo(outFolder: string): Promise<MakeDemoResult> {
   await writeFileAtomic(join(folder, DEMO_FILES.arrayLocal), demoArrayLocalCsv());
   await writeFileAtomic(join(folder, DEMO_FILES.truth), demoTruthCsv());
   await writeFileAtomic(join(folder, DEMO_FILES.delays), demoDelaysCsv());
+  await writeFileAtomic(join(folder, DEMO_FILES.project), serializeProjectDocument(demoProject({ sizeBytes: wav.fileLengthBytes, frameCount: wav.frameCount })));
   return {
     folder,
     files: Object.values(DEMO_FILES),

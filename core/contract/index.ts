@@ -65,6 +65,8 @@ export interface RecoveryCopy {
 export interface DemoFiles {
   recording: RecordingHandle;
   array: TextFile;
+  /** The demo project (medium, settings and array of the invented scenario), as the text of a project file. */
+  project: TextFile;
 }
 
 /** A File from a drop or a file input; only the preload can turn it into a path. */

@@ -5,4 +5,4 @@ export { measurePairs, pairSpacingMeters, type PairMeasurement, type PairSetting
 export { reducePairsToReference, type ReducedDelays } from './reducePairs';
 export { DEFAULT_LOCATE_SETTINGS, MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
 export { locateEvent, MIN_ARRIVAL_SIGMA_SAMPLES, solveOptions, solveWithHonestSigma, toSolverMicrophones, type LocateContext, type LocatedEvent } from './locateEvent';
-export { detectorConfigFor, runPipeline, scanSpanFrames, type CancelSignal, type PipelineOptions, type PipelineProgress, type PipelineResult } from './runPipeline';
+export { detectorConfigFor, DETECTION_FRAME_SECONDS, manualEventFor, runPipeline, scanSpanFrames, type CancelSignal, type PipelineOptions, type PipelineProgress, type PipelineResult } from './runPipeline';

@@ -4,6 +4,7 @@ import { chooseBand, type DetectedEvent } from '../detect';
 import type { FrequencyBand } from '../dsp';
 import { solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
 import type { ArrayGeometry } from '../project';
+import { maxArrayDelaySeconds } from './channelMap';
 import { measurePairs, type PairMeasurement } from './measurePairs';
 import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
@@ -95,12 +96,29 @@ export function toSolverMicrophones(geometry: ArrayGeometry): Microphone[] {
   return geometry.microphones.map((m) => ({ label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: m.surveySigmaMeters }));
 }
 
+/**
+ * The span to correlate. The detector's window reaches the array's largest delay beyond the first onset and the last
+ * offset, to cover microphones that did not trigger; when every microphone triggered, that reach is not needed.
+ */
+export function correlationSpan(event: DetectedEvent, context: LocateContext): { startSeconds: number; endSeconds: number } {
+  const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
+  if (event.flags.includes('manual') || onsets.some((onset) => onset === undefined)) return { startSeconds: event.startSeconds, endSeconds: event.endSeconds };
+  const reachSeconds = maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98);
+  const startSeconds = Math.max(event.startSeconds, Math.min(...(onsets as number[])) - CORRELATION_MARGIN_SECONDS);
+  const endSeconds = Math.max(startSeconds + 0.01, event.endSeconds - reachSeconds);
+  return { startSeconds, endSeconds };
+}
+
+/** Lead-in before the first onset in a correlation window (onsets are found to a frame or two). */
+export const CORRELATION_MARGIN_SECONDS = 0.03;
+
 export async function locateEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
   const fs = recording.info.sampleRateHz;
   const warnings: string[] = [];
-  let startFrame = Math.max(0, Math.floor(event.startSeconds * fs));
-  let endFrame = Math.min(recording.info.frameCount, Math.ceil(event.endSeconds * fs));
   const onset = earliestOnset(event, context);
+  const { startSeconds, endSeconds } = correlationSpan(event, context);
+  let startFrame = Math.max(0, Math.floor(startSeconds * fs));
+  let endFrame = Math.min(recording.info.frameCount, Math.ceil(endSeconds * fs));
   const maxFrames = Math.round(MAX_EVENT_WINDOW_SECONDS * fs);
   if (endFrame - startFrame > maxFrames) {
     const anchor = onset !== undefined ? Math.max(startFrame, Math.floor((onset.seconds - 0.5) * fs)) : startFrame;

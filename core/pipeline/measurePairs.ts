@@ -36,10 +36,13 @@ function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: 
   const key = `${sizeFrames}|${settings.sampleRateHz}|${settings.weighting}|${settings.bandHz.lowHz}|${settings.bandHz.highHz}|${maxLagSeconds}`;
   let engine = engines.get(key);
   if (engine === undefined) {
-    if (engines.size > 8) engines.clear();
+    // Keep the two most recent engines only: each holds every channel's spectrum, megabytes for long windows.
+    if (engines.size >= 2) engines.delete(engines.keys().next().value as string);
     engine = createGccEngine(sizeFrames, { sampleRateHz: settings.sampleRateHz, weighting: settings.weighting, bandHz: settings.bandHz, maxLagSeconds });
-    engines.set(key, engine);
+  } else {
+    engines.delete(key);
   }
+  engines.set(key, engine);
   return engine;
 }
 

@@ -41,6 +41,11 @@ export interface PipelineResult {
 /** Energy frame of the pipeline's detector. */
 export const DETECTION_FRAME_SECONDS = 0.002;
 
+/** The user's own window (e.g. a span selected on the recording) as an event for locateEvent. */
+export function manualEventFor(startSeconds: number, endSeconds: number, channelCount: number, index: number): DetectedEvent {
+  return manualEvent(startSeconds, endSeconds, channelCount, index);
+}
+
 export function detectorConfigFor(recording: RecordingAccess, context: LocateContext): DetectorConfig {
   const config: DetectorConfig = {
     sampleRateHz: recording.info.sampleRateHz,

@@ -29,7 +29,7 @@ export class HumRenderer {
   private readonly step: number;
   /** Channels grouped by delay (in cycles of f0): a hum identical at several microphones is computed once for them. */
   private readonly groups: { shiftCycles: number; channelIndexes: number[] }[] = [];
-  private scratch = new Float64Array(0);
+  private scratch = new Float32Array(0);
 
   constructor(hum: SceneHum, humIndex: number, seed: number, sampleRateHz: number, delaysSeconds: readonly number[], channelIndexes: readonly number[]) {
     const amplitudes = [1, ...(hum.harmonicLevelsDb ?? []).map(dbToAmplitude)];
@@ -60,13 +60,13 @@ export class HumRenderer {
     for (const group of this.groups) {
       const channels = group.channelIndexes;
       if (channels.length === 1) {
-        this.addGroup(group.shiftCycles, startFrame, count, out[channels[0]]);
+        this.addShifted(group.shiftCycles, startFrame, count, out[channels[0]]);
         continue;
       }
-      if (this.scratch.length < count) this.scratch = new Float64Array(count);
-      const scratch = this.scratch;
-      scratch.fill(0, 0, count);
-      this.addGroup(group.shiftCycles, startFrame, count, scratch);
+      // Shared by several microphones: computed once (as Float32) and added to each.
+      if (this.scratch.length < count) this.scratch = new Float32Array(count);
+      const scratch = this.scratch.fill(0, 0, count);
+      this.addShifted(group.shiftCycles, startFrame, count, scratch);
       for (const channel of channels) {
         const target = out[channel];
         for (let i = 0; i < count; i++) target[i] += scratch[i];
@@ -74,7 +74,8 @@ export class HumRenderer {
     }
   }
 
-  private addGroup(shiftCycles: number, startFrame: number, count: number, target: Float32Array | Float64Array): void {
+  /** Adds the hum of frames [startFrame, startFrame + count), delayed by shiftCycles, to values[0 .. count). */
+  private addShifted(shiftCycles: number, startFrame: number, count: number, values: Float32Array): void {
     const table = this.table;
     const step = this.step;
     const endFrame = startFrame + count;
@@ -91,7 +92,7 @@ export class HumRenderer {
       for (let i = frame - startFrame, end = segmentEnd - startFrame; i < end; i++) {
         const index = position | 0;
         const low = table[index];
-        target[i] += low + (position - index) * (table[index + 1] - low);
+        values[i] += low + (position - index) * (table[index + 1] - low);
         position += step;
         if (position >= TABLE_POINTS) position -= TABLE_POINTS;
       }

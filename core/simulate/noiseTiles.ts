@@ -22,7 +22,7 @@ export class NoiseTiles {
   private readonly warmupBlocks: number;
   private readonly cachedTiles: Float32Array[];
   private readonly cachedIndex: Int32Array;
-  private readonly state = new Float64Array(4);
+  private readonly state = new Float64Array(3);
 
   constructor(
     private readonly seed: number,
@@ -72,8 +72,9 @@ export class NoiseTiles {
       }
       return;
     }
+    // Warmed up on the blocks before the tile (negative ones before the first), so even frame 0 has settled pink noise.
     const state = this.state.fill(0);
-    for (let b = Math.max(0, firstBlock - this.warmupBlocks); b < firstBlock; b++) {
+    for (let b = firstBlock - this.warmupBlocks; b < firstBlock; b++) {
       pinkBlock(this.table, streamSeed(this.seed, RANDOM_STREAM.background, channelIndex, b), pink, state, 0, undefined, 0);
     }
     const amplitude = this.backgroundAmplitude * pink.unitScale;

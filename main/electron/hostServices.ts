@@ -16,6 +16,7 @@ export type HostServices = { [K in HostRequestMethod]: (...args: Parameters<Host
 export const MAX_ARRAY_FILE_BYTES = 16 * 1024 * 1024;
 export const DEMO_RECORDING_FILE_NAME = 'demo-recording.wav';
 export const DEMO_ARRAY_FILE_NAME = 'demo-array.csv';
+export const DEMO_PROJECT_FILE_NAME = 'demo-project.whence';
 
 export interface HostServiceDeps {
   dialogs: DialogAdapter;
@@ -137,13 +138,15 @@ export function createHostServices(deps: HostServiceDeps): HostServices {
     async openDemo() {
       const recordingPath = join(deps.demoFolder, DEMO_RECORDING_FILE_NAME);
       const arrayPath = join(deps.demoFolder, DEMO_ARRAY_FILE_NAME);
-      const present = await Promise.all([recordingPath, arrayPath].map((path) => stat(path).then((stats) => stats.isFile(), () => false)));
+      const projectPath = join(deps.demoFolder, DEMO_PROJECT_FILE_NAME);
+      const present = await Promise.all([recordingPath, arrayPath, projectPath].map((path) => stat(path).then((stats) => stats.isFile(), () => false)));
       if (!present.every(Boolean)) {
-        throw new WhenceError('demo-missing', `The demo files are missing: Whence looked for ${DEMO_RECORDING_FILE_NAME} and ${DEMO_ARRAY_FILE_NAME} in ${deps.demoFolder}. Run \`npm run demo\` to make them, then open the demo again.`);
+        throw new WhenceError('demo-missing', `The demo files are missing: Whence looked for ${DEMO_RECORDING_FILE_NAME}, ${DEMO_ARRAY_FILE_NAME} and ${DEMO_PROJECT_FILE_NAME} in ${deps.demoFolder}. Run \`npm run demo\` to make them, then open the demo again.`);
       }
       const array = await readTextFile(arrayPath, 'the demo array table');
+      const project = await readTextFile(projectPath, 'the demo project');
       const recording = await recordings.open(recordingPath);
-      return { recording, array };
+      return { recording, array, project };
     },
   };
 }

@@ -6,7 +6,7 @@ import type Konva from 'konva';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { Circle, Group, Image as KonvaImage, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import { WhenceError } from '../../core/errors';
-import { LABEL_OFFSET_PIXELS, type LabelBox } from './curveLabels';
+import type { LabelBox } from './curveLabels';
 import { fixShapes, type FixShape } from './fixShapes';
 import { mapGrid } from './gridLines';
 import { hyperbolaShapes } from './hyperbolaShapes';
@@ -440,11 +440,11 @@ export function MapView(props: MapViewProps) {
             </Layer>
             <Layer listening={false}>
               {curves.map((curve) =>
-                curve.labelAt === undefined ? null : (
+                curve.label === undefined ? null : (
                   <Text
                     key={`label/${curve.key}`}
-                    x={curve.labelAt.xPixels + LABEL_OFFSET_PIXELS.x}
-                    y={curve.labelAt.yPixels + LABEL_OFFSET_PIXELS.y}
+                    x={curve.label.xPixels}
+                    y={curve.label.yPixels}
                     text={curve.pairLabel}
                     fontSize={11}
                     fill={curve.colour}

@@ -28,8 +28,17 @@ export interface LabelPlacementOptions {
   avoid?: readonly LabelBox[];
 }
 
-/** Offset of the label's top-left corner from its anchor on the curve. */
+/** Offset of the label's top-left corner from its anchor on the curve (mirrored where the label would leave the view). */
 export const LABEL_OFFSET_PIXELS = { x: 4, y: 2 } as const;
+
+export interface PlacedLabel {
+  /** The point on the curve the label belongs to. */
+  anchorXPixels: number;
+  anchorYPixels: number;
+  /** Top-left corner of the label text, inside the view. */
+  xPixels: number;
+  yPixels: number;
+}
 
 /** Where a walk along the polyline (from its start, or from its end) first reaches the inner box. */
 export function curveEntryPoint(
@@ -71,14 +80,14 @@ function overlaps(a: LabelBox, b: LabelBox): boolean {
   return a.xPixels < b.xPixels + b.widthPixels && b.xPixels < a.xPixels + a.widthPixels && a.yPixels < b.yPixels + b.heightPixels && b.yPixels < a.yPixels + a.heightPixels;
 }
 
-/** Anchor of each request's label (in input order), or undefined where no clear place was found. */
-export function placeCurveLabels(requests: readonly LabelRequest[], options: LabelPlacementOptions): Array<{ xPixels: number; yPixels: number } | undefined> {
+/** Each request's label (in input order), or undefined where no clear place was found. */
+export function placeCurveLabels(requests: readonly LabelRequest[], options: LabelPlacementOptions): Array<PlacedLabel | undefined> {
   const { widthPixels, heightPixels, insetPixels } = options;
   const characterWidth = options.characterWidthPixels ?? 6.5;
   const lineHeight = options.lineHeightPixels ?? 14;
   const box = { minX: insetPixels, maxX: widthPixels - insetPixels, minY: insetPixels, maxY: heightPixels - insetPixels };
   const placed: LabelBox[] = [...(options.avoid ?? [])];
-  const result: Array<{ xPixels: number; yPixels: number } | undefined> = requests.map(() => undefined);
+  const result: Array<PlacedLabel | undefined> = requests.map(() => undefined);
   const order = requests.map((_, i) => i).sort((i, j) => requests[j].priority - requests[i].priority || i - j);
   for (const i of order) {
     const request = requests[i];
@@ -88,10 +97,14 @@ export function placeCurveLabels(requests: readonly LabelRequest[], options: Lab
       for (const fromEnd of [false, true]) {
         const anchor = curveEntryPoint(flat, fromEnd, box);
         if (anchor === undefined) continue;
-        const label: LabelBox = { xPixels: anchor.xPixels + LABEL_OFFSET_PIXELS.x, yPixels: anchor.yPixels + LABEL_OFFSET_PIXELS.y, widthPixels: width, heightPixels: lineHeight };
-        if (placed.some((other) => overlaps(label, other))) continue;
+        let x = anchor.xPixels + LABEL_OFFSET_PIXELS.x;
+        let y = anchor.yPixels + LABEL_OFFSET_PIXELS.y;
+        if (x + width > widthPixels) x = anchor.xPixels - LABEL_OFFSET_PIXELS.x - width;
+        if (y + lineHeight > heightPixels) y = anchor.yPixels - LABEL_OFFSET_PIXELS.y - lineHeight;
+        const label: LabelBox = { xPixels: x, yPixels: y, widthPixels: width, heightPixels: lineHeight };
+        if (x < 0 || y < 0 || placed.some((other) => overlaps(label, other))) continue;
         placed.push(label);
-        result[i] = anchor;
+        result[i] = { anchorXPixels: anchor.xPixels, anchorYPixels: anchor.yPixels, xPixels: x, yPixels: y };
         break;
       }
     }

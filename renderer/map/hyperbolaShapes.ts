@@ -3,7 +3,7 @@
 
 import { WhenceError } from '../../core/errors';
 import { hyperbolaBranch } from '../../core/locate';
-import { placeCurveLabels, type LabelBox } from './curveLabels';
+import { placeCurveLabels, type LabelBox, type PlacedLabel } from './curveLabels';
 import type { MapScale } from './mapScale';
 import { qualityColour, qualityStrokePixels } from './qualityColour';
 import type { MapHyperbola, MapMicrophone } from './types';
@@ -20,7 +20,7 @@ export interface HyperbolaShape {
   /** Flat [x0, y0, x1, y1, ...] pixel polylines (Konva Line points); a single point has one pair. */
   polylinesPixels: number[][];
   /** Where to write the pair label: where the curve enters the view, inset from the edge, clear of other labels. */
-  labelAt?: { xPixels: number; yPixels: number };
+  label?: PlacedLabel;
   /** Why less than a curve is drawn, in words for the user. */
   note?: string;
 }
@@ -86,8 +86,8 @@ export function hyperbolaShapes(
     shapes.map((shape) => ({ text: shape.pairLabel, polylinesPixels: shape.polylinesPixels, priority: Number.isFinite(shape.quality) ? shape.quality : 0 })),
     { widthPixels: scale.widthPixels, heightPixels: scale.heightPixels, insetPixels: options.labelInsetPixels ?? 28, avoid: options.labelAvoid },
   );
-  anchors.forEach((anchor, k) => {
-    if (anchor !== undefined) shapes[k].labelAt = anchor;
+  anchors.forEach((label, k) => {
+    if (label !== undefined) shapes[k].label = label;
   });
   return shapes;
 }

@@ -20,6 +20,7 @@ export { scaleBar, type ScaleBar } from './scaleBar';
 export { northArrow, type NorthArrow } from './northArrow';
 export { microphoneMarkers, type MicrophoneMarker } from './microphoneMarkers';
 export { hyperbolaShapes, type HyperbolaShape, type HyperbolaShapeOptions } from './hyperbolaShapes';
+export { placeCurveLabels, curveEntryPoint, LABEL_OFFSET_PIXELS, type LabelBox, type LabelRequest, type LabelPlacementOptions, type PlacedLabel } from './curveLabels';
 export { qualityColour, qualityStrokePixels, qualityWord, QUALITY_SCALE } from './qualityColour';
 export { ellipseOutlineMeters, ellipseSegmentsFor, type EllipseSpec } from './ellipseOutline';
 export { fixShapes, FIX_COLOURS, type FixShape } from './fixShapes';

@@ -58,6 +58,7 @@ describe('encodeWavHeader() and encodeFrames() read back through readWavInfo() a
         validBitsPerSample: layout.bitsPerSample,
         frameCount,
         dataOffsetBytes: wavFileLayout(spec).headerLengthBytes,
+        // format tags 1 (PCM), 3 (IEEE float), 0xFFFE (WAVE_FORMAT_EXTENSIBLE) (Microsoft, mmreg.h)
         formatTag: layout.extensible ? 0xfffe : layout.sampleFormat === 'pcm-int' ? 1 : 3,
         channelMask: layout.extensible ? 0 : undefined,
       });
@@ -121,6 +122,8 @@ describe('encodeWavHeader() and encodeFrames() read back through readWavInfo() a
 
   it('encodeWavHeader() defaults to an extensible header for more than 2 channels or more than 16 bits', () => {
     const base = { sampleRateHz: 48000, sampleFormat: 'pcm-int', frameCount: 10 } as const;
+    // Microsoft asks for WAVE_FORMAT_EXTENSIBLE (0xFFFE) beyond 2 channels or 16 bits ("Multiple channel audio data and
+    // WAVE files"); the format tag is the first field of the fmt chunk, bytes 20-21 of a file that starts with it.
     const tag = (spec: WavWriteSpec) => { const h = encodeWavHeader(spec); return h[20] | (h[21] << 8); };
     expect(tag({ ...base, channelCount: 2, bitsPerSample: 16 })).toBe(1);
     expect(tag({ ...base, channelCount: 3, bitsPerSample: 16 })).toBe(0xfffe);

@@ -5,7 +5,7 @@ import { describe, expect, it, vi } from 'vitest';
 import type { RecentProject } from '../../../core/contract';
 import { emptyProjectDocument, serializeProjectDocument } from '../../../core/project';
 import type { DialogAdapter } from '../../../main/electron/dialogs';
-import { createHostServices, DEMO_ARRAY_FILE_NAME, DEMO_RECORDING_FILE_NAME } from '../../../main/electron/hostServices';
+import { createHostServices, DEMO_ARRAY_FILE_NAME, DEMO_PROJECT_FILE_NAME, DEMO_RECORDING_FILE_NAME } from '../../../main/electron/hostServices';
 import { createRecordingHandles } from '../../../main/electron/recordingHandles';
 import { createRecentProjectsStore, createRecoveryStore, RECOVERY_FILE_NAME } from '../../../main/project';
 
@@ -174,9 +174,11 @@ describe('createHostServices(): exports and the demo', () => {
     mkdirSync(demoFolder);
     copyFileSync(wavPath, join(demoFolder, DEMO_RECORDING_FILE_NAME));
     writeFileSync(join(demoFolder, DEMO_ARRAY_FILE_NAME), 'channel,x_m,y_m\n1,0,0\n');
+    writeFileSync(join(demoFolder, DEMO_PROJECT_FILE_NAME), '{"schemaVersion":1}');
     const demo = await services.openDemo();
     expect(demo.recording).toMatchObject({ name: DEMO_RECORDING_FILE_NAME, path: join(demoFolder, DEMO_RECORDING_FILE_NAME) });
     expect(demo.array).toEqual({ name: DEMO_ARRAY_FILE_NAME, path: join(demoFolder, DEMO_ARRAY_FILE_NAME), text: 'channel,x_m,y_m\n1,0,0\n' });
+    expect(demo.project.text).toBe('{"schemaVersion":1}');
     expect(Buffer.from(await services.readRecordingBytes(demo.recording.handleId, 0, 4)).toString('latin1')).toBe('RIFF');
   });
 

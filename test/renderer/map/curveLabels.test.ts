@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { curveEntryPoint, LABEL_OFFSET_PIXELS, placeCurveLabels } from '../../../renderer/map/curveLabels';
+import { curveEntryPoint, placeCurveLabels } from '../../../renderer/map/curveLabels';
 
 const box = { minX: 20, maxX: 380, minY: 20, maxY: 280 };
 
@@ -31,8 +31,8 @@ describe('placeCurveLabels()', () => {
       ],
       options,
     );
-    expect(anchors[1]).toEqual({ xPixels: 150, yPixels: 280 }); // higher quality placed first, at the start
-    expect(anchors[0]).toEqual({ xPixels: 150, yPixels: 20 }); // same start taken: the other end
+    expect(anchors[1]).toEqual({ anchorXPixels: 150, anchorYPixels: 280, xPixels: 154, yPixels: 282 }); // higher quality first, at the start
+    expect(anchors[0]).toMatchObject({ anchorXPixels: 150, anchorYPixels: 20 }); // same start taken: the other end
   });
 
   it('placeCurveLabels() leaves a curve unlabelled when both ends are taken or covered', () => {
@@ -55,14 +55,23 @@ describe('placeCurveLabels()', () => {
 
   it('placeCurveLabels() keeps label boxes apart', () => {
     const requests = Array.from({ length: 12 }, (_, k) => ({ text: `M${k}–M${k + 1}`, polylinesPixels: [[40 + 25 * k, 320, 200, 150]], priority: k / 12 }));
-    const anchors = placeCurveLabels(requests, options).filter((a) => a !== undefined);
-    expect(anchors.length).toBeGreaterThan(3);
-    const boxes = anchors.map((a) => ({ x: a.xPixels + LABEL_OFFSET_PIXELS.x, y: a.yPixels + LABEL_OFFSET_PIXELS.y }));
+    const anchors = placeCurveLabels(requests, options);
+    // Default text metrics: 6.5 px per character plus 4 px, 14 px lines.
+    const boxes = anchors.flatMap((a, k) => (a === undefined ? [] : [{ x: a.xPixels, y: a.yPixels, w: 6.5 * requests[k].text.length + 4 }]));
+    expect(boxes.length).toBeGreaterThan(3);
+    for (const b of boxes) expect(b.x >= 0 && b.x + b.w <= 400 && b.y >= 0 && b.y + 14 <= 300).toBe(true);
     for (let i = 0; i < boxes.length; i += 1) {
       for (let j = i + 1; j < boxes.length; j += 1) {
-        const apart = Math.abs(boxes[i].x - boxes[j].x) >= 6.5 * 7 + 4 || Math.abs(boxes[i].y - boxes[j].y) >= 14;
+        const [a, b] = [boxes[i], boxes[j]];
+        const apart = a.x + a.w <= b.x || b.x + b.w <= a.x || Math.abs(a.y - b.y) >= 14;
         expect(apart).toBe(true);
       }
     }
+  });
+
+  it('placeCurveLabels() mirrors a label to the left of its anchor near the right edge so it stays in view', () => {
+    const [label] = placeCurveLabels([{ text: 'M3–M7', polylinesPixels: [[420, 100, 200, 100]], priority: 1 }], options);
+    // Anchor 20 px inside the right edge; the 36.5 px label goes to its left: 380 − 4 − 36.5.
+    expect(label).toEqual({ anchorXPixels: 380, anchorYPixels: 100, xPixels: 380 - 4 - (6.5 * 5 + 4), yPixels: 102 });
   });
 });

@@ -74,7 +74,8 @@ describe('hyperbolaShapes()', () => {
     });
     expect(shape.colour).toBe(qualityColour(0.25));
     expect(shape.pairLabel).toBe('M1–M2');
-    const label = shape.labelAt as { xPixels: number; yPixels: number };
+    const placed = shape.label as NonNullable<typeof shape.label>;
+    const label = { xPixels: placed.anchorXPixels, yPixels: placed.anchorYPixels };
     expect(label.xPixels).toBeGreaterThanOrEqual(30);
     expect(label.yPixels).toBeGreaterThanOrEqual(30);
     expect(label.xPixels).toBeLessThanOrEqual(870);

@@ -1,0 +1,369 @@
+// The workspace controller: state (workspaceReducer) plus the asynchronous work around it — the host (files),
+// the pipeline worker (recording, envelope, locate, correlations, spectrograms) and re-solving on edits.
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
+import type { WavInfo } from '../../core/audio';
+import type { MenuCommand } from '../../core/contract';
+import { surveyLogCsv, fixesToGeoJson, locatedEventRecord, type SurveyLogContext } from '../../core/export';
+import type { CorrelationPlots, EnvelopePyramid, Spectrogram, SpectrogramRequest } from '../../core/overview';
+import type { LocatedEvent, PipelineProgress, PipelineResult } from '../../core/pipeline';
+import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
+import { WHENCE_VERSION } from '../../core/version';
+import type { Host, OpenedRecording } from '../host';
+import { PipelineBridge, type WorkerCall } from '../worker/bridge';
+import { locateBlockers, locateContext, speedInUse, type SpeedInUse } from './derive';
+import { resolveEvent } from './resolve';
+import { initialWorkspace, workspaceReducer, type WorkspaceState } from './workspace';
+
+function message(error: unknown): string {
+  return error instanceof Error ? error.message : String(error);
+}
+
+function createWorker(): Worker {
+  return new Worker(new URL('../worker/pipelineWorker.ts', import.meta.url), { type: 'module' });
+}
+
+export interface WorkspaceController {
+  state: WorkspaceState;
+  speed: SpeedInUse | { error: string };
+  correlations: CorrelationPlots | undefined;
+  openRecording(): Promise<void>;
+  openRecordingFile(file: File): Promise<void>;
+  openArray(): Promise<void>;
+  importArrayText(name: string, text: string): void;
+  exportArray(text: string): Promise<void>;
+  openProject(): Promise<void>;
+  saveProject(saveAs: boolean): Promise<void>;
+  openDemo(): Promise<void>;
+  locateAll(): Promise<void>;
+  locateSpan(startSeconds: number, endSeconds: number): Promise<void>;
+  cancelWork(): void;
+  setArray(array: ProjectArray): void;
+  moveMicrophone(index: number, eastMeters: number, northMeters: number): void;
+  setMedium(medium: ProjectMedium): void;
+  setSettings(settings: ProjectSettings): void;
+  selectEvent(index: number | undefined): void;
+  selectSpan(startSeconds: number, endSeconds: number): void;
+  logEvents(indices: number[]): void;
+  updateFix(id: string, patch: { label?: string; note?: string; accepted?: boolean }): void;
+  selectFix(id: string | undefined): void;
+  exportLog(kind: 'csv' | 'geojson'): Promise<void>;
+  exportText(name: string, text: string, kind: 'csv' | 'geojson' | 'json'): Promise<void>;
+  requestSpectrogram(request: SpectrogramRequest): Promise<Spectrogram>;
+  dismissNotice(id: number): void;
+  restoreRecovery(): void;
+  discardRecovery(): void;
+  recoveryOffer: { savedAtIso: string } | undefined;
+  surveyContext(): SurveyLogContext | undefined;
+}
+
+export function useWorkspace(host: Host): WorkspaceController {
+  const [state, dispatch] = useReducer(workspaceReducer, undefined, () => initialWorkspace(emptyProjectDocument('Untitled survey')));
+  const stateRef = useRef(state);
+  stateRef.current = state;
+  const bridgeRef = useRef<PipelineBridge | undefined>(undefined);
+  const recordingRef = useRef<OpenedRecording | undefined>(undefined);
+  const workRef = useRef<WorkerCall<unknown> | undefined>(undefined);
+  const [correlations, setCorrelations] = useState<CorrelationPlots | undefined>(undefined);
+  const [recovery, setRecovery] = useState<{ document: ProjectDocument; savedAtIso: string; path?: string } | undefined>(undefined);
+
+  const bridge = useCallback((): PipelineBridge => {
+    if (bridgeRef.current === undefined) bridgeRef.current = new PipelineBridge(createWorker());
+    return bridgeRef.current;
+  }, []);
+  useEffect(() => () => bridgeRef.current?.terminate(), []);
+
+  const notify = useCallback((level: 'info' | 'warning' | 'error', text: string) => dispatch({ type: 'notice/add', level, text }), []);
+
+  const speed = useMemo((): SpeedInUse | { error: string } => {
+    try {
+      return speedInUse(state.document.medium);
+    } catch (error) {
+      return { error: message(error) };
+    }
+  }, [state.document.medium]);
+
+  const loadRecording = useCallback(async (opened: OpenedRecording): Promise<WavInfo | undefined> => {
+    const previous = recordingRef.current;
+    recordingRef.current = opened;
+    if (previous !== undefined) await previous.close().catch(() => undefined);
+    const worker = bridge();
+    worker.setByteReader(opened.byteReader);
+    dispatch({ type: 'busy/set', busy: { label: `Reading ${opened.name}`, progress: 0 } });
+    try {
+      const info = await worker.call<WavInfo>('open', { source: opened.workerSource }).promise;
+      dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info });
+      for (const warning of info.warnings) notify('warning', `${opened.name}: ${warning}`);
+      dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: 0 } });
+      const call = worker.call<EnvelopePyramid>('envelope', {}, (fraction) => {
+        dispatch({ type: 'envelope/progress', fraction: fraction as number });
+        dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: fraction as number } });
+      });
+      workRef.current = call;
+      const envelope = await call.promise;
+      dispatch({ type: 'envelope/done', envelope });
+      return info;
+    } catch (error) {
+      notify('error', `${opened.name} could not be opened: ${message(error)} Your project is unchanged.`);
+      return undefined;
+    } finally {
+      workRef.current = undefined;
+      dispatch({ type: 'busy/set', busy: undefined });
+    }
+  }, [bridge, notify]);
+
+  const locateAll = useCallback(async () => {
+    const current = stateRef.current;
+    const blockers = locateBlockers(current.document, current.recording?.info.channelCount);
+    if ('error' in speed) blockers.push(speed.error);
+    if (blockers.length > 0) { notify('warning', `Cannot locate yet: ${blockers.join(' ')}`); return; }
+    const context = locateContext(current.document, speed as SpeedInUse);
+    dispatch({ type: 'busy/set', busy: { label: 'Finding and locating sounds', progress: 0 } });
+    const call = bridge().call<PipelineResult>('run', { context }, (progress) => {
+      const p = progress as PipelineProgress;
+      dispatch({ type: 'busy/set', busy: { label: 'Finding and locating sounds', progress: p.fraction, detail: `${p.eventsFound} found, ${p.eventsLocated} located` } });
+    });
+    workRef.current = call as WorkerCall<unknown>;
+    try {
+      const result = await call.promise;
+      dispatch({ type: 'events/replace', events: result.located });
+      const fixed = result.located.filter((l) => l.solve.status === 'ok').length;
+      notify(result.cancelled ? 'warning' : 'info', `${result.cancelled ? 'Stopped: ' : ''}${result.eventsFound} sound${result.eventsFound === 1 ? '' : 's'} found, ${fixed} fixed.`);
+      for (const warning of result.warnings) notify('warning', warning);
+    } catch (error) {
+      notify('error', `Locating failed: ${message(error)}`);
+    } finally {
+      workRef.current = undefined;
+      dispatch({ type: 'busy/set', busy: undefined });
+    }
+  }, [bridge, notify, speed]);
+
+  const locateSpan = useCallback(async (startSeconds: number, endSeconds: number) => {
+    const current = stateRef.current;
+    const blockers = locateBlockers(current.document, current.recording?.info.channelCount);
+    if ('error' in speed) blockers.push(speed.error);
+    if (blockers.length > 0) { notify('warning', `Cannot locate yet: ${blockers.join(' ')}`); return; }
+    dispatch({ type: 'busy/set', busy: { label: 'Locating the selection', progress: 0.5 } });
+    try {
+      const index = Math.max(-1, ...current.events.map((e) => e.event.index)) + 1;
+      const located = await bridge().call<LocatedEvent>('locateSpan', { context: locateContext(current.document, speed as SpeedInUse), startSeconds, endSeconds, index }).promise;
+      dispatch({ type: 'events/add', event: located });
+      dispatch({ type: 'fixes/log-events', indices: [current.events.length] });
+      notify(located.solve.status === 'ok' ? 'info' : 'warning', `Selection ${startSeconds.toFixed(2)}-${endSeconds.toFixed(2)} s: ${located.solve.status}${located.solve.status === 'ok' ? '' : ` (${located.solve.warnings[0] ?? 'no fix'})`}; added to the log.`);
+    } catch (error) {
+      notify('error', `Locating the selection failed: ${message(error)}`);
+    } finally {
+      dispatch({ type: 'busy/set', busy: undefined });
+    }
+  }, [bridge, notify, speed]);
+
+  // Re-solve the located events whenever the array, the medium or the settings change (delays stay as measured).
+  const solveKey = useRef<unknown[]>([]);
+  useEffect(() => {
+    const key = [state.document.array, state.document.medium, state.document.settings];
+    const changed = key.some((part, i) => part !== solveKey.current[i]);
+    solveKey.current = key;
+    if (!changed || state.events.length === 0 || state.recording === undefined || 'error' in speed) return;
+    const context = locateContext(state.document, speed);
+    const fs = state.recording.info.sampleRateHz;
+    const selected = state.selectedEventIndex;
+    if (selected !== undefined && state.events[selected] !== undefined) {
+      dispatch({ type: 'events/resolved', solves: [{ index: selected, solve: resolveEvent(state.events[selected]!, context, fs) }] });
+    }
+    const timer = setTimeout(() => {
+      dispatch({ type: 'events/resolved', solves: stateRef.current.events.map((located, index) => ({ index, solve: resolveEvent(located, context, fs) })) });
+    }, 120);
+    return () => clearTimeout(timer);
+  }, [state.document, state.events, state.recording, state.selectedEventIndex, speed]);
+
+  // Correlation plots of the selected event.
+  useEffect(() => {
+    const located = state.selectedEventIndex === undefined ? undefined : state.events[state.selectedEventIndex];
+    if (located === undefined || 'error' in speed || state.recording === undefined) { setCorrelations(undefined); return; }
+    let live = true;
+    const usedPairs = located.reduced.droppedPairs.length === 0 ? undefined : located.pairs.filter((p) => !located.reduced.droppedPairs.some((d) => d.indexA === p.indexA && d.indexB === p.indexB)).map((p) => `${p.indexA}-${p.indexB}`);
+    bridge().call<CorrelationPlots>('correlations', { context: locateContext(stateRef.current.document, speed), startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, usedPairs }).promise.then(
+      (plots) => { if (live) setCorrelations(plots); },
+      (error: unknown) => { if (live) { setCorrelations(undefined); notify('warning', `Correlation plots: ${message(error)}`); } },
+    );
+    return () => { live = false; };
+  }, [state.selectedEventIndex, state.events, state.recording, speed, bridge, notify]);
+
+  // Keep a recovery copy of unsaved work.
+  useEffect(() => {
+    if (!state.dirty) return;
+    const timer = setTimeout(() => { void host.writeRecoveryCopy(stateRef.current.document, stateRef.current.projectPath).catch(() => undefined); }, 1500);
+    return () => clearTimeout(timer);
+  }, [state.document, state.dirty, host]);
+
+  const importArrayText = useCallback((name: string, text: string) => {
+    try {
+      const geometry = parseArrayCsv(text, name);
+      const array: ProjectArray = { microphones: geometry.microphones, sourceName: name };
+      if (geometry.origin !== undefined) array.origin = geometry.origin;
+      dispatch({ type: 'array/set', array });
+      notify('info', `Read ${geometry.microphones.length} microphones from ${name}.`);
+      for (const warning of geometry.warnings) notify('warning', warning);
+    } catch (error) {
+      notify('error', `${message(error)} The array in use is unchanged.`);
+    }
+  }, [notify]);
+
+  const openDemo = useCallback(async () => {
+    try {
+      dispatch({ type: 'busy/set', busy: { label: 'Opening the demo', progress: 0 } });
+      const demo = await host.openDemo();
+      const document = parseProjectDocument(demo.project.text, demo.project.name);
+      dispatch({ type: 'document/replace', document, path: undefined, dirty: false });
+      const info = await loadRecording(demo.recording);
+      if (info !== undefined) await locateAll();
+    } catch (error) {
+      dispatch({ type: 'busy/set', busy: undefined });
+      notify('error', `The demo could not be opened: ${message(error)}`);
+    }
+  }, [host, loadRecording, locateAll, notify]);
+
+  // On start: offer a recovery copy if the last session ended unsaved, and open the demo.
+  const started = useRef(false);
+  useEffect(() => {
+    if (started.current) return;
+    started.current = true;
+    void host.takeRecoveryCopy().then((copy) => { if (copy !== null) setRecovery(copy); }, () => undefined);
+    void openDemo();
+  }, [host, openDemo]);
+
+  const surveyContext = useCallback((): SurveyLogContext | undefined => {
+    const current = stateRef.current;
+    if ('error' in speed || current.recording === undefined) return undefined;
+    return {
+      recordingName: current.recording.name, recordingStartTime: current.recording.info.startTime, sampleRateHz: current.recording.info.sampleRateHz,
+      geometry: { microphones: current.document.array.microphones, origin: current.document.array.origin, warnings: [] },
+      medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
+      softwareVersion: WHENCE_VERSION, settings: { dims: current.document.settings.dimensions, confidence: current.document.settings.confidence, weighting: current.document.settings.weighting, band_hz: current.document.settings.bandHz === 'automatic' ? 'per event' : `${current.document.settings.bandHz.lowHz}-${current.document.settings.bandHz.highHz}` },
+      dimensions: current.document.settings.dimensions,
+    };
+  }, [speed]);
+
+  const exportText = useCallback(async (name: string, text: string, kind: 'csv' | 'geojson' | 'json') => {
+    try {
+      const where = await host.exportText(name, text, kind);
+      if (where !== null) notify('info', `Exported ${where}.`);
+    } catch (error) {
+      notify('error', `Export failed: ${message(error)} Nothing was overwritten.`);
+    }
+  }, [host, notify]);
+
+  const exportLog = useCallback(async (kind: 'csv' | 'geojson') => {
+    const context = surveyContext();
+    const current = stateRef.current;
+    if (context === undefined) { notify('warning', 'Open a recording and set a valid medium before exporting the log.'); return; }
+    const accepted = current.events.filter((located) => current.document.fixes.some((fix) => fix.accepted && fix.eventIndex === located.event.index));
+    const records = accepted.map((located) => locatedEventRecord(located, context));
+    if (kind === 'geojson') {
+      if (context.geometry.origin === undefined) { notify('warning', 'GeoJSON needs a WGS84 origin: set one in the microphone table.'); return; }
+      await exportText('whence-log.geojson', fixesToGeoJson(records, context.geometry.origin, true, { microphones: context.geometry.microphones }), 'geojson');
+    } else {
+      await exportText('whence-log.csv', surveyLogCsv(records, context), 'csv');
+    }
+  }, [exportText, notify, surveyContext]);
+
+  const controller: WorkspaceController = {
+    state,
+    speed,
+    correlations,
+    recoveryOffer: recovery === undefined ? undefined : { savedAtIso: recovery.savedAtIso },
+    async openRecording() {
+      try {
+        const opened = await host.openRecording();
+        if (opened !== null) await loadRecording(opened);
+      } catch (error) {
+        notify('error', message(error));
+      }
+    },
+    async openRecordingFile(file) {
+      try {
+        await loadRecording(await host.openRecordingFile(file));
+      } catch (error) {
+        notify('error', message(error));
+      }
+    },
+    async openArray() {
+      try {
+        const file = await host.openArrayFile();
+        if (file !== null) importArrayText(file.name, file.text);
+      } catch (error) {
+        notify('error', message(error));
+      }
+    },
+    importArrayText,
+    exportArray: (text) => exportText('whence-array.csv', text, 'csv'),
+    async openProject() {
+      try {
+        const opened = await host.openProject();
+        if (opened === null) return;
+        dispatch({ type: 'document/replace', document: opened.document, path: opened.path, dirty: false });
+        if (opened.note !== undefined) notify('info', opened.note);
+        notify('info', `Opened the project ${opened.document.name}. Open its recording to locate again.`);
+      } catch (error) {
+        notify('error', `${message(error)} The project in use is unchanged.`);
+      }
+    },
+    async saveProject(saveAs) {
+      try {
+        const saved = await host.saveProject(stateRef.current.document, stateRef.current.projectPath, saveAs);
+        if (saved === null) return;
+        dispatch({ type: 'project/saved', path: saved.path });
+        await host.discardRecoveryCopy().catch(() => undefined);
+        notify('info', saved.message);
+      } catch (error) {
+        notify('error', `Not saved: ${message(error)} Your work is still here and the previous file is intact.`);
+      }
+    },
+    openDemo,
+    locateAll,
+    locateSpan,
+    cancelWork: () => workRef.current?.cancel(),
+    setArray: (array) => dispatch({ type: 'array/set', array }),
+    moveMicrophone(index, eastMeters, northMeters) {
+      const array = stateRef.current.document.array;
+      const microphones = array.microphones.map((m, i) => (i === index ? { ...m, eastMeters, northMeters } : m));
+      dispatch({ type: 'array/set', array: { ...array, microphones } });
+    },
+    setMedium: (medium) => dispatch({ type: 'medium/set', medium }),
+    setSettings: (settings) => dispatch({ type: 'settings/set', settings }),
+    selectEvent: (index) => dispatch({ type: 'event/select', index }),
+    selectSpan: (startSeconds, endSeconds) => dispatch({ type: 'selection/set', selection: { startSeconds, endSeconds } }),
+    logEvents: (indices) => dispatch({ type: 'fixes/log-events', indices }),
+    updateFix: (id, patch) => dispatch({ type: 'fix/update', id, patch }),
+    selectFix: (id) => dispatch({ type: 'fix/select', id }),
+    exportLog,
+    exportText,
+    requestSpectrogram: (request) => bridge().call<Spectrogram>('spectrogram', { request }).promise,
+    dismissNotice: (id) => dispatch({ type: 'notice/dismiss', id }),
+    restoreRecovery() {
+      if (recovery === undefined) return;
+      dispatch({ type: 'document/replace', document: recovery.document, path: recovery.path, dirty: true });
+      setRecovery(undefined);
+      notify('info', `Restored the unsaved work from ${recovery.savedAtIso}. Open its recording to locate again, and save it.`);
+    },
+    discardRecovery() {
+      setRecovery(undefined);
+      void host.discardRecoveryCopy().catch(() => undefined);
+    },
+    surveyContext,
+  };
+
+  useEffect(() => host.onMenuCommand((command: MenuCommand) => {
+    switch (command.command) {
+      case 'open-recording': void controller.openRecording(); break;
+      case 'open-array': void controller.openArray(); break;
+      case 'open-project': void controller.openProject(); break;
+      case 'save-project': void controller.saveProject(false); break;
+      case 'save-project-as': void controller.saveProject(true); break;
+      case 'export-log': void controller.exportLog('csv'); break;
+      case 'open-demo': void controller.openDemo(); break;
+      default: break;
+    }
+  }));
+
+  return controller;
+}

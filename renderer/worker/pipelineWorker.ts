@@ -1,0 +1,97 @@
+// The workspace's Web Worker: owns the open recording and runs everything heavy on it (overview envelope,
+// spectrograms, detection and location, correlation plots), with progress and cancel. No DOM here.
+import { readWavInfo, type ByteSource, type WavInfo } from '../../core/audio';
+import { isWhenceError } from '../../core/errors';
+import { correlationPlots, envelopeFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
+import { locateEvent, manualEventFor, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
+import { blobByteSource } from '../io';
+import { proxyByteSource, type ProxyReads } from './proxyByteSource';
+import type { FromWorker, ToWorker, WorkerSource } from './protocol';
+
+interface OpenRecording { source: ByteSource; info: WavInfo; recording: RecordingAccess }
+
+const scope = self as unknown as { postMessage(message: FromWorker, transfer?: Transferable[]): void; addEventListener(type: 'message', listener: (event: MessageEvent<ToWorker>) => void): void };
+const post = (message: FromWorker, transfer: Transferable[] = []) => scope.postMessage(message, transfer);
+let open: OpenRecording | undefined;
+let proxy: ProxyReads | undefined;
+const cancels = new Map<number, { cancelled: boolean }>();
+
+function requireRecording(): OpenRecording {
+  if (open === undefined) throw new Error('No recording is open. Open a recording first.');
+  return open;
+}
+
+type Handler = (params: never, progress: (value: unknown) => void, cancel: { cancelled: boolean }) => Promise<unknown>;
+
+const handlers: Record<string, Handler> = {
+  async open(params: { source: WorkerSource }) {
+    open = undefined;
+    let source: ByteSource;
+    if (params.source.kind === 'blob') {
+      proxy = undefined;
+      source = blobByteSource(params.source.blob, params.source.name);
+    } else {
+      proxy = proxyByteSource(params.source.name, params.source.sizeBytes, post);
+      source = proxy.source;
+    }
+    const info = await readWavInfo(source);
+    open = { source, info, recording: recordingAccess(source, info) };
+    return info;
+  },
+  async envelope(_params: Record<string, never>, progress, cancel) {
+    const { source, info } = requireRecording();
+    return envelopeFromSource(source, info, { onProgress: (fraction) => progress(fraction), cancel });
+  },
+  async spectrogram(params: { request: SpectrogramRequest }) {
+    const { source, info } = requireRecording();
+    return spectrogramFromSource(source, info, params.request);
+  },
+  async run(params: { context: LocateContext; fromSeconds?: number; toSeconds?: number }, progress, cancel) {
+    const { recording } = requireRecording();
+    const options: Parameters<typeof runPipeline>[2] = { onProgress: (value) => progress(value), cancel };
+    if (params.fromSeconds !== undefined) options.fromSeconds = params.fromSeconds;
+    if (params.toSeconds !== undefined) options.toSeconds = params.toSeconds;
+    return runPipeline(recording, params.context, options);
+  },
+  async locateSpan(params: { context: LocateContext; startSeconds: number; endSeconds: number; index: number }) {
+    const { recording, info } = requireRecording();
+    return locateEvent(recording, manualEventFor(params.startSeconds, params.endSeconds, info.channelCount, params.index), params.context);
+  },
+  async correlations(params: { context: LocateContext; startSeconds: number; endSeconds: number; bandHz: { lowHz: number; highHz: number }; usedPairs?: string[] }) {
+    const { recording, info } = requireRecording();
+    const fs = info.sampleRateHz;
+    const startFrame = Math.max(0, Math.floor(params.startSeconds * fs));
+    const frames = Math.max(1, Math.min(info.frameCount - startFrame, Math.ceil((params.endSeconds - params.startSeconds) * fs)));
+    const all = await recording.readFrames(startFrame, frames);
+    const channels = params.context.channelIndexOfMicrophone.map((channel) => all[channel]!);
+    const microphones = params.context.geometry.microphones;
+    const used = params.usedPairs === undefined ? undefined : new Set(params.usedPairs);
+    const options = used === undefined ? {} : { isPairUsed: (a: number, b: number) => used.has(`${a}-${b}`) };
+    return correlationPlots(channels, microphones.map((m) => m.label), microphones, params.context.settings.speedMetersPerSecond, fs, params.bandHz, params.context.settings.weighting, options);
+  },
+};
+
+scope.addEventListener('message', (event) => {
+  const message = event.data;
+  if (message.kind === 'bytes') {
+    proxy?.answer(message.readId, message.bytes, message.error);
+    return;
+  }
+  if (message.kind === 'cancel') {
+    const cancel = cancels.get(message.requestId);
+    if (cancel !== undefined) cancel.cancelled = true;
+    return;
+  }
+  const handler = handlers[message.method];
+  const { requestId } = message;
+  if (handler === undefined) {
+    post({ kind: 'error', requestId, code: 'unknown-method', message: `The worker has no method '${message.method}'.` });
+    return;
+  }
+  const cancel = { cancelled: false };
+  cancels.set(requestId, cancel);
+  handler(message.params as never, (progress) => post({ kind: 'progress', requestId, progress }), cancel).then(
+    (result) => post({ kind: 'result', requestId, result }),
+    (error: unknown) => post({ kind: 'error', requestId, code: isWhenceError(error) ? error.code : 'internal', message: error instanceof Error ? error.message : String(error) }),
+  ).finally(() => cancels.delete(requestId));
+});

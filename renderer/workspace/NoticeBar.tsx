@@ -1,0 +1,31 @@
+// Messages for the user (what happened, what is wrong and what to do), and the offer to restore unsaved work.
+import type { Notice } from '../state/workspace';
+
+export interface NoticeBarProps {
+  notices: Notice[];
+  onDismiss(id: number): void;
+  recoveryOffer: { savedAtIso: string } | undefined;
+  onRestore(): void;
+  onDiscard(): void;
+}
+
+export function NoticeBar({ notices, onDismiss, recoveryOffer, onRestore, onDiscard }: NoticeBarProps) {
+  if (notices.length === 0 && recoveryOffer === undefined) return null;
+  return (
+    <div className="notices" aria-live="polite" data-testid="notices">
+      {recoveryOffer !== undefined && (
+        <div className="notice notice-warning" data-testid="recovery-offer">
+          <span>Unsaved work from {recoveryOffer.savedAtIso} was kept when Whence last closed.</span>
+          <button type="button" onClick={onRestore} data-testid="recovery-restore">Restore it</button>
+          <button type="button" onClick={onDiscard}>Discard</button>
+        </div>
+      )}
+      {notices.map((notice) => (
+        <div key={notice.id} className={`notice notice-${notice.level}`} role={notice.level === 'error' ? 'alert' : undefined} data-testid={`notice-${notice.level}`}>
+          <span>{notice.text}</span>
+          <button type="button" aria-label="Dismiss" onClick={() => onDismiss(notice.id)}>×</button>
+        </div>
+      ))}
+    </div>
+  );
+}

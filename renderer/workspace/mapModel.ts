@@ -1,0 +1,68 @@
+// From the workspace to the map's props: microphones, the selected event's hyperbolae, the session's fixes and
+// the precision-map overlay. Pure (memoised by the caller).
+import { precisionMap } from '../../core/locate';
+import type { LocatedEvent } from '../../core/pipeline';
+import type { ProjectDocument } from '../../core/project';
+import type { MapFix, MapHyperbola, MapMicrophone, MapOverlay } from '../map';
+
+export function mapMicrophones(document: ProjectDocument): MapMicrophone[] {
+  return document.array.microphones.map((m) => ({ label: m.label, channel: m.channel, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters }));
+}
+
+/** Quality 0..1 from the correlation's peak-to-second ratio: 1 at a ratio of 5 or more; 0 for pairs left out. */
+export function pairQuality(peakToSecondRatio: number, used: boolean): number {
+  if (!used) return 0;
+  return Math.max(0, Math.min(1, (peakToSecondRatio - 1) / 4));
+}
+
+export function mapHyperbolae(located: LocatedEvent | undefined): MapHyperbola[] {
+  if (located === undefined) return [];
+  const dropped = new Set(located.reduced.droppedPairs.map((p) => `${p.indexA}-${p.indexB}`));
+  return located.pairs.map((pair) => ({ indexA: pair.indexA, indexB: pair.indexB, delaySeconds: pair.delaySeconds, quality: pairQuality(pair.peakToSecondRatio, !dropped.has(`${pair.indexA}-${pair.indexB}`)) }));
+}
+
+export function mapFixes(events: readonly LocatedEvent[], selectedIndex: number | undefined): MapFix[] {
+  const fixes: MapFix[] = [];
+  events.forEach((located, index) => {
+    const fix = located.solve.fix;
+    if (fix === undefined) return;
+    const entry: MapFix = { id: `event-${index}`, label: `${located.event.index + 1}`, status: located.solve.status, eastMeters: fix.eastMeters, northMeters: fix.northMeters, upMeters: fix.upMeters, ellipse: fix.ellipse, selected: index === selectedIndex };
+    if (fix.alternative !== undefined) entry.alternative = { eastMeters: fix.alternative.eastMeters, northMeters: fix.alternative.northMeters };
+    fixes.push(entry);
+  });
+  return fixes;
+}
+
+export function planeHeightMeters(document: ProjectDocument, located: LocatedEvent | undefined): number {
+  if (located?.solve.fix !== undefined) return located.solve.fix.upMeters;
+  if (document.settings.sourceUpMeters !== undefined) return document.settings.sourceUpMeters;
+  const mics = document.array.microphones;
+  return mics.length === 0 ? 0 : mics.reduce((sum, m) => sum + m.upMeters, 0) / mics.length;
+}
+
+export const PRECISION_TIMING_SIGMA_SECONDS = 50e-6;
+
+/** Expected 1-sigma horizontal error over the array's surroundings for a given arrival-time sigma (CRLB). */
+export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond: number, cells = 120): MapOverlay | undefined {
+  const mics = document.array.microphones;
+  if (mics.length < 3) return undefined;
+  const easts = mics.map((m) => m.eastMeters);
+  const norths = mics.map((m) => m.northMeters);
+  const span = Math.max(20, Math.max(...easts) - Math.min(...easts), Math.max(...norths) - Math.min(...norths));
+  const centreEast = (Math.max(...easts) + Math.min(...easts)) / 2;
+  const centreNorth = (Math.max(...norths) + Math.min(...norths)) / 2;
+  const step = (3 * span) / cells;
+  const grid = { eastStartMeters: centreEast - 1.5 * span + step / 2, northStartMeters: centreNorth - 1.5 * span + step / 2, eastStepMeters: step, northStepMeters: step, columns: cells, rows: cells, upMeters: planeHeightMeters(document, undefined) };
+  const output = { horizontalErrorMeters: new Float64Array(cells * cells), gdop: new Float64Array(cells * cells) };
+  try {
+    precisionMap(mics.map((m) => ({ label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters })), grid, { speedMetersPerSecond, timingSigmaSeconds: PRECISION_TIMING_SIGMA_SECONDS, dimensions: 2, timingModel: 'arrival-times' }, output);
+  } catch {
+    return undefined;
+  }
+  return {
+    kind: 'precision',
+    grid: { firstEastMeters: grid.eastStartMeters, stepEastMeters: step, countEast: cells, firstNorthMeters: grid.northStartMeters, stepNorthMeters: step, countNorth: cells },
+    values: output.horizontalErrorMeters,
+    unitLabel: `expected 1-σ error, m (arrival σ ${PRECISION_TIMING_SIGMA_SECONDS * 1e6} µs)`,
+  };
+}
