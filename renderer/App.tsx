@@ -3,7 +3,8 @@
 import { useMemo, useState, type DragEvent } from 'react';
 import { WHENCE_VERSION } from '../core/version';
 import { CorrelationsView } from './correlations';
-import { FixLogPanel } from './fixlog';
+import { FixLogPanel, fixLogContextFor } from './fixlog';
+import type { LocatedEvent } from '../core/pipeline';
 import { detectHost } from './host';
 import { MapView } from './map';
 import { MicrophonesPanel } from './microphones';
@@ -31,10 +32,25 @@ export function App() {
   const selected = state.selectedEventIndex === undefined ? undefined : state.events[state.selectedEventIndex];
 
   const microphones = useMemo(() => mapMicrophones(state.document), [state.document]);
+  const settingsValue = useMemo(() => ({ medium: state.document.medium, settings: state.document.settings }), [state.document.medium, state.document.settings]);
+  const meanUp = useMemo(() => { const m = state.document.array.microphones; return m.length === 0 ? 0 : m.reduce((sum, x) => sum + x.upMeters, 0) / m.length; }, [state.document.array.microphones]);
   const hyperbolae = useMemo(() => mapHyperbolae(selected), [selected]);
   const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex), [state.events, state.selectedEventIndex]);
   const overlay = useMemo(() => (showPrecision ? precisionOverlay(state.document, speedMetersPerSecond) : undefined), [showPrecision, state.document, speedMetersPerSecond]);
   const logged = useMemo(() => loggedEventIndices(state.document.fixes), [state.document.fixes]);
+  const fixLogContext = useMemo(() => {
+    if (state.recording === undefined) return undefined;
+    const located = new Map<string, LocatedEvent>();
+    for (const fix of state.document.fixes) {
+      const match = state.events.find((event) => event.event.index === fix.eventIndex);
+      if (match !== undefined) located.set(fix.id, match);
+    }
+    try {
+      return fixLogContextFor({ recordingName: state.recording.name, ...(state.recording.info.startTime ? { recordingStartTime: state.recording.info.startTime } : {}), sampleRateHz: state.recording.info.sampleRateHz, microphones: state.document.array.microphones, ...(state.document.array.origin ? { origin: state.document.array.origin } : {}), medium: state.document.medium, settings: state.document.settings, located });
+    } catch {
+      return undefined;
+    }
+  }, [state.recording, state.document, state.events]);
   const recordingEvents = useMemo(() => state.events.map((located, index) => ({ index, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, status: located.solve.status, selected: index === state.selectedEventIndex })), [state.events, state.selectedEventIndex]);
   const channelLabels = useMemo(() => {
     const count = state.recording?.info.channelCount ?? 0;
@@ -87,7 +103,7 @@ export function App() {
                 onExportArray={(text) => void workspace.exportArray(text)}
               />
             ) : (
-              <SettingsPanel value={{ medium: state.document.medium, settings: state.document.settings }} onChange={(next) => { if (next.medium !== state.document.medium) workspace.setMedium(next.medium); if (next.settings !== state.document.settings) workspace.setSettings(next.settings); }} />
+              <SettingsPanel value={settingsValue} meanMicrophoneUpMeters={meanUp} onChange={(next) => { if (next.medium !== state.document.medium) workspace.setMedium(next.medium); if (next.settings !== state.document.settings) workspace.setSettings(next.settings); }} />
             )}
           </div>
         </aside>
@@ -139,11 +155,10 @@ export function App() {
           <EventsPanel events={state.events} selectedIndex={state.selectedEventIndex} loggedEventIndices={logged} onSelect={workspace.selectEvent} onLog={workspace.logEvents} />
           <FixLogPanel
             entries={state.document.fixes}
-            selectedId={state.selectedFixId}
-            origin={state.document.array.origin}
-            context={workspace.surveyContext()}
+            {...(state.selectedFixId !== undefined ? { selectedId: state.selectedFixId } : {})}
+            context={fixLogContext}
+            onChange={workspace.setFixes}
             onSelect={workspace.selectFix}
-            onUpdate={workspace.updateFix}
             onExport={(kind, text) => void workspace.exportText(kind === 'csv' ? 'whence-log.csv' : 'whence-log.geojson', text, kind)}
           />
         </aside>

@@ -116,8 +116,8 @@ export function readConfidence(raw: string): { value: number } | { message: stri
 export interface SettingsReading {
   /** The medium when every field of it reads and the model accepts it; otherwise undefined (the last good one stays in use). */
   medium?: ProjectMedium;
-  /** The settings when every field reads; otherwise undefined. */
-  settings?: ProjectSettings;
+  /** The settings: each field that reads, the base value for each that does not. */
+  settings: ProjectSettings;
   /** What is wrong, per field, shown next to it. */
   messages: Partial<Record<SettingsTextField, string>>;
   /** The speed the typed medium gives, when its fields read as numbers (ok false: the model's message). */
@@ -172,20 +172,26 @@ function readMedium(form: SettingsForm, messages: SettingsReading['messages']): 
   return { medium: 'freshwater', temperatureCelsius: temperatureCelsius!, temperatureSigmaKelvin: temperatureSigmaKelvin! };
 }
 
-function readSettings(form: SettingsForm, base: ProjectSettings, messages: SettingsReading['messages']): ProjectSettings | undefined {
-  let ok = true;
-  const settings: ProjectSettings = { dimensions: form.dimensions, confidence: base.confidence, weighting: form.weighting, bandHz: 'automatic' };
-  if (base.detectionBandHz !== undefined) settings.detectionBandHz = base.detectionBandHz;
+/** Each settings field that reads replaces the base value; a wrong field keeps the base value (and has a message). */
+function readSettings(form: SettingsForm, base: ProjectSettings, messages: SettingsReading['messages']): ProjectSettings {
+  const settings: ProjectSettings = { ...base, dimensions: form.dimensions, weighting: form.weighting };
 
   const confidence = readConfidence(form.confidence);
-  if ('message' in confidence) { messages.confidence = confidence.message; ok = false; } else settings.confidence = confidence.value;
+  if ('message' in confidence) messages.confidence = confidence.message;
+  else settings.confidence = confidence.value;
 
-  if (form.dimensions === 2) {
+  if (form.dimensions === 3) {
+    delete settings.sourceUpMeters;
+  } else {
     const height = readNumber(form.height, 'metres up');
-    if ('message' in height) { messages.height = height.message; ok = false; } else if ('value' in height) settings.sourceUpMeters = height.value;
+    if ('message' in height) messages.height = height.message;
+    else if ('value' in height) settings.sourceUpMeters = height.value;
+    else delete settings.sourceUpMeters;
   }
 
-  if (form.bandMode === 'fixed') {
+  if (form.bandMode === 'automatic') {
+    settings.bandHz = 'automatic';
+  } else {
     const low = readNumber(form.bandLow, 'hertz');
     const high = readNumber(form.bandHigh, 'hertz');
     if ('blank' in low) messages.bandLow = 'enter the lower edge in Hz';
@@ -198,37 +204,43 @@ function readSettings(form: SettingsForm, base: ProjectSettings, messages: Setti
       if (high.value > low.value) settings.bandHz = { lowHz: low.value, highHz: high.value };
       else messages.bandHigh = `the upper edge must be above the lower (${low.value} Hz)`;
     }
-    if (messages.bandLow !== undefined || messages.bandHigh !== undefined) ok = false;
   }
 
   const threshold = readNumber(form.threshold, 'decibels');
-  if ('message' in threshold) { messages.threshold = threshold.message; ok = false; }
-  else if ('value' in threshold) {
-    if (threshold.value >= THRESHOLD_RANGE_DB.min && threshold.value <= THRESHOLD_RANGE_DB.max) settings.detectionThresholdDb = threshold.value;
-    else { messages.threshold = `give ${THRESHOLD_RANGE_DB.min} to ${THRESHOLD_RANGE_DB.max} dB above the noise floor`; ok = false; }
-  }
+  if ('message' in threshold) messages.threshold = threshold.message;
+  else if ('blank' in threshold) delete settings.detectionThresholdDb;
+  else if (threshold.value >= THRESHOLD_RANGE_DB.min && threshold.value <= THRESHOLD_RANGE_DB.max) settings.detectionThresholdDb = threshold.value;
+  else messages.threshold = `give ${THRESHOLD_RANGE_DB.min} to ${THRESHOLD_RANGE_DB.max} dB above the noise floor`;
 
   const minChannels = readNumber(form.minChannels, 'channels');
-  if ('message' in minChannels) { messages.minChannels = minChannels.message; ok = false; }
-  else if ('value' in minChannels) {
-    if (Number.isInteger(minChannels.value) && minChannels.value >= 2) settings.minChannels = minChannels.value;
-    else { messages.minChannels = 'give a whole number of channels from 2'; ok = false; }
-  }
-  return ok ? settings : undefined;
+  if ('message' in minChannels) messages.minChannels = minChannels.message;
+  else if ('blank' in minChannels) delete settings.minChannels;
+  else if (Number.isInteger(minChannels.value) && minChannels.value >= 2) settings.minChannels = minChannels.value;
+  else messages.minChannels = 'give a whole number of channels from 2';
+  return settings;
 }
 
-/** Reads the form: the medium and settings it describes (each only when wholly valid), messages per field, and the speed. */
+/** A core/medium message for the screen: without the model's name (shown in the readout) and with plain input names. */
+export function plainMediumMessage(message: string): string {
+  const plain: Record<MediumField, string> = {
+    temperatureCelsius: 'temperature', temperatureSigmaKelvin: 'temperature sigma', relativeHumidityPercent: 'humidity', pressureKilopascals: 'pressure',
+    co2PartsPerMillion: 'CO2', salinityPartsPerThousand: 'salinity', depthMeters: 'depth', speedMetersPerSecond: 'speed', speedSigmaMetersPerSecond: 'speed sigma',
+  };
+  const body = message.replace(/^[^:]*speed of sound \([^)]*\): /i, '');
+  const text = (Object.keys(plain) as MediumField[]).reduce((result, field) => result.split(field).join(plain[field]), body);
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** Reads the form: the medium it describes (only when wholly valid), the settings (field by field), messages per field, and the speed. */
 export function readSettingsForm(form: SettingsForm, base: SettingsValue): SettingsReading {
   const messages: SettingsReading['messages'] = {};
   const typedMedium = readMedium(form, messages);
-  const reading: SettingsReading = { messages };
+  const reading: SettingsReading = { messages, settings: readSettings(form, base.settings, messages) };
   if (typedMedium !== undefined) {
     const speed = describeSpeed(typedMedium);
     reading.speed = speed;
     if (speed.ok) reading.medium = typedMedium;
-    else messages[speed.field !== undefined ? MEDIUM_FIELD_OF[speed.field] : form.medium === 'fixed-speed' ? 'speed' : 'temperature'] = speed.message;
+    else messages[speed.field !== undefined ? MEDIUM_FIELD_OF[speed.field] : form.medium === 'fixed-speed' ? 'speed' : 'temperature'] = plainMediumMessage(speed.message);
   }
-  const settings = readSettings(form, base.settings, messages);
-  if (settings !== undefined) reading.settings = settings;
   return reading;
 }

@@ -45,6 +45,7 @@ export interface WorkspaceController {
   selectSpan(startSeconds: number, endSeconds: number): void;
   logEvents(indices: number[]): void;
   updateFix(id: string, patch: { label?: string; note?: string; accepted?: boolean }): void;
+  setFixes(fixes: import('../../core/project').FixLogEntry[]): void;
   selectFix(id: string | undefined): void;
   exportLog(kind: 'csv' | 'geojson'): Promise<void>;
   exportText(name: string, text: string, kind: 'csv' | 'geojson' | 'json'): Promise<void>;
@@ -334,6 +335,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     selectSpan: (startSeconds, endSeconds) => dispatch({ type: 'selection/set', selection: { startSeconds, endSeconds } }),
     logEvents: (indices) => dispatch({ type: 'fixes/log-events', indices }),
     updateFix: (id, patch) => dispatch({ type: 'fix/update', id, patch }),
+    setFixes: (fixes) => dispatch({ type: 'fixes/set', fixes }),
     selectFix: (id) => dispatch({ type: 'fix/select', id }),
     exportLog,
     exportText,

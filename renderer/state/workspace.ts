@@ -5,7 +5,7 @@ import type { EnvelopePyramid } from '../../core/overview';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry, ProjectArray, ProjectDocument, ProjectMedium, ProjectSettings } from '../../core/project';
 import type { SolveResult } from '../../core/locate';
-import { fixLogEntryFrom } from './derive';
+import { fixLogEntryFromLocated } from '../fixlog';
 
 export interface Notice { id: number; level: 'info' | 'warning' | 'error'; text: string }
 export interface Busy { label: string; progress: number; detail?: string }
@@ -41,6 +41,7 @@ export type WorkspaceAction =
   | { type: 'selection/set'; selection: { startSeconds: number; endSeconds: number } | undefined }
   | { type: 'fixes/log-events'; indices: number[] }
   | { type: 'fix/update'; id: string; patch: Partial<Pick<FixLogEntry, 'label' | 'note' | 'accepted'>> }
+  | { type: 'fixes/set'; fixes: FixLogEntry[] }
   | { type: 'fix/select'; id: string | undefined }
   | { type: 'busy/set'; busy: Busy | undefined }
   | { type: 'notice/add'; level: Notice['level']; text: string }
@@ -105,7 +106,9 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
       for (const index of action.indices) {
         const located = state.events[index];
         if (located === undefined) continue;
-        const entry = fixLogEntryFrom(located, fixIdFor({ ...working, document: { ...working.document, fixes: [...working.document.fixes, ...added] } }, located.event.index), state.recording?.info);
+        const id = fixIdFor({ ...working, document: { ...working.document, fixes: [...working.document.fixes, ...added] } }, located.event.index);
+        const info = state.recording?.info;
+        const entry = fixLogEntryFromLocated(located, { id, label: `sound ${located.event.index + 1}`, ...(info?.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
         added.push(entry);
       }
       working = editDocument(state, { ...state.document, fixes: [...state.document.fixes, ...added] });
@@ -113,6 +116,8 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
     }
     case 'fix/update':
       return editDocument(state, { ...state.document, fixes: state.document.fixes.map((fix) => (fix.id === action.id ? { ...fix, ...action.patch } : fix)) });
+    case 'fixes/set':
+      return editDocument(state, { ...state.document, fixes: action.fixes });
     case 'fix/select':
       return { ...state, selectedFixId: action.id };
     case 'busy/set':

@@ -1,0 +1,98 @@
+import { describe, expect, it } from 'vitest';
+import { readCsv } from '../../../core/csv';
+import { locatedEventRecord, surveyLogColumns } from '../../../core/export';
+import type { LocatedEvent } from '../../../core/pipeline';
+import type { FixLogEntry } from '../../../core/project';
+import { fixLogEntryFromLocated } from '../../../renderer/fixlog/entryFromLocated';
+import { COLUMNS_NEEDING_LOCATED_EVENT, fixLogExportText, fixLogToRecords, type FixLogContext } from '../../../renderer/fixlog/fixLogRecords';
+import { locatedEvent, squareArray, startTime, surveyContext, tallArray } from './locatedFixtures';
+
+function entriesOf(events: LocatedEvent[]): FixLogEntry[] {
+  return events.map((event, i) => fixLogEntryFromLocated(event, { id: `fix-${i + 1}`, recordingStartTime: startTime, sampleRateHz: 48_000 }));
+}
+
+const events2d = [locatedEvent(squareArray, [100, 150, 1.5], 0, 2, 1), locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2), locatedEvent(squareArray, [-30, 10, 1.5], 2, 2, 3)];
+const events3d = [locatedEvent(tallArray, [20, 30, 4], 0, 3, 4), locatedEvent(tallArray, [35, 10, 2], 1, 3, 5)];
+
+describe('fixLogToRecords()', () => {
+  it('fixLogToRecords() writes exactly the command line\'s record when the located event is at hand (plus label and note)', () => {
+    const context: FixLogContext = { ...surveyContext(squareArray, 2, true), located: new Map(events2d.map((event, i) => [`fix-${i + 1}`, event])) };
+    const entries = entriesOf(events2d).map((entry, i) => (i === 1 ? { ...entry, label: ' wren ', note: 'song start' } : entry));
+    const records = fixLogToRecords(entries, context);
+    records.forEach((record, i) => {
+      const expected = locatedEventRecord(events2d[i]!, context);
+      if (i === 1) expect(record).toEqual({ ...expected, label: 'wren', note: 'song start' });
+      else expect(record).toEqual(expected);
+    });
+  });
+
+  for (const [dimensions, array, events] of [[2, squareArray, events2d], [3, tallArray, events3d]] as const) {
+    it(`fixLogToRecords() rebuilds a saved ${dimensions}-D entry's columns with the same values as locatedEventRecord, leaving unkept columns empty`, () => {
+      const context = surveyContext(array, dimensions, true);
+      const records = fixLogToRecords(entriesOf(events), context);
+      records.forEach((record, i) => {
+        const expected = locatedEventRecord(events[i]!, context);
+        expect(events[i]!.solve.fix).toBeDefined();
+        for (const column of surveyLogColumns(dimensions)) {
+          if ((COLUMNS_NEEDING_LOCATED_EVENT as readonly string[]).includes(column)) expect(record[column], column).toBeUndefined();
+          else expect(record[column], column).toEqual(expected[column]);
+        }
+      });
+    });
+  }
+
+  it('fixLogToRecords() writes an entry without a position as the command line writes a failed fix', () => {
+    const failed = locatedEvent(squareArray, [10, 10, 1.5], 3, 2, 9);
+    const noFix: LocatedEvent = { ...failed, solve: { status: 'insufficient', warnings: ['No usable time differences for this event.'] }, emissionTimeSeconds: undefined };
+    const context = surveyContext(squareArray, 2, false);
+    const [record] = fixLogToRecords(entriesOf([noFix]), context);
+    const expected = locatedEventRecord(noFix, context);
+    for (const column of surveyLogColumns(2)) {
+      if (!(COLUMNS_NEEDING_LOCATED_EVENT as readonly string[]).includes(column)) expect(record![column], column).toEqual(expected[column]);
+    }
+    expect(record!.x_m).toBeUndefined();
+    expect(record!.status).toBe('insufficient');
+  });
+
+  it('fixLogToRecords() takes the entry\'s clock time when the context has no recording start time', () => {
+    const context = { ...surveyContext(squareArray, 2, false), recordingStartTime: undefined };
+    const [record] = fixLogToRecords([{ ...entriesOf(events2d)[0]!, localTime: '2024-05-18T04:12:10.400' }], context);
+    expect(record!.local_time).toBe('2024-05-18T04:12:10.400');
+  });
+});
+
+describe('fixLogExportText()', () => {
+  const entries = entriesOf(events2d).map((entry, i) => ({ ...entry, accepted: i !== 1, label: i === 2 ? 'dog?' : '', note: i === 2 ? 'far away' : '' }));
+
+  it('fixLogExportText() writes only the accepted fixes as the survey-log CSV with the columns of whence locate', () => {
+    const result = fixLogExportText('csv', entries, surveyContext(squareArray, 2, true));
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    const table = readCsv(result.text, 'log.csv');
+    expect(table.header).toEqual(surveyLogColumns(2));
+    expect(table.rows.map((row) => row.cells[0])).toEqual(['1', '3']);
+    expect(result.text).toContain('# note: exported from the fix log: 2 accepted fixes of 3');
+    expect(result.text).toContain('# note: event 3 "dog?": far away');
+  });
+
+  it('fixLogExportText() writes GeoJSON points and ellipses of the accepted fixes, and asks for an origin without one', () => {
+    const result = fixLogExportText('geojson', entries, surveyContext(squareArray, 2, true));
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    const collection = JSON.parse(result.text) as { type: string; features: Array<{ geometry: { type: string }; properties: Record<string, unknown> }> };
+    expect(collection.type).toBe('FeatureCollection');
+    const fixes = collection.features.filter((f) => f.properties.feature === 'fix');
+    expect(fixes.map((f) => f.properties.event)).toEqual(['1', '3']);
+    expect(fixes[1]!.properties.label).toBe('dog?');
+    expect(collection.features.filter((f) => f.properties.feature === 'uncertainty-ellipse')).toHaveLength(2);
+    expect(collection.features.filter((f) => f.properties.feature === 'microphone')).toHaveLength(4);
+    const noOrigin = fixLogExportText('geojson', entries, surveyContext(squareArray, 2, false));
+    expect(noOrigin.ok).toBe(false);
+    expect(!noOrigin.ok && noOrigin.message).toContain('origin');
+  });
+
+  it('fixLogExportText() refuses to write an empty log', () => {
+    const none = fixLogExportText('csv', entries.map((entry) => ({ ...entry, accepted: false })), surveyContext(squareArray, 2, true));
+    expect(none).toEqual({ ok: false, message: 'No accepted fixes to export: tick the fixes to keep.' });
+  });
+});

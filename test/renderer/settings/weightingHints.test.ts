@@ -1,0 +1,11 @@
+import { describe, expect, it } from 'vitest';
+import { gccWeightings } from '../../../core/dsp';
+import { WEIGHTING_CHOICES, weightingChoice } from '../../../renderer/settings/weightingHints';
+
+describe('WEIGHTING_CHOICES', () => {
+  it('WEIGHTING_CHOICES offers every weighting core/dsp knows, once, each with a hint', () => {
+    expect(WEIGHTING_CHOICES.map((choice) => choice.value).sort()).toEqual([...gccWeightings].sort());
+    expect(WEIGHTING_CHOICES.every((choice) => choice.hint.length > 20)).toBe(true);
+    expect(weightingChoice('ml').name).toBe('ML / HT');
+  });
+});
