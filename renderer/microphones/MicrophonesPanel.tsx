@@ -113,7 +113,8 @@ export function MicrophonesPanel(props: MicrophonesPanelProps) {
   function commit(next: TableState): void {
     const derived = derive(next, origin, recordingChannelCount);
     let emittedKey = next.emittedKey;
-    if (derived.originParse.kind !== 'invalid') {
+    // While any row has an error the array in use stays as it was (the fixes do not jump); the table keeps the text.
+    if (derived.originParse.kind !== 'invalid' && derived.validation.errorRowCount === 0) {
       const key = keyOf(derived.validation.microphones, derived.validation.origin);
       if (key !== propsKey && key !== next.emittedKey) {
         emittedKey = key;

@@ -18,6 +18,15 @@ function message(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
 }
 
+/** The speed of sound of a document, read when needed (never from a stale closure). */
+function currentSpeed(document: ProjectDocument): SpeedInUse | { error: string } {
+  try {
+    return speedInUse(document.medium);
+  } catch (error) {
+    return { error: message(error) };
+  }
+}
+
 function createWorker(): Worker {
   return new Worker(new URL('../worker/pipelineWorker.ts', import.meta.url), { type: 'module' });
 }
@@ -75,13 +84,7 @@ export function useWorkspace(host: Host): WorkspaceController {
 
   const notify = useCallback((level: 'info' | 'warning' | 'error', text: string) => dispatch({ type: 'notice/add', level, text }), []);
 
-  const speed = useMemo((): SpeedInUse | { error: string } => {
-    try {
-      return speedInUse(state.document.medium);
-    } catch (error) {
-      return { error: message(error) };
-    }
-  }, [state.document.medium]);
+  const speed = useMemo(() => currentSpeed(state.document), [state.document.medium]);
 
   const loadRecording = useCallback(async (opened: OpenedRecording): Promise<WavInfo | undefined> => {
     const previous = recordingRef.current;
@@ -115,6 +118,7 @@ export function useWorkspace(host: Host): WorkspaceController {
   const locateAll = useCallback(async () => {
     const current = stateRef.current;
     const blockers = locateBlockers(current.document, current.recording?.info.channelCount);
+    const speed = currentSpeed(current.document);
     if ('error' in speed) blockers.push(speed.error);
     if (blockers.length > 0) { notify('warning', `Cannot locate yet: ${blockers.join(' ')}`); return; }
     const context = locateContext(current.document, speed as SpeedInUse);
@@ -136,11 +140,12 @@ export function useWorkspace(host: Host): WorkspaceController {
       workRef.current = undefined;
       dispatch({ type: 'busy/set', busy: undefined });
     }
-  }, [bridge, notify, speed]);
+  }, [bridge, notify]);
 
   const locateSpan = useCallback(async (startSeconds: number, endSeconds: number) => {
     const current = stateRef.current;
     const blockers = locateBlockers(current.document, current.recording?.info.channelCount);
+    const speed = currentSpeed(current.document);
     if ('error' in speed) blockers.push(speed.error);
     if (blockers.length > 0) { notify('warning', `Cannot locate yet: ${blockers.join(' ')}`); return; }
     dispatch({ type: 'busy/set', busy: { label: 'Locating the selection', progress: 0.5 } });
@@ -155,10 +160,12 @@ export function useWorkspace(host: Host): WorkspaceController {
     } finally {
       dispatch({ type: 'busy/set', busy: undefined });
     }
-  }, [bridge, notify, speed]);
+  }, [bridge, notify]);
 
-  // Re-solve the located events whenever the array, the medium or the settings change (delays stay as measured).
+  // Re-solve the located events whenever the array, the medium or the settings change (delays stay as measured):
+  // the selected event at once, the others just after (a pending batch is replaced by the next change only).
   const solveKey = useRef<unknown[]>([]);
+  const solveTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   useEffect(() => {
     const key = [state.document.array, state.document.medium, state.document.settings];
     const changed = key.some((part, i) => part !== solveKey.current[i]);
@@ -170,11 +177,13 @@ export function useWorkspace(host: Host): WorkspaceController {
     if (selected !== undefined && state.events[selected] !== undefined) {
       dispatch({ type: 'events/resolved', solves: [{ index: selected, solve: resolveEvent(state.events[selected]!, context, fs) }] });
     }
-    const timer = setTimeout(() => {
+    if (solveTimer.current !== undefined) clearTimeout(solveTimer.current);
+    solveTimer.current = setTimeout(() => {
+      solveTimer.current = undefined;
       dispatch({ type: 'events/resolved', solves: stateRef.current.events.map((located, index) => ({ index, solve: resolveEvent(located, context, fs) })) });
     }, 120);
-    return () => clearTimeout(timer);
   }, [state.document, state.events, state.recording, state.selectedEventIndex, speed]);
+  useEffect(() => () => { if (solveTimer.current !== undefined) clearTimeout(solveTimer.current); }, []);
 
   // Correlation plots of the selected event.
   useEffect(() => {
@@ -234,6 +243,7 @@ export function useWorkspace(host: Host): WorkspaceController {
 
   const surveyContext = useCallback((): SurveyLogContext | undefined => {
     const current = stateRef.current;
+    const speed = currentSpeed(current.document);
     if ('error' in speed || current.recording === undefined) return undefined;
     return {
       recordingName: current.recording.name, recordingStartTime: current.recording.info.startTime, sampleRateHz: current.recording.info.sampleRateHz,
@@ -242,7 +252,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       softwareVersion: WHENCE_VERSION, settings: { dims: current.document.settings.dimensions, confidence: current.document.settings.confidence, weighting: current.document.settings.weighting, band_hz: current.document.settings.bandHz === 'automatic' ? 'per event' : `${current.document.settings.bandHz.lowHz}-${current.document.settings.bandHz.highHz}` },
       dimensions: current.document.settings.dimensions,
     };
-  }, [speed]);
+  }, []);
 
   const exportText = useCallback(async (name: string, text: string, kind: 'csv' | 'geojson' | 'json') => {
     try {

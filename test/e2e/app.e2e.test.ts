@@ -1,0 +1,145 @@
+// The app in a real browser (web mode, Debian's Chromium via playwright-core): the demo opens and shows its fixes;
+// editing and dragging a microphone move the fix; a selected span is located into the log; the exported log matches
+// the command line; a corrupt recording and a bad cell give messages and lose nothing. Screenshots at 1440 x 900.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readCsv } from '../../core/csv';
+import { buildCliOnce } from '../helpers/cli';
+import { chromiumAvailable, openPage, SCREENSHOT_FOLDER, startWebApp, type WebApp } from '../helpers/webApp';
+
+const mustRun = process.env.CI === 'true';
+const run = chromiumAvailable() || mustRun;
+
+async function demoLoaded(page: Page): Promise<number> {
+  await page.waitForFunction(() => document.querySelectorAll('[data-testid^="event-row-"]').length >= 15, undefined, { timeout: 90_000 });
+  return page.locator('[data-testid^="event-row-"]').count();
+}
+
+async function firstFixX(page: Page): Promise<string> {
+  return (await page.locator('[data-testid="event-row-1"] td').nth(3).textContent()) ?? '';
+}
+
+describe.runIf(run)('the app in a browser', () => {
+  let app: WebApp;
+  let page: Page;
+
+  beforeAll(async () => {
+    app = await startWebApp(5391);
+    page = await openPage(app);
+  }, 240_000);
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('opens the demo and shows where its sounds came from, without typing anything', async () => {
+    const rows = await demoLoaded(page);
+    expect(rows).toBeGreaterThanOrEqual(15);
+    expect(await page.locator('[data-testid^="map-fix-"]').count()).toBeGreaterThanOrEqual(15);
+    await expect.poll(() => page.locator('[data-testid="event-row-1"] .status').textContent()).toBe('fixed');
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/01-demo-opened.png` });
+  }, 120_000);
+
+  it('moves the fix when a microphone is typed in by hand, and again when one is dragged on the map', async () => {
+    await page.locator('[data-testid="event-row-1"]').click();
+    const before = await firstFixX(page);
+    const east = page.locator('[data-testid="microphone-cell-2-east"]');
+    await east.fill('37.5');
+    await east.press('Tab');
+    await expect.poll(() => firstFixX(page), { timeout: 10_000 }).not.toBe(before);
+    const typed = await firstFixX(page);
+    const stage = await page.locator('[data-testid="map-stage"]').boundingBox();
+    const probe = page.locator('[data-testid="map-microphone-3"]');
+    const x = Number(await probe.getAttribute('data-x-pixels'));
+    const y = Number(await probe.getAttribute('data-y-pixels'));
+    await page.mouse.move(stage!.x + x, stage!.y + y);
+    await page.mouse.down();
+    await page.mouse.move(stage!.x + x + 30, stage!.y + y + 20, { steps: 6 });
+    await page.mouse.up();
+    await expect.poll(() => firstFixX(page), { timeout: 10_000 }).not.toBe(typed);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/02-microphone-moved.png` });
+  }, 60_000);
+
+  it('keeps a bad cell’s text with its message and leaves the array in use unchanged', async () => {
+    const before = await firstFixX(page);
+    const north = page.locator('[data-testid="microphone-cell-1-north"]');
+    await north.fill('38,5 m');
+    await north.press('Tab');
+    await expect(page.locator('[data-testid="microphone-message-1"]').textContent()).resolves.toMatch(/\S/);
+    expect(await north.inputValue()).toBe('38,5 m');
+    expect(await firstFixX(page)).toBe(before);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/03-bad-cell.png` });
+    await north.fill('38.5');
+    await north.press('Tab');
+  }, 30_000);
+
+  it('locates a selected span and adds its fix to the log', async () => {
+    await page.locator('[data-testid="event-row-2"]').click();
+    const logRowsBefore = await page.locator('[data-testid^="fixlog-row-"]').count();
+    await page.locator('[data-testid="locate-selection"]').click();
+    await expect.poll(() => page.locator('[data-testid^="fixlog-row-"]').count(), { timeout: 30_000 }).toBe(logRowsBefore + 1);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/04-selection-located.png` });
+  }, 60_000);
+
+  it('exports the log as CSV whose rows match the command line’s', async () => {
+    // Back to the demo's own array, then log every fixed sound and export.
+    await page.locator('[data-testid="open-demo"]').click();
+    await page.locator('[data-testid="busy"]').waitFor({ state: 'visible', timeout: 10_000 }).catch(() => undefined);
+    await page.locator('[data-testid="busy"]').waitFor({ state: 'hidden', timeout: 90_000 });
+    await demoLoaded(page);
+    await page.locator('[data-testid="events-log-all"]').click();
+    await expect.poll(() => page.locator('[data-testid^="fixlog-row-"]').count()).toBeGreaterThanOrEqual(15);
+    const downloadPromise = page.waitForEvent('download');
+    await page.locator('[data-testid="fixlog-export-csv"]').click();
+    const download = await downloadPromise;
+    const folder = mkdtempSync(join(tmpdir(), 'whence-e2e-'));
+    const appCsvPath = join(folder, 'app.csv');
+    await download.saveAs(appCsvPath);
+    const appTable = readCsv(readFileSync(appCsvPath, 'utf8'), 'app.csv');
+    writeFileSync(join(SCREENSHOT_FOLDER, 'exported-log.csv'), readFileSync(appCsvPath));
+
+    buildCliOnce();
+    const cli = spawnSync(process.execPath, ['dist/cli/whence.mjs', 'locate', 'assets/demo/out/demo-recording.wav', '--array', 'assets/demo/out/demo-array.csv', '--origin', '51.92503,14.08512,96.4', '--temperature', '14', '--humidity', '85', '--pressure', '100.9', '--temperature-sigma', '1', '--height', '0.3'], { encoding: 'utf8' });
+    expect(cli.status).toBe(0);
+    writeFileSync(join(SCREENSHOT_FOLDER, 'cli-log.csv'), cli.stdout);
+    const cliTable = readCsv(cli.stdout, 'cli.csv');
+    expect(appTable.header).toEqual(cliTable.header);
+    const column = (name: string) => cliTable.header.indexOf(name);
+    const byTime = (table: typeof cliTable) => new Map(table.rows.map((row) => [row.cells[column('arrival_s')], row.cells]));
+    const cliRows = byTime(cliTable);
+    expect(appTable.rows.length).toBeGreaterThanOrEqual(15);
+    for (const row of appTable.rows) {
+      const match = cliRows.get(row.cells[column('arrival_s')]);
+      expect(match, `the command line has the sound first heard at ${row.cells[column('arrival_s')]} s`).toBeDefined();
+      expect(row.cells[column('status')]).toBe(match![column('status')]);
+      // Same pipeline in a Web Worker and in Node: equal to well under a millimetre (different JavaScript engines).
+      for (const name of ['x_m', 'y_m']) expect(Math.abs(Number(row.cells[column(name)]) - Number(match![column(name)])), name).toBeLessThan(1e-3);
+      for (const name of ['semi_major_m', 'semi_minor_m']) expect(Number(row.cells[column(name)]) / Number(match![column(name)]), name).toBeCloseTo(1, 2);
+      for (const name of ['lat', 'lon']) expect(Math.abs(Number(row.cells[column(name)]) - Number(match![column(name)])), name).toBeLessThan(1e-7);
+    }
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/05-log-exported.png` });
+  }, 180_000);
+
+  it('reports a corrupt recording and keeps the one that was open', async () => {
+    const rowsBefore = await page.locator('[data-testid^="event-row-"]').count();
+    const folder = mkdtempSync(join(tmpdir(), 'whence-e2e-'));
+    writeFileSync(join(folder, 'broken.wav'), 'RIFF\u0000\u0000\u0000\u0000WAVEnot really audio');
+    const chooserPromise = page.waitForEvent('filechooser');
+    await page.locator('[data-testid="open-recording"]').click();
+    const chooser = await chooserPromise;
+    await chooser.setFiles(join(folder, 'broken.wav'));
+    await expect.poll(() => page.locator('[data-testid="notice-error"]').count(), { timeout: 15_000 }).toBeGreaterThan(0);
+    expect(await page.locator('[data-testid="notice-error"]').first().textContent()).toMatch(/broken\.wav could not be opened/);
+    expect(await page.locator('[data-testid^="event-row-"]').count()).toBe(rowsBefore);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/06-corrupt-recording.png` });
+    for (const tab of ['correlations', 'safety', 'conditions']) {
+      await page.locator(`[data-testid="tab-${tab}"]`).click();
+      await page.waitForTimeout(1500);
+      await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-${tab}.png` });
+    }
+  }, 60_000);
+});
