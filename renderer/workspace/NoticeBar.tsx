@@ -1,5 +1,9 @@
 // Messages for the user (what happened, what is wrong and what to do), and the offer to restore unsaved work.
+import { useEffect } from 'react';
 import type { Notice } from '../state/workspace';
+
+/** Information fades after this long; warnings and errors stay until dismissed. */
+export const INFO_NOTICE_MILLISECONDS = 8000;
 
 export interface NoticeBarProps {
   notices: Notice[];
@@ -10,6 +14,10 @@ export interface NoticeBarProps {
 }
 
 export function NoticeBar({ notices, onDismiss, recoveryOffer, onRestore, onDiscard }: NoticeBarProps) {
+  useEffect(() => {
+    const timers = notices.filter((notice) => notice.level === 'info').map((notice) => setTimeout(() => onDismiss(notice.id), INFO_NOTICE_MILLISECONDS));
+    return () => timers.forEach(clearTimeout);
+  }, [notices, onDismiss]);
   if (notices.length === 0 && recoveryOffer === undefined) return null;
   return (
     <div className="notices" aria-live="polite" data-testid="notices">

@@ -1,6 +1,7 @@
 // Seeded generators for locate tests: random arrays and sources (metres), exact and noisy delays (seconds), rigid motions.
 // Own mulberry32 generator and Box-Muller normals, independent of core/locate's, so tests do not share its randomness.
 import type { DelayMeasurement, Microphone } from '../../core/locate';
+import { mulberry32 } from './signals';
 
 export interface Rng {
   uniform(): number;
@@ -9,14 +10,7 @@ export interface Rng {
 
 /** mulberry32 (public domain) with Box-Muller normals. */
 export function makeRng(seed: number): Rng {
-  let state = seed >>> 0;
-  const uniform = (): number => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const uniform = mulberry32(seed);
   const normal = (): number => {
     const u = 1 - uniform();
     const v = uniform();

@@ -7,20 +7,10 @@ import {
   type HyperbolaMicrophone,
   type HyperbolaPoint,
 } from '../../../core/locate/hyperbola';
+import { mulberry32 as seededRandom } from '../../helpers/signals';
 
 const speed = 343;
 
-/** Seeded uniform random numbers in [0, 1) (mulberry32). */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function mic(eastMeters: number, northMeters: number, upMeters = 0): HyperbolaMicrophone {
   return { eastMeters, northMeters, upMeters };

@@ -4,21 +4,11 @@ import { srpGridFromBounds, srpGridIndex, type SrpGrid } from '../../../core/loc
 import { createSrpPlan, srpMap, type PairCorrelationFunction, type SrpMicrophone } from '../../../core/locate/srpMap';
 import { srpRefinePeak } from '../../../core/locate/srpRefine';
 import { srpPeak } from '../../../core/locate/srpPeak';
+import { mulberry32 as seededRandom } from '../../helpers/signals';
 
 const speed = 343;
 const sampleRateHz = 8000;
 
-/** Seeded uniform random numbers in [0, 1) (mulberry32). */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 interface Point3 {
   eastMeters: number;

@@ -4,21 +4,11 @@ import { srpGridFromBounds } from '../../../core/locate/srpGrid';
 import { createSrpPlan, srpMap, srpValueAt, type PairCorrelationFunction, type SrpMicrophone } from '../../../core/locate/srpMap';
 import { srpPeak } from '../../../core/locate/srpPeak';
 import { srpRefinePeak } from '../../../core/locate/srpRefine';
+import { mulberry32 as seededRandom } from '../../helpers/signals';
 
 const speed = 343;
 const sampleRateHz = 8000;
 
-/** Seeded uniform random numbers in [0, 1) (mulberry32). */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 type Point3 = SrpMicrophone;
 const distance = (a: Point3, b: Point3): number => Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters);
