@@ -13,7 +13,7 @@ import { RecordingView } from './recording';
 import { SettingsPanel } from './settings';
 import { useWorkspace } from './state/useWorkspace';
 import { EventsPanel, loggedEventIndices } from './workspace/EventsPanel';
-import { mapFixes, mapHyperbolae, mapMicrophones, planeHeightMeters, precisionOverlay } from './workspace/mapModel';
+import { mapFixes, mapHyperbolae, mapMicrophones, planeHeightMeters, precisionOverlay, srpOverlay } from './workspace/mapModel';
 import { Toolbar } from './workspace/Toolbar';
 import { NoticeBar } from './workspace/NoticeBar';
 
@@ -27,7 +27,7 @@ export function App() {
   const { state } = workspace;
   const [sideTab, setSideTab] = useState<SideTab>('microphones');
   const [bottomTab, setBottomTab] = useState<BottomTab>('recording');
-  const [showPrecision, setShowPrecision] = useState(false);
+  const [overlayKind, setOverlayKind] = useState<'none' | 'precision' | 'srp'>('none');
   const speedMetersPerSecond = 'error' in workspace.speed ? 343 : workspace.speed.speedMetersPerSecond;
   const selected = state.selectedEventIndex === undefined ? undefined : state.events[state.selectedEventIndex];
 
@@ -36,7 +36,12 @@ export function App() {
   const meanUp = useMemo(() => { const m = state.document.array.microphones; return m.length === 0 ? 0 : m.reduce((sum, x) => sum + x.upMeters, 0) / m.length; }, [state.document.array.microphones]);
   const hyperbolae = useMemo(() => mapHyperbolae(selected), [selected]);
   const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex), [state.events, state.selectedEventIndex]);
-  const overlay = useMemo(() => (showPrecision ? precisionOverlay(state.document, speedMetersPerSecond) : undefined), [showPrecision, state.document, speedMetersPerSecond]);
+  const planeUp = planeHeightMeters(state.document, selected);
+  const overlay = useMemo(() => {
+    if (overlayKind === 'precision') return precisionOverlay(state.document, speedMetersPerSecond);
+    if (overlayKind === 'srp') return srpOverlay(state.document, workspace.correlations, speedMetersPerSecond, planeUp);
+    return undefined;
+  }, [overlayKind, state.document, speedMetersPerSecond, workspace.correlations, planeUp]);
   const logged = useMemo(() => loggedEventIndices(state.document.fixes), [state.document.fixes]);
   const fixLogContext = useMemo(() => {
     if (state.recording === undefined) return undefined;
@@ -109,12 +114,18 @@ export function App() {
         </aside>
         <main className="centre">
           <section className="map-area" aria-label="Map">
-            <label className="map-toggle"><input type="checkbox" checked={showPrecision} onChange={(event) => setShowPrecision(event.target.checked)} data-testid="toggle-precision" /> precision map</label>
+            <label className="map-toggle">layer{' '}
+              <select value={overlayKind} onChange={(event) => setOverlayKind(event.target.value as 'none' | 'precision' | 'srp')} data-testid="map-layer">
+                <option value="none">none</option>
+                <option value="precision">precision of the array</option>
+                <option value="srp">SRP-PHAT of the selected sound</option>
+              </select>
+            </label>
             <MapView
               microphones={microphones}
               hyperbolae={hyperbolae}
               speedMetersPerSecond={speedMetersPerSecond}
-              planeUpMeters={planeHeightMeters(state.document, selected)}
+              planeUpMeters={planeUp}
               fixes={fixes}
               {...(overlay !== undefined ? { overlay } : {})}
               {...(state.document.array.origin !== undefined ? { origin: state.document.array.origin } : {})}

@@ -1,7 +1,10 @@
-// Safety notes shown in the app: the same cautions as the README.
+// Safety notes and a short account of Whence shown in the app: the same cautions as the README.
+import { WHENCE_VERSION } from '../../core/version';
+
 export function CautionsPanel() {
   return (
-    <section className="panel cautions" aria-labelledby="cautions-title">
+    <section className="panel cautions" aria-labelledby="cautions-title" data-testid="safety-panel">
+      <p className="muted">Whence {WHENCE_VERSION} finds each sound in a synchronized multichannel recording, measures the time difference of arrival at every microphone pair by generalized cross-correlation (GCC-PHAT and its relatives), and fixes where it came from by least squares, with an uncertainty ellipse from the timing, the speed of sound and the survey of the microphones.</p>
       <h2 id="cautions-title">Before you act on a fix</h2>
       <ul>
         <li>A fix is an estimate with an uncertainty. Never send people towards a located source, or clear an area, on a fix alone; follow your site's procedures and local rules.</li>

@@ -1,6 +1,7 @@
 // From the workspace to the map's props: microphones, the selected event's hyperbolae, the session's fixes and
 // the precision-map overlay. Pure (memoised by the caller).
-import { precisionMap } from '../../core/locate';
+import { createSrpPlan, precisionMap, srpGridFromBounds, srpMap } from '../../core/locate';
+import type { CorrelationPlots } from '../../core/overview';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { ProjectDocument } from '../../core/project';
 import type { MapFix, MapHyperbola, MapMicrophone, MapOverlay } from '../map';
@@ -65,4 +66,29 @@ export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond
     values: output.horizontalErrorMeters,
     unitLabel: `expected 1-σ error, m (arrival σ ${PRECISION_TIMING_SIGMA_SECONDS * 1e6} µs)`,
   };
+}
+
+/** Steered-response power (SRP-PHAT, DiBiase 2000) of the selected sound over the array's surroundings, from its pair correlations. */
+export function srpOverlay(document: ProjectDocument, plots: CorrelationPlots | undefined, speedMetersPerSecond: number, planeUpMeters: number, cells = 150): MapOverlay | undefined {
+  const mics = document.array.microphones;
+  if (plots === undefined || mics.length < 3 || plots.pairs.length === 0) return undefined;
+  const easts = mics.map((m) => m.eastMeters);
+  const norths = mics.map((m) => m.northMeters);
+  const span = Math.max(20, Math.max(...easts) - Math.min(...easts), Math.max(...norths) - Math.min(...norths));
+  const centreEast = (Math.max(...easts) + Math.min(...easts)) / 2;
+  const centreNorth = (Math.max(...norths) + Math.min(...norths)) / 2;
+  try {
+    const grid = srpGridFromBounds({ minEastMeters: centreEast - 1.5 * span, maxEastMeters: centreEast + 1.5 * span, minNorthMeters: centreNorth - 1.5 * span, maxNorthMeters: centreNorth + 1.5 * span, minUpMeters: planeUpMeters, maxUpMeters: planeUpMeters }, { east: cells, north: cells });
+    const plan = createSrpPlan({ microphones: mics, speedMetersPerSecond, grid });
+    const values = new Float64Array(plan.pointCount);
+    srpMap(plan, plots.pairs.map((pair) => ({ indexA: pair.indexA, indexB: pair.indexB, sampleRateHz: pair.sampleRateHz, values: pair.values, zeroLagIndex: pair.maxLagFrames })), values);
+    return {
+      kind: 'srp',
+      grid: { firstEastMeters: grid.east.firstMeters, stepEastMeters: grid.east.stepMeters, countEast: grid.east.count, firstNorthMeters: grid.north.firstMeters, stepNorthMeters: grid.north.stepMeters, countNorth: grid.north.count },
+      values,
+      unitLabel: 'relative SRP-PHAT of the selected sound',
+    };
+  } catch {
+    return undefined;
+  }
 }

@@ -141,5 +141,12 @@ describe.runIf(run)('the app in a browser', () => {
       await page.waitForTimeout(1500);
       await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-${tab}.png` });
     }
+    await page.locator('[data-testid="event-row-3"]').click();
+    await page.locator('[data-testid="map-layer"]').selectOption('srp');
+    await page.waitForTimeout(2000);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/08-layer-srp.png` });
+    await page.locator('[data-testid="map-layer"]').selectOption('precision');
+    await page.waitForTimeout(1000);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/09-layer-precision.png` });
   }, 60_000);
 });
