@@ -88,13 +88,23 @@ export function useWorkspace(host: Host): WorkspaceController {
 
   const loadRecording = useCallback(async (opened: OpenedRecording): Promise<WavInfo | undefined> => {
     const previous = recordingRef.current;
-    recordingRef.current = opened;
-    if (previous !== undefined) await previous.close().catch(() => undefined);
     const worker = bridge();
     worker.setByteReader(opened.byteReader);
     dispatch({ type: 'busy/set', busy: { label: `Reading ${opened.name}`, progress: 0 } });
+    let info: WavInfo;
     try {
-      const info = await worker.call<WavInfo>('open', { source: opened.workerSource }).promise;
+      info = await worker.call<WavInfo>('open', { source: opened.workerSource }).promise;
+    } catch (error) {
+      // The recording that was open stays open and in use.
+      worker.setByteReader(previous?.byteReader);
+      await opened.close().catch(() => undefined);
+      dispatch({ type: 'busy/set', busy: undefined });
+      notify('error', `${opened.name} could not be opened: ${message(error)} Your project and the recording in use are unchanged.`);
+      return undefined;
+    }
+    recordingRef.current = opened;
+    if (previous !== undefined && previous !== opened) await previous.close().catch(() => undefined);
+    try {
       dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info });
       for (const warning of info.warnings) notify('warning', `${opened.name}: ${warning}`);
       dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: 0 } });

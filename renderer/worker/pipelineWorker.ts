@@ -25,18 +25,26 @@ type Handler = (params: never, progress: (value: unknown) => void, cancel: { can
 
 const handlers: Record<string, Handler> = {
   async open(params: { source: WorkerSource }) {
-    open = undefined;
+    // The recording already open stays in use until the new one has been read successfully.
+    const previousProxy = proxy;
     let source: ByteSource;
+    let nextProxy: ProxyReads | undefined;
     if (params.source.kind === 'blob') {
-      proxy = undefined;
       source = blobByteSource(params.source.blob, params.source.name);
     } else {
-      proxy = proxyByteSource(params.source.name, params.source.sizeBytes, post);
-      source = proxy.source;
+      nextProxy = proxyByteSource(params.source.name, params.source.sizeBytes, post);
+      source = nextProxy.source;
+      proxy = nextProxy;
     }
-    const info = await readWavInfo(source);
-    open = { source, info, recording: recordingAccess(source, info) };
-    return info;
+    try {
+      const info = await readWavInfo(source);
+      open = { source, info, recording: recordingAccess(source, info) };
+      proxy = nextProxy;
+      return info;
+    } catch (error) {
+      proxy = previousProxy;
+      throw error;
+    }
   },
   async envelope(_params: Record<string, never>, progress, cancel) {
     const { source, info } = requireRecording();

@@ -135,7 +135,12 @@ describe.runIf(run)('the app in a browser', () => {
     await expect.poll(() => page.locator('[data-testid="notice-error"]').count(), { timeout: 15_000 }).toBeGreaterThan(0);
     expect(await page.locator('[data-testid="notice-error"]').first().textContent()).toMatch(/broken\.wav could not be opened/);
     expect(await page.locator('[data-testid^="event-row-"]').count()).toBe(rowsBefore);
+    expect(await page.locator('[data-testid="notice-error"]').first().textContent()).toMatch(/recording in use are unchanged/);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/06-corrupt-recording.png` });
+    // The recording that was open is still in use: a sound's correlations can still be computed from it.
+    await page.locator('[data-testid="event-row-3"]').click();
+    await page.locator('[data-testid="tab-correlations"]').click();
+    await page.locator('[data-testid="correlations-view"]').waitFor({ state: 'visible', timeout: 15_000 });
     for (const tab of ['correlations', 'safety', 'conditions']) {
       await page.locator(`[data-testid="tab-${tab}"]`).click();
       await page.waitForTimeout(1500);
