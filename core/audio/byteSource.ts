@@ -11,6 +11,11 @@ export interface ByteSource {
    * of the file, and an empty array at or past the end. Never reads more than asked.
    */
   read(offsetBytes: number, lengthBytes: number): Promise<Uint8Array>;
+  /**
+   * Optional: reads bytes [offsetBytes, offsetBytes + target.length) into the caller's buffer and returns how many were
+   * read (fewer at the end of the file). Lets streaming readers reuse one buffer instead of allocating per read.
+   */
+  readInto?(offsetBytes: number, target: Uint8Array): Promise<number>;
 }
 
 /** A ByteSource over bytes already in memory (tests, small files, generated fixtures). */

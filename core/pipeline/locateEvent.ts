@@ -33,6 +33,20 @@ export interface LocateContext {
   settings: LocateSettings;
 }
 
+/**
+ * Scratch channel buffers for event and noise windows, reused from event to event (the correlation engine copies what it
+ * needs), so a long run does not leave a trail of window-sized arrays for the collector.
+ */
+const scratch = { window: [] as Float32Array[], noise: [] as Float32Array[] };
+
+function scratchFor(kind: 'window' | 'noise', channelCount: number, frames: number): Float32Array[] {
+  const buffers = scratch[kind];
+  if (buffers.length !== channelCount || (buffers[0]?.length ?? 0) < frames) {
+    scratch[kind] = Array.from({ length: channelCount }, () => new Float32Array(Math.max(frames, Math.ceil(((buffers[0]?.length ?? 0) * 3) / 2))));
+  }
+  return scratch[kind];
+}
+
 function pick(channels: readonly Float32Array[], indices: readonly number[]): Float32Array[] {
   return indices.map((index) => channels[index]!);
 }
@@ -42,12 +56,14 @@ async function readNoise(recording: RecordingAccess, context: LocateContext, eve
   const quiet = event.noiseWindow;
   if (quiet !== undefined && quiet.endSeconds - quiet.startSeconds >= 0.1) {
     const quietStart = Math.max(0, Math.floor(quiet.startSeconds * fs));
-    return pick(await recording.readFrames(quietStart, Math.max(1, Math.floor(quiet.endSeconds * fs) - quietStart)), context.channelIndexOfMicrophone);
+    const frames = Math.max(1, Math.floor(quiet.endSeconds * fs) - quietStart);
+    return pick(await recording.readFrames(quietStart, frames, scratchFor('noise', recording.info.channelCount, frames)), context.channelIndexOfMicrophone);
   }
   const noiseFrames = Math.round(NOISE_WINDOW_SECONDS * fs);
   const before = Math.min(noiseFrames, startFrame);
-  if (before >= noiseFrames / 4) return pick(await recording.readFrames(startFrame - before, before), context.channelIndexOfMicrophone);
-  return pick(await recording.readFrames(endFrame, noiseFrames), context.channelIndexOfMicrophone);
+  const buffers = scratchFor('noise', recording.info.channelCount, noiseFrames);
+  if (before >= noiseFrames / 4) return pick(await recording.readFrames(startFrame - before, before, buffers), context.channelIndexOfMicrophone);
+  return pick(await recording.readFrames(endFrame, noiseFrames, buffers), context.channelIndexOfMicrophone);
 }
 
 function earliestOnset(event: DetectedEvent, context: LocateContext): { microphoneIndex: number; seconds: number } | undefined {
@@ -112,7 +128,16 @@ export function correlationSpan(event: DetectedEvent, context: LocateContext): {
 /** Lead-in before the first onset in a correlation window (onsets are found to a frame or two). */
 export const CORRELATION_MARGIN_SECONDS = 0.03;
 
-export async function locateEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
+/** Events are located one after another in a thread (they share the scratch buffers; the work is CPU-bound anyway). */
+let queueTail: Promise<unknown> = Promise.resolve();
+
+export function locateEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
+  const run = queueTail.then(() => locateEventNow(recording, event, context));
+  queueTail = run.catch(() => undefined);
+  return run;
+}
+
+async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
   const fs = recording.info.sampleRateHz;
   const warnings: string[] = [];
   const onset = earliestOnset(event, context);
@@ -126,7 +151,7 @@ export async function locateEvent(recording: RecordingAccess, event: DetectedEve
     endFrame = startFrame + maxFrames;
     warnings.push(`The event lasts ${(event.endSeconds - event.startSeconds).toFixed(1)} s; only ${MAX_EVENT_WINDOW_SECONDS} s around its onset were correlated.`);
   }
-  const window = pick(await recording.readFrames(startFrame, endFrame - startFrame), context.channelIndexOfMicrophone);
+  const window = pick(await recording.readFrames(startFrame, endFrame - startFrame, scratchFor('window', recording.info.channelCount, endFrame - startFrame)), context.channelIndexOfMicrophone);
   let bandHz: FrequencyBand;
   let bandSnrDb = Number.NaN;
   if (context.settings.bandHz !== undefined) {

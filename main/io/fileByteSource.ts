@@ -52,27 +52,36 @@ export async function openFileByteSource(path: string): Promise<FileByteSource> 
     sizeBytes,
     name,
     async read(offsetBytes: number, lengthBytes: number): Promise<Uint8Array> {
-      if (closed) throw new WhenceError('file-closed', `${path} was read after it was closed; open the recording again.`);
       const start = Math.max(0, Math.min(sizeBytes, Math.floor(offsetBytes)));
       const end = Math.max(start, Math.min(sizeBytes, Math.floor(offsetBytes + lengthBytes)));
       const bytes = new Uint8Array(end - start);
-      let filled = 0;
-      try {
-        while (filled < bytes.length) {
-          const want = Math.min(bytes.length - filled, MAX_READ_CALL_BYTES);
-          const { bytesRead } = await handle.read(bytes, filled, want, start + filled);
-          if (bytesRead === 0) break;
-          filled += bytesRead;
-        }
-      } catch (error) {
-        throw new WhenceError('file-read-failed', `Could not read ${path} at byte ${start + filled}: ${reasonFor(error).text}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
-      }
+      const filled = await readInto(offsetBytes, bytes);
       return filled === bytes.length ? bytes : bytes.subarray(0, filled);
     },
+    readInto,
     async close(): Promise<void> {
       if (closed) return;
       closed = true;
       await handle.close();
     },
   };
+
+  async function readInto(offsetBytes: number, target: Uint8Array): Promise<number> {
+    if (closed) throw new WhenceError('file-closed', `${path} was read after it was closed; open the recording again.`);
+    const start = Math.max(0, Math.min(sizeBytes, Math.floor(offsetBytes)));
+    const end = Math.max(start, Math.min(sizeBytes, start + target.length));
+    const bytes = target.subarray(0, end - start);
+    let filled = 0;
+    try {
+      while (filled < bytes.length) {
+        const want = Math.min(bytes.length - filled, MAX_READ_CALL_BYTES);
+        const { bytesRead } = await handle.read(bytes, filled, want, start + filled);
+        if (bytesRead === 0) break;
+        filled += bytesRead;
+      }
+    } catch (error) {
+      throw new WhenceError('file-read-failed', `Could not read ${path} at byte ${start + filled}: ${reasonFor(error).text}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
+    }
+    return filled;
+  }
 }
