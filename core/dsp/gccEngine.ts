@@ -80,6 +80,8 @@ export interface GccEngine {
   /** Stores channel `channelIndex` (at most windowFrames samples; shorter is zero-padded) and transforms it once. */
   setChannel(channelIndex: number, samples: Float32Array | Float64Array): void;
   hasChannel(channelIndex: number): boolean;
+  /** Changes the band the next pairs are weighted in (channel spectra stay; cheap). */
+  setBand(bandHz: FrequencyBand): void;
   /** Delay of pair (A, B) within ±maxLagSeconds (default: the engine's limit). */
   pairDelay(indexA: number, indexB: number, maxLagSeconds?: number): PairDelay;
   /** As pairDelay, writing into `result` (no allocation). */
@@ -132,7 +134,7 @@ class Engine implements GccEngine {
   private readonly maxLagFrames: number;
   private readonly magnitudeExponent: number;
   private readonly plan: FftPlan;
-  private readonly band: BandWeights;
+  private band: BandWeights;
   private readonly channels: (ChannelState | undefined)[] = [];
   private readonly input: Float64Array;
   private readonly weighted: Float64Array;
@@ -158,14 +160,7 @@ class Engine implements GccEngine {
     // interpolation neighbours) sees the wrap of the linear correlation, whose support is |l| <= L - 1.
     this.fftSizePoints = nextPowerOfTwo(windowFrames + this.maxLagFrames + 2);
     this.plan = getFftPlan(this.fftSizePoints);
-    this.band = bandWeights(options.bandHz, options.sampleRateHz, this.fftSizePoints);
-    if (this.band.firstBin > this.band.lastBin) {
-      throw new WhenceError(
-        'dsp-band-empty',
-        `The band ${options.bandHz.lowHz}-${options.bandHz.highHz} Hz holds no frequency bin of a ${this.fftSizePoints}-point FFT ` +
-          `at ${options.sampleRateHz} Hz; widen the band or lengthen the window.`,
-      );
-    }
+    this.band = this.bandFor(options.bandHz);
     this.magnitudeExponent =
       options.weighting === 'phat' || options.weighting === 'ml'
         ? 1
@@ -194,6 +189,22 @@ class Engine implements GccEngine {
       this.smooth = null;
       this.smoothBinsPerBin = 0;
     }
+  }
+
+  private bandFor(bandHz: FrequencyBand): BandWeights {
+    const band = bandWeights(bandHz, this.sampleRateHz, this.fftSizePoints);
+    if (band.firstBin > band.lastBin) {
+      throw new WhenceError(
+        'dsp-band-empty',
+        `The band ${bandHz.lowHz}-${bandHz.highHz} Hz holds no frequency bin of a ${this.fftSizePoints}-point FFT ` +
+          `at ${this.sampleRateHz} Hz; widen the band or lengthen the window.`,
+      );
+    }
+    return band;
+  }
+
+  setBand(bandHz: FrequencyBand): void {
+    this.band = this.bandFor(bandHz);
   }
 
   setChannel(channelIndex: number, samples: Float32Array | Float64Array): void {

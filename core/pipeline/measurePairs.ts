@@ -1,6 +1,6 @@
 // Time differences of every microphone pair of one event window by generalized cross-correlation (core/dsp),
 // each searched only within the lags the pair's spacing allows (|τ| ≤ d/c plus a margin).
-import { createGccEngine, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
+import { createGccEngine, nextPowerOfTwo, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
 import type { ArrayMicrophone } from '../project';
 
 export interface PairMeasurement {
@@ -30,10 +30,12 @@ export function pairSpacingMeters(a: ArrayMicrophone, b: ArrayMicrophone): numbe
 const engines = new Map<string, GccEngine>();
 
 function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: number): GccEngine {
-  // Windows rounded up to a multiple of 4096 frames so similar events share an engine; the engine sizes its FFT to
-  // the next power of two above window + largest lag (no circular wrap).
-  const sizeFrames = Math.max(4096, Math.ceil(windowFrames / 4096) * 4096);
-  const key = `${sizeFrames}|${settings.sampleRateHz}|${settings.weighting}|${settings.bandHz.lowHz}|${settings.bandHz.highHz}|${maxLagSeconds}`;
+  // One engine per FFT size: the engine's FFT is the next power of two above window + largest lag, so every window that
+  // needs the same FFT shares the engine with the longest window that fits it (fewer, long-lived spectra buffers).
+  const maxLagFrames = Math.ceil(maxLagSeconds * settings.sampleRateHz);
+  const fftSizePoints = nextPowerOfTwo(Math.max(4096, windowFrames + maxLagFrames + 2));
+  const sizeFrames = fftSizePoints - maxLagFrames - 2;
+  const key = `${fftSizePoints}|${settings.sampleRateHz}|${settings.weighting}|${maxLagSeconds}`;
   let engine = engines.get(key);
   if (engine === undefined) {
     // Keep the two most recent engines only: each holds every channel's spectrum, megabytes for long windows.
@@ -43,6 +45,7 @@ function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: 
     engines.delete(key);
   }
   engines.set(key, engine);
+  engine.setBand(settings.bandHz);
   return engine;
 }
 

@@ -190,3 +190,19 @@ describe('PairDelay.sigmaSeconds', () => {
     });
   }
 });
+
+describe('GccEngine.setBand()', () => {
+  it('gives the same delay as a new engine made for that band', () => {
+    const pair = delayedNoisePair({ lengthFrames: 4096, delaySamples: 12.3, seed: 77, snrDb: 20 });
+    const options = { sampleRateHz: 48_000, weighting: 'phat' as const, maxLagSeconds: 0.002 };
+    const reused = createGccEngine(4096, { ...options, bandHz: { lowHz: 200, highHz: 20_000 } });
+    reused.setChannel(0, pair.a);
+    reused.setChannel(1, pair.b);
+    reused.setBand({ lowHz: 1000, highHz: 6000 });
+    const fresh = createGccEngine(4096, { ...options, bandHz: { lowHz: 1000, highHz: 6000 } });
+    fresh.setChannel(0, pair.a);
+    fresh.setChannel(1, pair.b);
+    expect(reused.pairDelay(0, 1).delaySeconds).toBe(fresh.pairDelay(0, 1).delaySeconds);
+    expect(() => reused.setBand({ lowHz: 30_000, highHz: 30_001 })).toThrow(/30000-30001 Hz/);
+  });
+});
