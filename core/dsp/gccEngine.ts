@@ -205,6 +205,8 @@ class Engine implements GccEngine {
 
   setBand(bandHz: FrequencyBand): void {
     this.band = this.bandFor(bandHz);
+    // The weighted spectrum is written within the band only: clear what an earlier, wider band left outside it.
+    this.weighted.fill(0);
   }
 
   setChannel(channelIndex: number, samples: Float32Array | Float64Array): void {

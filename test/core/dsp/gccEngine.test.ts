@@ -198,6 +198,7 @@ describe('GccEngine.setBand()', () => {
     const reused = createGccEngine(4096, { ...options, bandHz: { lowHz: 200, highHz: 20_000 } });
     reused.setChannel(0, pair.a);
     reused.setChannel(1, pair.b);
+    reused.pairDelay(0, 1);
     reused.setBand({ lowHz: 1000, highHz: 6000 });
     const fresh = createGccEngine(4096, { ...options, bandHz: { lowHz: 1000, highHz: 6000 } });
     fresh.setChannel(0, pair.a);
