@@ -1,17 +1,5 @@
 // Vite config of the recording/correlations harness page (test only, not shipped): serves recording.html on 127.0.0.1:5317.
 // Run: npx vite --config test/e2e/harness/recording.vite.config.ts   then open http://127.0.0.1:5317/recording.html
-import { defineConfig } from 'vite';
-import react from '@vitejs/plugin-react';
-import { fileURLToPath } from 'node:url';
+import { harnessViteConfig } from './harnessViteConfig';
 
-const harnessRoot = fileURLToPath(new URL('.', import.meta.url));
-const repositoryRoot = fileURLToPath(new URL('../../..', import.meta.url));
-
-export default defineConfig({
-  root: harnessRoot,
-  base: './',
-  plugins: [react()],
-  server: { host: '127.0.0.1', port: 5317, strictPort: true, fs: { allow: [repositoryRoot] } },
-  preview: { host: '127.0.0.1', port: 5317, strictPort: true },
-  build: { outDir: fileURLToPath(new URL('../../../.tmp/recording-harness', import.meta.url)), emptyOutDir: true, rollupOptions: { input: fileURLToPath(new URL('./recording.html', import.meta.url)) } },
-});
+export default harnessViteConfig('recording', 5317);
