@@ -1,5 +1,6 @@
 // Benchmark: streaming event detection over 8 channels of generated noise at 48 kHz (samples per second per channel).
 import { createDetector } from '../core/detect';
+import { seededRandom } from '../core/locate';
 
 const sampleRateHz = 48_000;
 const channelCount = 8;
@@ -7,8 +8,8 @@ const seconds = 120;
 const blockFrames = 48_000;
 const blocks = Array.from({ length: 4 }, (_, b) => Array.from({ length: channelCount }, (_, c) => {
   const samples = new Float32Array(blockFrames);
-  let state = 1 + b * 97 + c * 13;
-  for (let i = 0; i < blockFrames; i++) { state ^= state << 13; state ^= state >>> 17; state ^= state << 5; samples[i] = ((state >>> 0) / 4294967296 - 0.5) * 0.01; }
+  const random = seededRandom(1 + b * 97 + c * 13);
+  for (let i = 0; i < blockFrames; i++) samples[i] = (random.uniform() - 0.5) * 0.01;
   return samples;
 }));
 const detector = createDetector({ sampleRateHz, channelCount, maxArrayDelaySeconds: 0.2, frameSeconds: 0.002 });

@@ -1,13 +1,11 @@
 // Benchmark: time per microphone pair of GCC-PHAT, one-off (gccPairDelay) and with stored channel spectra (engine).
 import { createGccEngine, gccPairDelay, type PeakInterpolation } from '../core/dsp';
+import { seededRandom } from '../core/locate';
 
 function seededNoise(length: number, seed: number): Float64Array {
   const out = new Float64Array(length);
-  let state = seed >>> 0 || 1;
-  for (let i = 0; i < length; i++) {
-    state ^= state << 13; state ^= state >>> 17; state ^= state << 5;
-    out[i] = ((state >>> 0) / 4294967296) * 2 - 1;
-  }
+  const random = seededRandom(seed);
+  for (let i = 0; i < length; i++) out[i] = random.uniform() * 2 - 1;
   return out;
 }
 

@@ -1,14 +1,14 @@
 // Benchmark: solve time per fix for 4, 8 and 16 microphones (all pairs, 2-D and 3-D), and the precision map
 // (200 x 200 cells, 8 microphones) for planning an array.
-import { precisionMap, solveFix, type DelayMeasurement, type Microphone } from '../core/locate';
+import { precisionMap, seededRandom, solveFix, type DelayMeasurement, type Microphone } from '../core/locate';
 
 function ring(count: number, radiusMeters: number): Microphone[] {
   return Array.from({ length: count }, (_, i) => ({ label: `M${i + 1}`, eastMeters: radiusMeters * Math.cos((2 * Math.PI * i) / count), northMeters: radiusMeters * Math.sin((2 * Math.PI * i) / count), upMeters: 1 + (i % 3) * 1.5, surveySigmaMeters: 0.02 }));
 }
 
 function allPairDelays(microphones: Microphone[], source: [number, number, number], speed: number, seed: number): DelayMeasurement[] {
-  let state = seed;
-  const noise = () => { state = (state * 1664525 + 1013904223) >>> 0; return (state / 4294967296 - 0.5) * 2e-5; };
+  const random = seededRandom(seed);
+  const noise = () => (random.uniform() - 0.5) * 2e-5;
   const range = (m: Microphone) => Math.hypot(source[0] - m.eastMeters, source[1] - m.northMeters, source[2] - m.upMeters);
   const delays: DelayMeasurement[] = [];
   for (let a = 0; a < microphones.length; a++) for (let b = a + 1; b < microphones.length; b++) {

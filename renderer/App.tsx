@@ -3,8 +3,7 @@
 import { useMemo, useState, type DragEvent } from 'react';
 import { WHENCE_VERSION } from '../core/version';
 import { CorrelationsView } from './correlations';
-import { FixLogPanel, fixLogContextFor } from './fixlog';
-import type { LocatedEvent } from '../core/pipeline';
+import { FixLogPanel, fixLogFileName } from './fixlog';
 import { detectHost } from './host';
 import { MapView } from './map';
 import { MicrophonesPanel } from './microphones';
@@ -13,7 +12,7 @@ import { RecordingView } from './recording';
 import { SettingsPanel } from './settings';
 import { useWorkspace } from './state/useWorkspace';
 import { EventsPanel, loggedEventIndices } from './workspace/EventsPanel';
-import { mapFixes, mapHyperbolae, mapMicrophones, planeHeightMeters, precisionOverlay, srpOverlay } from './workspace/mapModel';
+import { mapFixes, mapHyperbolae, mapMicrophones, meanUpMeters, planeHeightMeters, precisionOverlay, srpOverlay } from './workspace/mapModel';
 import { Toolbar } from './workspace/Toolbar';
 import { NoticeBar } from './workspace/NoticeBar';
 
@@ -33,7 +32,7 @@ export function App() {
 
   const microphones = useMemo(() => mapMicrophones(state.document), [state.document]);
   const settingsValue = useMemo(() => ({ medium: state.document.medium, settings: state.document.settings }), [state.document.medium, state.document.settings]);
-  const meanUp = useMemo(() => { const m = state.document.array.microphones; return m.length === 0 ? 0 : m.reduce((sum, x) => sum + x.upMeters, 0) / m.length; }, [state.document.array.microphones]);
+  const meanUp = useMemo(() => meanUpMeters(state.document.array.microphones), [state.document.array.microphones]);
   const hyperbolae = useMemo(() => mapHyperbolae(selected), [selected]);
   const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex), [state.events, state.selectedEventIndex]);
   const planeUp = planeHeightMeters(state.document, selected);
@@ -43,19 +42,6 @@ export function App() {
     return undefined;
   }, [overlayKind, state.document, speedMetersPerSecond, workspace.correlations, planeUp]);
   const logged = useMemo(() => loggedEventIndices(state.document.fixes), [state.document.fixes]);
-  const fixLogContext = useMemo(() => {
-    if (state.recording === undefined) return undefined;
-    const located = new Map<string, LocatedEvent>();
-    for (const fix of state.document.fixes) {
-      const match = state.events.find((event) => event.event.index === fix.eventIndex);
-      if (match !== undefined) located.set(fix.id, match);
-    }
-    try {
-      return fixLogContextFor({ recordingName: state.recording.name, ...(state.recording.info.startTime ? { recordingStartTime: state.recording.info.startTime } : {}), sampleRateHz: state.recording.info.sampleRateHz, microphones: state.document.array.microphones, ...(state.document.array.origin ? { origin: state.document.array.origin } : {}), medium: state.document.medium, settings: state.document.settings, located });
-    } catch {
-      return undefined;
-    }
-  }, [state.recording, state.document, state.events]);
   const recordingEvents = useMemo(() => state.events.map((located, index) => ({ index, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, status: located.solve.status, selected: index === state.selectedEventIndex })), [state.events, state.selectedEventIndex]);
   const channelLabels = useMemo(() => {
     const count = state.recording?.info.channelCount ?? 0;
@@ -167,10 +153,10 @@ export function App() {
           <FixLogPanel
             entries={state.document.fixes}
             {...(state.selectedFixId !== undefined ? { selectedId: state.selectedFixId } : {})}
-            context={fixLogContext}
+            context={workspace.fixLogContext}
             onChange={workspace.setFixes}
             onSelect={workspace.selectFix}
-            onExport={(kind, text) => void workspace.exportText(kind === 'csv' ? 'whence-log.csv' : 'whence-log.geojson', text, kind)}
+            onExport={(kind, text) => void workspace.exportText(fixLogFileName(kind), text, kind)}
           />
         </aside>
       </div>

@@ -3,6 +3,7 @@
 import { mkdir } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { DEMO_FILE_NAMES } from '../../core/contract';
 import { formatCsv } from '../../core/csv';
 import { enuToGeodetic } from '../../core/geo';
 import { sceneTruth } from '../../core/simulate';
@@ -12,12 +13,12 @@ import { writeSceneWav } from '../../main/simulate';
 import { DEMO_MICROPHONES, DEMO_SCENE, DEMO_SITE } from './scenario';
 
 export const DEMO_FILES = Object.freeze({
-  recording: 'demo-recording.wav',
-  array: 'demo-array.csv',
+  recording: DEMO_FILE_NAMES.recording,
+  array: DEMO_FILE_NAMES.array,
   arrayLocal: 'demo-array-local.csv',
   truth: 'demo-truth.csv',
   delays: 'demo-delays.csv',
-  project: 'demo-project.whence',
+  project: DEMO_FILE_NAMES.project,
 });
 
 const NOTE = 'Invented demo data (core/simulate); not a measurement.';

@@ -62,6 +62,9 @@ export interface RecoveryCopy {
   projectPath?: string;
 }
 
+/** Names of the demo files `npm run demo` writes (assets/demo/out), which the desktop host and the web mode open. */
+export const DEMO_FILE_NAMES = Object.freeze({ recording: 'demo-recording.wav', array: 'demo-array.csv', project: 'demo-project.whence' });
+
 export interface DemoFiles {
   recording: RecordingHandle;
   array: TextFile;

@@ -1,6 +1,7 @@
 // Typed access to the cells of a table by column name, with messages that name the file, line and column.
 import { CsvError } from './csvError';
 import type { CsvRow, CsvTable } from './readCsv';
+import { isNumericText } from './writeCsv';
 
 export function requireColumns(table: CsvTable, names: readonly string[], purpose: string): void {
   const missing = names.filter((name) => !table.header.includes(name));
@@ -29,7 +30,7 @@ export function cellNumber(table: CsvTable, row: CsvRow, name: string, unitText:
     throw new CsvError(location, `the cell is empty; it needs a number (${unitText}).`);
   }
   const value = Number(text);
-  if (!Number.isFinite(value) || !/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) {
+  if (!Number.isFinite(value) || !isNumericText(text)) {
     throw new CsvError(location, `'${text}' is not a number; expected ${unitText}${text.includes(',') ? ' (use a point as the decimal mark)' : ''}.`);
   }
   return value;

@@ -3,7 +3,8 @@
 
 export type CsvValue = string | number | boolean | undefined | null;
 
-function isNumericText(text: string): boolean {
+/** True when the text is a plain decimal number (optional sign, point and exponent), as tables write them. */
+export function isNumericText(text: string): boolean {
   return /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text);
 }
 

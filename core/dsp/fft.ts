@@ -121,29 +121,25 @@ class RadixFourPlan implements FftPlan {
   }
 
   forwardComplex(inputComplex: Float64Array, outputComplex: Float64Array): void {
-    const n2 = 2 * this.sizePoints;
-    checkLength(inputComplex, n2, 'complex input', this.sizePoints);
-    checkLength(outputComplex, n2, 'complex output', this.sizePoints);
-    if (inputComplex === outputComplex) {
-      const copy = this.scratch();
-      copy.set(inputComplex.subarray(0, n2));
-      this.complex().transform(outputComplex, copy);
-    } else {
-      this.complex().transform(outputComplex, inputComplex);
-    }
+    this.transformComplex(inputComplex, outputComplex, false);
   }
 
   inverseComplex(inputComplex: Float64Array, outputComplex: Float64Array): void {
+    this.transformComplex(inputComplex, outputComplex, true);
+  }
+
+  /** fft.js needs distinct input and output arrays: an in-place call transforms a copy of the input. */
+  private transformComplex(inputComplex: Float64Array, outputComplex: Float64Array, inverse: boolean): void {
     const n2 = 2 * this.sizePoints;
     checkLength(inputComplex, n2, 'complex input', this.sizePoints);
     checkLength(outputComplex, n2, 'complex output', this.sizePoints);
+    let source = inputComplex;
     if (inputComplex === outputComplex) {
-      const copy = this.scratch();
-      copy.set(inputComplex.subarray(0, n2));
-      this.complex().inverseTransform(outputComplex, copy);
-    } else {
-      this.complex().inverseTransform(outputComplex, inputComplex);
+      source = this.scratch();
+      source.set(inputComplex.subarray(0, n2));
     }
+    if (inverse) this.complex().inverseTransform(outputComplex, source);
+    else this.complex().transform(outputComplex, source);
   }
 
   forwardReal(input: Float64Array, outputComplex: Float64Array): void {

@@ -1,6 +1,7 @@
 // Quality of a GCC peak: normalised height, peak-to-second-peak ratio, SNR and the delay's standard deviation (samples).
 // σ² is the small-error variance of a GCC estimator (Knapp & Carter 1976; Carter 1987, Proc. IEEE 75(2)),
 // var = Σ ω² ψ² Var(Im G12) / (Σ ω² ψ |G12|)², evaluated from the residual quadrature of the weighted cross-spectrum at the peak.
+import { reanchorBins } from './peakInterpolation';
 
 /** A peak-to-second ratio is reported as at most this (no secondary peak at all). */
 export const peakToSecondRatioCeiling = 1e6;
@@ -69,7 +70,7 @@ export function measurePeak(
   let energyA = 0;
   let energyB = 0;
   for (let k = firstBin; k <= lastBin; k++) {
-    if ((k - firstBin) % 256 === 0) {
+    if ((k - firstBin) % reanchorBins === 0) {
       zr = Math.cos(stepAngle * k);
       zi = Math.sin(stepAngle * k);
     }

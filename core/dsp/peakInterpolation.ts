@@ -31,7 +31,8 @@ export function gaussianPeak(yMinus: number, y0: number, yPlus: number): PeakFit
   return { offsetSamples: offset, value: Math.exp(l0 - 0.25 * (lm - lp) * offset) };
 }
 
-const reanchorBins = 256;
+/** A bin-by-bin rotated phasor is recomputed exactly every this many bins, so rounding does not accumulate. */
+export const reanchorBins = 256;
 
 /**
  * The band-limited correlation r(τ) = (2/N) Σ_{k=first..last} Re(Y_k e^{2πikτ/N}) and its first two derivatives with

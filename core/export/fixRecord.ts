@@ -13,9 +13,21 @@ function finiteOrUndefined(value: number | undefined): number | undefined {
   return value !== undefined && Number.isFinite(value) ? value : undefined;
 }
 
-function round(value: number | undefined, digits: number): number | undefined {
+/** `value` to `digits` significant digits; undefined when it is missing or not finite. */
+function roundSignificant(value: number | undefined, digits: number): number | undefined {
   const finite = finiteOrUndefined(value);
   return finite === undefined ? undefined : Number(finite.toPrecision(digits));
+}
+
+/** `value` to `decimals` places after the point; undefined when it is missing or not finite. */
+export function roundDecimals(value: number | undefined, decimals: number): number | undefined {
+  const finite = finiteOrUndefined(value);
+  return finite === undefined ? undefined : Number(finite.toFixed(decimals));
+}
+
+/** The record without its empty fields (undefined or ''), as JSON and GeoJSON write it. */
+export function presentFields(record: FixRecord): FixRecord {
+  return Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== ''));
 }
 
 export function fixRecord(event: string, result: SolveResult, dimensions: 2 | 3, origin: GeodeticPosition | undefined): FixRecord {
@@ -24,25 +36,25 @@ export function fixRecord(event: string, result: SolveResult, dimensions: 2 | 3,
   if (fix === undefined) return record;
   const covariance = fix.covarianceMeters2;
   Object.assign(record, {
-    x_m: round(fix.eastMeters, 10), y_m: round(fix.northMeters, 10), z_m: round(fix.upMeters, 10),
-    cov_xx_m2: round(covariance[0]?.[0], 6), cov_xy_m2: round(covariance[0]?.[1], 6), cov_yy_m2: round(covariance[1]?.[1], 6),
-    semi_major_m: round(fix.ellipse.semiMajorMeters, 6), semi_minor_m: round(fix.ellipse.semiMinorMeters, 6),
-    major_axis_deg: round(fix.ellipse.majorAxisDegreesFromEast, 5), confidence: fix.ellipse.confidence,
-    residual_rms_s: round(fix.residualRmsSeconds, 6), timing_sigma_s: round(fix.timingSigmaSeconds, 6), sigma_source: fix.sigmaSource,
-    chi_square: round(fix.chiSquare.statistic, 6), chi_square_dof: fix.chiSquare.degreesOfFreedom,
-    gdop: round(fix.gdop, 6), pairs_used: fix.pairsUsed,
+    x_m: roundSignificant(fix.eastMeters, 10), y_m: roundSignificant(fix.northMeters, 10), z_m: roundSignificant(fix.upMeters, 10),
+    cov_xx_m2: roundSignificant(covariance[0]?.[0], 6), cov_xy_m2: roundSignificant(covariance[0]?.[1], 6), cov_yy_m2: roundSignificant(covariance[1]?.[1], 6),
+    semi_major_m: roundSignificant(fix.ellipse.semiMajorMeters, 6), semi_minor_m: roundSignificant(fix.ellipse.semiMinorMeters, 6),
+    major_axis_deg: roundSignificant(fix.ellipse.majorAxisDegreesFromEast, 5), confidence: fix.ellipse.confidence,
+    residual_rms_s: roundSignificant(fix.residualRmsSeconds, 6), timing_sigma_s: roundSignificant(fix.timingSigmaSeconds, 6), sigma_source: fix.sigmaSource,
+    chi_square: roundSignificant(fix.chiSquare.statistic, 6), chi_square_dof: fix.chiSquare.degreesOfFreedom,
+    gdop: roundSignificant(fix.gdop, 6), pairs_used: fix.pairsUsed,
     pairs_dropped: fix.droppedPairs.map((pair) => `${pair.indexA + 1}-${pair.indexB + 1}`).join(' '),
   });
   if (dimensions === 3) {
-    Object.assign(record, { cov_zz_m2: round(covariance[2]?.[2], 6), cov_xz_m2: round(covariance[0]?.[2], 6), cov_yz_m2: round(covariance[1]?.[2], 6) });
+    Object.assign(record, { cov_zz_m2: roundSignificant(covariance[2]?.[2], 6), cov_xz_m2: roundSignificant(covariance[0]?.[2], 6), cov_yz_m2: roundSignificant(covariance[1]?.[2], 6) });
   }
   if (fix.alternative !== undefined) {
-    Object.assign(record, { alternative_x_m: round(fix.alternative.eastMeters, 10), alternative_y_m: round(fix.alternative.northMeters, 10) });
-    if (dimensions === 3) record.alternative_z_m = round(fix.alternative.upMeters, 10);
+    Object.assign(record, { alternative_x_m: roundSignificant(fix.alternative.eastMeters, 10), alternative_y_m: roundSignificant(fix.alternative.northMeters, 10) });
+    if (dimensions === 3) record.alternative_z_m = roundSignificant(fix.alternative.upMeters, 10);
   }
   if (origin !== undefined) {
     const geodetic = enuToGeodetic({ eastMeters: fix.eastMeters, northMeters: fix.northMeters, upMeters: fix.upMeters }, origin);
-    Object.assign(record, { lat: round(geodetic.latitudeDegrees, 11), lon: round(geodetic.longitudeDegrees, 11), alt_m: round(geodetic.heightMeters, 8) });
+    Object.assign(record, { lat: roundSignificant(geodetic.latitudeDegrees, 11), lon: roundSignificant(geodetic.longitudeDegrees, 11), alt_m: roundSignificant(geodetic.heightMeters, 8) });
   }
   return record;
 }

@@ -4,8 +4,9 @@ import { formatStartTime, type WavStartTime } from '../audio';
 import { formatCsv, type CsvValue } from '../csv';
 import type { GeodeticPosition } from '../geo';
 import type { ArrayGeometry } from '../project';
+import { median } from '../locate';
 import type { LocatedEvent } from '../pipeline';
-import { fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from './fixRecord';
+import { fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, presentFields, roundDecimals, type FixRecord } from './fixRecord';
 
 export interface SurveyLogContext {
   recordingName: string;
@@ -25,29 +26,19 @@ export function surveyLogColumns(dimensions: 2 | 3): string[] {
   return [base[0]!, base[1]!, ...LOCATE_COLUMNS, ...base.slice(2)];
 }
 
-function round(value: number | undefined, decimals: number): number | undefined {
-  return value === undefined || !Number.isFinite(value) ? undefined : Number(value.toFixed(decimals));
-}
-
-function median(values: number[]): number | undefined {
-  if (values.length === 0) return undefined;
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[sorted.length >> 1];
-}
-
 export function locatedEventRecord(located: LocatedEvent, context: SurveyLogContext): FixRecord {
   const eventName = String(located.event.index + 1);
   const record = fixRecord(eventName, { ...located.solve, warnings: [...located.warnings, ...located.solve.warnings] }, context.dimensions, context.geometry.origin);
   const arrivalSeconds = located.firstArrivalSeconds;
   Object.assign(record, {
-    time_s: round(located.emissionTimeSeconds, 4),
-    arrival_s: round(arrivalSeconds, 4),
+    time_s: roundDecimals(located.emissionTimeSeconds, 4),
+    arrival_s: roundDecimals(arrivalSeconds, 4),
     local_time: context.recordingStartTime !== undefined ? formatStartTime(context.recordingStartTime, Math.round(arrivalSeconds * context.sampleRateHz)) : undefined,
-    band_low_hz: round(located.bandHz.lowHz, 0),
-    band_high_hz: round(located.bandHz.highHz, 0),
-    band_snr_db: round(located.bandSnrDb, 1),
-    min_peak_ratio: round(Math.min(...located.pairs.map((p) => p.peakToSecondRatio)), 2),
-    median_pair_snr_db: round(median(located.pairs.map((p) => p.snrDb)), 1),
+    band_low_hz: roundDecimals(located.bandHz.lowHz, 0),
+    band_high_hz: roundDecimals(located.bandHz.highHz, 0),
+    band_snr_db: roundDecimals(located.bandSnrDb, 1),
+    min_peak_ratio: roundDecimals(Math.min(...located.pairs.map((p) => p.peakToSecondRatio)), 2),
+    median_pair_snr_db: located.pairs.length === 0 ? undefined : roundDecimals(median(located.pairs.map((p) => p.snrDb)), 1),
     channels_triggered: located.event.channelsTriggered,
     event_flags: located.event.flags.join(' '),
   });
@@ -90,6 +81,6 @@ export function surveyLogCsv(records: readonly FixRecord[], context: SurveyLogCo
 }
 
 export function surveyLogJson(records: readonly FixRecord[], context: SurveyLogContext, notes: readonly string[] = []): string {
-  const fixes = records.map((record) => Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== '')));
+  const fixes = records.map(presentFields);
   return JSON.stringify({ log: { ...surveyLogMetadata(context), notes }, fixes }, null, 2) + '\n';
 }

@@ -2,15 +2,14 @@
 // They return strings; writing files is the caller's job (main/ writes atomically, the renderer downloads).
 import { formatCsv } from '../csv';
 import { enuToGeodetic, type GeodeticPosition } from '../geo';
-import type { FixRecord } from './fixRecord';
+import { presentFields, type FixRecord } from './fixRecord';
 
 export function fixesToCsv(columns: readonly string[], records: readonly FixRecord[]): string {
   return formatCsv(columns, records.map((record) => columns.map((column) => record[column])));
 }
 
 export function fixesToJson(records: readonly FixRecord[]): string {
-  const cleaned = records.map((record) => Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== '')));
-  return JSON.stringify(cleaned, null, 2) + '\n';
+  return JSON.stringify(records.map(presentFields), null, 2) + '\n';
 }
 
 export interface EllipseOutline { eastMeters: number; northMeters: number; upMeters: number; semiMajorMeters: number; semiMinorMeters: number; majorAxisDegreesFromEast: number }
@@ -46,7 +45,7 @@ export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPo
     features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [Number(geodetic.longitudeDegrees.toFixed(9)), Number(geodetic.latitudeDegrees.toFixed(9))] }, properties: { feature: 'microphone', label: microphone.label, channel: microphone.channel, alt_m: Number(geodetic.heightMeters.toFixed(3)) } });
   }
   for (const record of records) {
-    const properties = Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== ''));
+    const properties = presentFields(record);
     if (typeof record.lat !== 'number' || typeof record.lon !== 'number') continue;
     features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [record.lon, record.lat] }, properties: { ...properties, feature: 'fix' } });
     const { x_m: east, y_m: north, z_m: up, semi_major_m: major, semi_minor_m: minor, major_axis_deg: axis } = record;

@@ -1,6 +1,7 @@
 // Cramer-Rao lower bound of a TDOA fix at any source position (m²) and the geometric dilution of precision (unitless).
 // Fisher information J^T Q^-1 J: for arrival-derived delays, Q = sigma² (I + 11^T), equal to sum (g_i - mean g)(...)^T / sigma².
 import { WhenceError } from '../errors';
+import { invertSmall } from './smallMatrix';
 import type { Microphone, Position, TimingModel } from './types';
 
 export interface CrlbOptions {
@@ -90,35 +91,13 @@ export function unitFisherInformation(microphones: readonly Microphone[], source
 
 /** Inverse of a symmetric 2x2/3x3 information matrix; null when (numerically) singular. */
 function invertInformation(fisher: Float64Array, n: 2 | 3): Float64Array | null {
-  const out = new Float64Array(n * n);
   let trace = 0;
   for (let i = 0; i < n; i++) trace += fisher[i * n + i];
   if (!(trace > 0)) return null;
-  if (n === 2) {
-    const det = fisher[0] * fisher[3] - fisher[1] * fisher[2];
-    if (!(det > 1e-14 * trace * trace)) return null;
-    out[0] = fisher[3] / det;
-    out[1] = -fisher[1] / det;
-    out[2] = -fisher[2] / det;
-    out[3] = fisher[0] / det;
-    return out;
-  }
-  const f = fisher;
-  const c00 = f[4] * f[8] - f[5] * f[7];
-  const c01 = f[5] * f[6] - f[3] * f[8];
-  const c02 = f[3] * f[7] - f[4] * f[6];
-  const det = f[0] * c00 + f[1] * c01 + f[2] * c02;
-  if (!(det > 1e-14 * trace * trace * trace)) return null;
-  out[0] = c00 / det;
-  out[1] = (f[2] * f[7] - f[1] * f[8]) / det;
-  out[2] = (f[1] * f[5] - f[2] * f[4]) / det;
-  out[3] = c01 / det;
-  out[4] = (f[0] * f[8] - f[2] * f[6]) / det;
-  out[5] = (f[2] * f[3] - f[0] * f[5]) / det;
-  out[6] = c02 / det;
-  out[7] = (f[1] * f[6] - f[0] * f[7]) / det;
-  out[8] = (f[0] * f[4] - f[1] * f[3]) / det;
-  return out;
+  const out = new Float64Array(n * n);
+  const det = invertSmall(fisher, n, out);
+  // Numerically singular: the determinant is tiny next to trace^n.
+  return det > 1e-14 * (n === 2 ? trace * trace : trace * trace * trace) ? out : null;
 }
 
 /**

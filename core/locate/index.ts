@@ -22,6 +22,7 @@ export { crlbCovariance, gdop, type CrlbOptions, type GdopOptions } from './crlb
 export { precisionMap, type PrecisionMapGrid, type PrecisionMapOptions, type PrecisionMapOutput } from './precisionMap';
 export { physicalLimitViolations, closureFailures, type LimitViolation, type ClosureFailure } from './delayChecks';
 export { seededRandom, type SeededRandom } from './seededRandom';
+export { median } from './median';
 
 // Map geometry (another engineer's modules): pair hyperbolae on a map plane and steered-response-power maps.
 export * from './hyperbola';

@@ -3,7 +3,7 @@
 // Costs are weighted sums of squared residuals (unitless with weights 1/sigma²). Deletion statistics: Cook & Weisberg (1982).
 import { chiSquareQuantile, chiSquareUpperTail, fDistributionUpperTail } from './chiSquare';
 import { refinePosition } from './refine';
-import { choleskySolve } from './smallMatrix';
+import { choleskySolve, choleskySubstitute } from './smallMatrix';
 import { degreesOfFreedom, evaluateCost, rowGradient, rowResidual, type TdoaProblem } from './tdoaProblem';
 
 export interface DroppedRow {
@@ -70,28 +70,13 @@ export function deletionStatistics(problem: TdoaProblem, p: ArrayLike<number>): 
     let predicted = 0;
     for (let i = 0; i < m; i++) predicted += row[i] * step[i];
     const r = rowResidual(problem, k) - predicted;
-    const e = new Float64Array(m);
-    e.set(row);
     const w = problem.rowWeight[k];
-    choleskySolveFactored(factor, m, e, solved);
+    choleskySubstitute(factor, m, row, solved);
     let leverage = 0;
     for (let i = 0; i < m; i++) leverage += w * row[i] * solved[i];
     out[k] = leverage < 1 - 1e-9 ? (w * r * r) / (1 - leverage) : 0;
   }
   return out;
-}
-
-function choleskySolveFactored(factor: Float64Array, n: number, b: Float64Array, x: Float64Array): void {
-  for (let i = 0; i < n; i++) {
-    let sum = b[i];
-    for (let k = 0; k < i; k++) sum -= factor[i * n + k] * x[k];
-    x[i] = sum / factor[i * n + i];
-  }
-  for (let i = n - 1; i >= 0; i--) {
-    let sum = x[i];
-    for (let k = i + 1; k < n; k++) sum -= factor[k * n + i] * x[k];
-    x[i] = sum / factor[i * n + i];
-  }
 }
 
 /** True when the residual test fails at cost `cost` (cheap, linearised for the residual-sigma mode). */

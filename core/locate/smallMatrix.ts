@@ -166,14 +166,6 @@ export function toNested(a: ArrayLike<number>, n: number): number[][] {
   return rows;
 }
 
-/** Nested n x n arrays to a row-major Float64Array. */
-export function fromNested(rows: readonly (readonly number[])[]): Float64Array {
-  const n = rows.length;
-  const out = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) out[i * n + j] = rows[i][j];
-  return out;
-}
-
 /**
  * Inverse of a symmetric positive semi-definite 2x2/3x3 matrix through its eigen decomposition, with eigenvalues
  * below `relativeFloor` times the largest raised to that floor: finite even when singular, huge along the null direction.

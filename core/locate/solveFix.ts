@@ -8,6 +8,7 @@ import { closedFormStarts } from './closedForm';
 import { closureFailures, physicalLimitViolations } from './delayChecks';
 import { connectedComponents, graphRank } from './delayGraph';
 import { errorEllipse, errorEllipsoid } from './errorEllipse';
+import { median } from './median';
 import { monteCarloCovariance } from './monteCarlo';
 import { findSolutions, samePosition, type Candidate } from './multiStart';
 import { rejectOutlierRows } from './outlierRejection';
@@ -28,12 +29,6 @@ function formatMs(seconds: number): string {
 
 function formatPosition(p: Position): string {
   return `(${p.eastMeters.toFixed(3)}, ${p.northMeters.toFixed(3)}, ${p.upMeters.toFixed(3)}) m`;
-}
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const mid = sorted.length >> 1;
-  return sorted.length % 2 ? sorted[mid] : 0.5 * (sorted[mid - 1] + sorted[mid]);
 }
 
 function addMatrices(n: number, ...matrices: Float64Array[]): Float64Array {

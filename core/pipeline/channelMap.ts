@@ -1,6 +1,7 @@
 // Which recording channel each microphone of the array was recorded on (the array's 1-based `channel` column).
 import { WhenceError } from '../errors';
 import type { ArrayGeometry } from '../project';
+import { pairSpacingMeters } from './measurePairs';
 
 export interface ChannelMapping {
   /** 0-based recording channel of each microphone, in array order. */
@@ -32,10 +33,7 @@ export function maxArrayDelaySeconds(geometry: ArrayGeometry, speedMetersPerSeco
   let maxSpacingMeters = 0;
   const mics = geometry.microphones;
   for (let a = 0; a < mics.length; a++) {
-    for (let b = a + 1; b < mics.length; b++) {
-      const spacing = Math.hypot(mics[a]!.eastMeters - mics[b]!.eastMeters, mics[a]!.northMeters - mics[b]!.northMeters, mics[a]!.upMeters - mics[b]!.upMeters);
-      maxSpacingMeters = Math.max(maxSpacingMeters, spacing);
-    }
+    for (let b = a + 1; b < mics.length; b++) maxSpacingMeters = Math.max(maxSpacingMeters, pairSpacingMeters(mics[a]!, mics[b]!));
   }
   return maxSpacingMeters / speedMetersPerSecond;
 }

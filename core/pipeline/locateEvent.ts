@@ -76,7 +76,7 @@ function earliestOnset(event: DetectedEvent, context: LocateContext): { micropho
 }
 
 /** Smallest per-microphone arrival sigma the pipeline states: a tenth of a sample (model errors the GCC bound leaves out). */
-export const MIN_ARRIVAL_SIGMA_SAMPLES = 0.1;
+const MIN_ARRIVAL_SIGMA_SAMPLES = 0.1;
 
 /**
  * Solves once with the correlation's sigmas and no outlier rejection; when the residuals are larger than those sigmas
@@ -95,14 +95,20 @@ export function solveWithHonestSigma(microphones: Microphone[], reduced: Reduced
   return solveFix(microphones, scaled, options);
 }
 
-export function solveOptions(settings: LocateSettings, lagMarginSeconds: number): SolveOptions {
+/** Lag margin beyond d/c: two samples, plus what survey error (4 sigma per microphone, two microphones) can add. */
+export function lagMarginSeconds(geometry: ArrayGeometry, sampleRateHz: number, speedMetersPerSecond: number): number {
+  const maxSurveySigmaMeters = Math.max(0, ...geometry.microphones.map((m) => m.surveySigmaMeters));
+  return 2 / sampleRateHz + (8 * maxSurveySigmaMeters) / speedMetersPerSecond;
+}
+
+export function solveOptions(settings: LocateSettings, marginSeconds: number): SolveOptions {
   const options: SolveOptions = {
     speedMetersPerSecond: settings.speedMetersPerSecond,
     speedSigmaMetersPerSecond: settings.speedSigmaMetersPerSecond,
     dimensions: settings.dimensions,
     confidence: settings.confidence,
     timingModel: 'arrival-times',
-    lagToleranceSeconds: lagMarginSeconds,
+    lagToleranceSeconds: marginSeconds,
   };
   if (settings.sourceUpMeters !== undefined) options.sourceUpMeters = settings.sourceUpMeters;
   return options;
@@ -116,7 +122,7 @@ export function toSolverMicrophones(geometry: ArrayGeometry): Microphone[] {
  * The span to correlate. The detector's window reaches the array's largest delay beyond the first onset and the last
  * offset, to cover microphones that did not trigger; when every microphone triggered, that reach is not needed.
  */
-export function correlationSpan(event: DetectedEvent, context: LocateContext): { startSeconds: number; endSeconds: number } {
+function correlationSpan(event: DetectedEvent, context: LocateContext): { startSeconds: number; endSeconds: number } {
   const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
   if (event.flags.includes('manual') || onsets.some((onset) => onset === undefined)) return { startSeconds: event.startSeconds, endSeconds: event.endSeconds };
   const reachSeconds = maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98);
@@ -126,7 +132,7 @@ export function correlationSpan(event: DetectedEvent, context: LocateContext): {
 }
 
 /** Lead-in before the first onset in a correlation window (onsets are found to a frame or two). */
-export const CORRELATION_MARGIN_SECONDS = 0.03;
+const CORRELATION_MARGIN_SECONDS = 0.03;
 
 /** Events are located one after another in a thread (they share the scratch buffers; the work is CPU-bound anyway). */
 let queueTail: Promise<unknown> = Promise.resolve();
@@ -161,18 +167,17 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
     bandHz = { lowHz: chosen.lowHz, highHz: chosen.highHz };
     bandSnrDb = chosen.snrDb;
   }
-  const maxSurveySigma = Math.max(0, ...context.geometry.microphones.map((m) => m.surveySigmaMeters));
-  // Lag margin: two samples, plus what survey error (4 sigma per microphone) can add; the speed is taken 2 % low so slow air still fits.
-  const lagMarginSeconds = 2 / fs + (8 * maxSurveySigma) / context.settings.speedMetersPerSecond;
+  const marginSeconds = lagMarginSeconds(context.geometry, fs, context.settings.speedMetersPerSecond);
   const microphones = context.geometry.microphones;
-  const pairs = measurePairs(window, microphones, { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds });
+  // The speed is taken 2 % low so slow air still fits.
+  const pairs = measurePairs(window, microphones, { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds: marginSeconds });
   const referenceIndex = onset?.microphoneIndex ?? 0;
   const floorSeconds = (MIN_ARRIVAL_SIGMA_SAMPLES * Math.SQRT2) / fs;
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
   const solve: SolveResult = reduced.delays.length > 0
-    ? solveWithHonestSigma(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, lagMarginSeconds), warnings)
+    ? solveWithHonestSigma(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds), warnings)
     : { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
   let emissionTimeSeconds: number | undefined;
   let firstArrivalSeconds = onset?.seconds ?? event.startSeconds;

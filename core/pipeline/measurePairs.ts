@@ -52,21 +52,17 @@ function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: 
 /** All pairs (a < b) of the microphones whose window samples are given in `channels` (array order). */
 export function measurePairs(channels: readonly Float32Array[], microphones: readonly ArrayMicrophone[], settings: PairSettings): PairMeasurement[] {
   const windowFrames = Math.max(...channels.map((c) => c.length));
-  let largestLagSeconds = 0;
+  const pairLagsSeconds: Array<{ a: number; b: number; lagSeconds: number }> = [];
   for (let a = 0; a < microphones.length; a++) {
     for (let b = a + 1; b < microphones.length; b++) {
-      largestLagSeconds = Math.max(largestLagSeconds, pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds);
+      pairLagsSeconds.push({ a, b, lagSeconds: pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds });
     }
   }
-  const engine = engineFor(windowFrames, settings, largestLagSeconds);
+  const engine = engineFor(windowFrames, settings, Math.max(0, ...pairLagsSeconds.map((pair) => pair.lagSeconds)));
   channels.forEach((samples, index) => engine.setChannel(index, samples));
-  const pairs: PairMeasurement[] = [];
-  for (let a = 0; a < microphones.length; a++) {
-    for (let b = a + 1; b < microphones.length; b++) {
-      const maxLagSeconds = Math.min(engine.maxLagSeconds, pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds);
-      const delay = engine.pairDelay(a, b, maxLagSeconds);
-      pairs.push({ indexA: a, indexB: b, delaySeconds: delay.delaySeconds, sigmaSeconds: delay.sigmaSeconds, peakToSecondRatio: delay.peakToSecondRatio, peakValue: delay.peakValue, snrDb: delay.snrDb, maxLagSeconds });
-    }
-  }
-  return pairs;
+  return pairLagsSeconds.map(({ a, b, lagSeconds }) => {
+    const maxLagSeconds = Math.min(engine.maxLagSeconds, lagSeconds);
+    const delay = engine.pairDelay(a, b, maxLagSeconds);
+    return { indexA: a, indexB: b, delaySeconds: delay.delaySeconds, sigmaSeconds: delay.sigmaSeconds, peakToSecondRatio: delay.peakToSecondRatio, peakValue: delay.peakValue, snrDb: delay.snrDb, maxLagSeconds };
+  });
 }

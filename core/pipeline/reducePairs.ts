@@ -1,6 +1,6 @@
 // Reduces the delays of all microphone pairs of one event to arrival times relative to one reference microphone,
 // by weighted least squares (t_a − t_b ≈ τ_ab), dropping pairs that break closure, with one common per-microphone sigma.
-import type { DelayMeasurement } from '../locate';
+import { median, type DelayMeasurement } from '../locate';
 import type { PairMeasurement } from './measurePairs';
 
 export interface ReducedDelays {
@@ -54,12 +54,6 @@ function solveArrivalOffsets(microphoneCount: number, referenceIndex: number, pa
 
 function normalisedResiduals(offsets: Float64Array, pairs: readonly ActivePair[]): number[] {
   return pairs.map(({ pair }) => (pair.delaySeconds - (offsets[pair.indexA]! - offsets[pair.indexB]!)) / pair.sigmaSeconds);
-}
-
-function median(values: readonly number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[middle]! : (sorted[middle - 1]! + sorted[middle]!) / 2;
 }
 
 /**

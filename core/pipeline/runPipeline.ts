@@ -39,14 +39,9 @@ export interface PipelineResult {
 }
 
 /** Energy frame of the pipeline's detector. */
-export const DETECTION_FRAME_SECONDS = 0.002;
+const DETECTION_FRAME_SECONDS = 0.002;
 
-/** The user's own window (e.g. a span selected on the recording) as an event for locateEvent. */
-export function manualEventFor(startSeconds: number, endSeconds: number, channelCount: number, index: number): DetectedEvent {
-  return manualEvent(startSeconds, endSeconds, channelCount, index);
-}
-
-export function detectorConfigFor(recording: RecordingAccess, context: LocateContext): DetectorConfig {
+function detectorConfigFor(recording: RecordingAccess, context: LocateContext): DetectorConfig {
   const config: DetectorConfig = {
     sampleRateHz: recording.info.sampleRateHz,
     channelCount: context.channelIndexOfMicrophone.length,
@@ -61,7 +56,7 @@ export function detectorConfigFor(recording: RecordingAccess, context: LocateCon
 }
 
 /** Checks --from/--to against the recording; returns the span in frames. */
-export function scanSpanFrames(recording: RecordingAccess, fromSeconds: number | undefined, toSeconds: number | undefined): { startFrame: number; endFrame: number } {
+function scanSpanFrames(recording: RecordingAccess, fromSeconds: number | undefined, toSeconds: number | undefined): { startFrame: number; endFrame: number } {
   const { sampleRateHz, frameCount, durationSeconds } = recording.info;
   const from = fromSeconds ?? 0;
   const to = toSeconds ?? durationSeconds;

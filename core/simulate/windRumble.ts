@@ -1,5 +1,6 @@
 // Wind rumble: uniform white noise at a low rate (about 2-4 kHz) through a 2nd-order Butterworth low-pass (RBJ Audio EQ
 // Cookbook, Q = 1/sqrt 2), times a slow gust gain, brought to the sample rate by a cubic B-spline (images below -75 dB).
+import { dbToAmplitude } from './levels';
 import { RANDOM_STREAM, streamSeed, uniformFromSeed } from './seededRandom';
 
 export interface LowPassBiquad {
@@ -131,7 +132,7 @@ export class WindGenerator {
       for (let a = 0; a < 4; a++) for (let b = 0; b < 4; b++) variance += w[a] * w[b] * r[Math.abs(a - b)];
     }
     variance /= this.decimation;
-    this.amplitude = 10 ** (wind.levelDb / 20) / Math.sqrt(variance);
+    this.amplitude = dbToAmplitude(wind.levelDb) / Math.sqrt(variance);
   }
 
   /** Adds the wind of frames [tileStartFrame, tileStartFrame + frames) of one channel to tile[0 .. frames). */

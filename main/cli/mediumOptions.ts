@@ -8,7 +8,7 @@ export const mediumOptionSpec: OptionSpec = {
   co2: { type: 'string' }, model: { type: 'string' }, salinity: { type: 'string' }, depth: { type: 'string' },
 };
 
-export const mediumOptionNames = Object.keys(mediumOptionSpec);
+const mediumOptionNames = Object.keys(mediumOptionSpec);
 
 const mediums = ['air', 'seawater', 'freshwater'] as const;
 const airOnly = ['humidity', 'pressure', 'co2', 'model'] as const;

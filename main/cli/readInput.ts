@@ -1,18 +1,16 @@
 // Reads a small text input file (an array or delay table) with a message that says what to do when it cannot.
-import { readFile, stat } from 'node:fs/promises';
 import { WhenceError } from '../../core/errors';
+import { errorCode, readSmallTextFile } from '../files';
 
 const maxTableBytes = 64 * 1024 * 1024;
 
 export async function readTextFile(path: string, what: string): Promise<string> {
   try {
-    const info = await stat(path);
-    if (info.isDirectory()) throw new WhenceError('file-open-failed', `${path} is a folder; give the ${what} file inside it.`);
-    if (info.size > maxTableBytes) throw new WhenceError('file-too-large', `${path} is ${(info.size / 1048576).toFixed(0)} MB, too large for a ${what} (at most 64 MB). Is it the right file?`);
-    return await readFile(path, 'utf8');
+    return await readSmallTextFile(path, maxTableBytes, (sizeBytes) => new WhenceError('file-too-large', `${path} is ${(sizeBytes / 1048576).toFixed(0)} MB, too large for a ${what} (at most 64 MB). Is it the right file?`));
   } catch (error) {
     if (error instanceof WhenceError) throw error;
-    const code = (error as NodeJS.ErrnoException).code;
+    const code = errorCode(error);
+    if (code === 'EISDIR') throw new WhenceError('file-open-failed', `${path} is a folder; give the ${what} file inside it.`);
     const reason = code === 'ENOENT' ? 'no such file' : code === 'EACCES' ? 'permission denied' : (error as Error).message;
     throw new WhenceError('file-open-failed', `cannot read the ${what} ${path}: ${reason}. Check the path and try again.`);
   }

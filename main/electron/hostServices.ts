@@ -1,11 +1,11 @@
 // What each host request does on the Node side: dialogs, open recordings, array tables, projects (open, save with
 // backup, recent list), exports, the recovery copy and the demo. Arguments arrive already validated (ipcHandlers.ts).
-import { readFile, stat } from 'node:fs/promises';
+import { stat } from 'node:fs/promises';
 import { basename, extname, join, resolve } from 'node:path';
-import type { HostApi, HostRequestMethod, OpenedProject, RecentProject, SaveResult, TextFile } from '../../core/contract';
+import { DEMO_FILE_NAMES, type HostApi, type HostRequestMethod, type OpenedProject, type RecentProject, type SaveResult, type TextFile } from '../../core/contract';
 import { isWhenceError, WhenceError } from '../../core/errors';
-import { writeFileAtomic } from '../files';
-import { describeFileProblem, loadProjectFile, saveProjectFile, withProjectExtension, type RecentProjectsStore, type RecoveryStore } from '../project';
+import { describeFileProblem, readSmallTextFile, writeFileAtomic } from '../files';
+import { loadProjectFile, saveProjectFile, withProjectExtension, type RecentProjectsStore, type RecoveryStore } from '../project';
 import { ARRAY_FILTERS, EXPORT_FILTERS, PROJECT_FILTERS, RECORDING_FILTERS, safeFileName, type DialogAdapter } from './dialogs';
 import { checkUserPath } from './pathPolicy';
 import type { RecordingHandles } from './recordingHandles';
@@ -14,9 +14,9 @@ export type HostServices = { [K in HostRequestMethod]: (...args: Parameters<Host
 
 /** An array table larger than this is refused (a recording chosen by mistake, most likely). */
 export const MAX_ARRAY_FILE_BYTES = 16 * 1024 * 1024;
-export const DEMO_RECORDING_FILE_NAME = 'demo-recording.wav';
-export const DEMO_ARRAY_FILE_NAME = 'demo-array.csv';
-export const DEMO_PROJECT_FILE_NAME = 'demo-project.whence';
+export const DEMO_RECORDING_FILE_NAME = DEMO_FILE_NAMES.recording;
+export const DEMO_ARRAY_FILE_NAME = DEMO_FILE_NAMES.array;
+export const DEMO_PROJECT_FILE_NAME = DEMO_FILE_NAMES.project;
 
 export interface HostServiceDeps {
   dialogs: DialogAdapter;
@@ -33,10 +33,8 @@ export interface HostServiceDeps {
 
 async function readTextFile(path: string, what: string): Promise<TextFile> {
   try {
-    const stats = await stat(path);
-    if (!stats.isFile()) throw Object.assign(new Error('not a file'), { code: 'EISDIR' });
-    if (stats.size > MAX_ARRAY_FILE_BYTES) throw new WhenceError('array-open-failed', `${path} is ${(stats.size / 2 ** 20).toFixed(0)} MiB, far larger than ${what}; check that you chose the right file.`);
-    return { name: basename(path), path, text: await readFile(path, 'utf8') };
+    const tooLarge = (sizeBytes: number) => new WhenceError('array-open-failed', `${path} is ${(sizeBytes / 2 ** 20).toFixed(0)} MiB, far larger than ${what}; check that you chose the right file.`);
+    return { name: basename(path), path, text: await readSmallTextFile(path, MAX_ARRAY_FILE_BYTES, tooLarge, true) };
   } catch (error) {
     if (isWhenceError(error)) throw error;
     throw new WhenceError('array-open-failed', `Could not open ${what} ${path}: ${describeFileProblem(error)}.`);

@@ -1,2 +1,4 @@
-// Node-side file helpers: atomic writes.
-export { writeFileAtomic } from './atomicWrite';
+// Node-side file helpers: atomic writes, reading small text files, plain-language reasons for file-system errors.
+export { writeFileAtomic, writeFileAtomicWith } from './atomicWrite';
+export { describeFileProblem, errorCode } from './fileProblem';
+export { readSmallTextFile } from './readTextFile';

@@ -3,20 +3,19 @@
 import { open, type FileHandle } from 'node:fs/promises';
 import type { ByteSource } from '../../core/audio';
 import { WhenceError } from '../../core/errors';
+import { errorCode } from '../files';
 
 export type FileByteSource = ByteSource & { close(): Promise<void> };
 
 // A single FileHandle.read() is kept below 2 GiB (the limit of one read call); longer ranges loop.
 const MAX_READ_CALL_BYTES = 1 << 30;
 
-function reasonFor(error: unknown): { code: string | undefined; text: string } {
-  const code = typeof error === 'object' && error !== null && 'code' in error ? String((error as { code: unknown }).code) : undefined;
-  const text = error instanceof Error ? error.message : String(error);
-  return { code, text };
+function reasonText(error: unknown): string {
+  return error instanceof Error ? error.message : String(error);
 }
 
 function openFailure(path: string, error: unknown): WhenceError {
-  const { code, text } = reasonFor(error);
+  const code = errorCode(error);
   const advice: Record<string, string> = {
     ENOENT: 'there is no file at that path; check the folder and file name (was the card or drive removed?)',
     EISDIR: 'it is a folder, not a file; choose the WAV recording inside it',
@@ -24,7 +23,7 @@ function openFailure(path: string, error: unknown): WhenceError {
     EPERM: 'the operating system refused access; give your user read access to the file or copy it somewhere you can read',
     EMFILE: 'too many files are open; close some recordings or programs and try again',
   };
-  const what = code !== undefined && advice[code] !== undefined ? advice[code] : `${text}; check that the file exists and is readable`;
+  const what = code !== undefined && advice[code] !== undefined ? advice[code] : `${reasonText(error)}; check that the file exists and is readable`;
   return new WhenceError('file-open-failed', `Could not open ${path}: ${what}.`);
 }
 
@@ -80,7 +79,7 @@ export async function openFileByteSource(path: string): Promise<FileByteSource> 
         filled += bytesRead;
       }
     } catch (error) {
-      throw new WhenceError('file-read-failed', `Could not read ${path} at byte ${start + filled}: ${reasonFor(error).text}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
+      throw new WhenceError('file-read-failed', `Could not read ${path} at byte ${start + filled}: ${reasonText(error)}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
     }
     return filled;
   }

@@ -43,7 +43,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
       else entry.reject(message.code !== undefined ? new WhenceError(message.code, message.message) : new Error(message.message));
     });
     worker.on('error', (error) => {
-      for (const [id, entry] of waiting) if (entry.slot === slot) { waiting.delete(id); entry.reject(error); }
+      for (const [id, entry] of waiting) if (entry.slot === slot) { waiting.delete(id); slot.busy--; entry.reject(error); }
     });
     return slot;
   });

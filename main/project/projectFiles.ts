@@ -5,8 +5,7 @@ import { basename, dirname } from 'node:path';
 import { PROJECT_BACKUP_SUFFIX, PROJECT_FILE_EXTENSION, type OpenedProject } from '../../core/contract';
 import { WhenceError } from '../../core/errors';
 import { readProjectText, serializeProjectDocument, type ProjectDocument } from '../../core/project';
-import { writeFileAtomic } from '../files';
-import { describeFileProblem, errorCode } from './fileProblem';
+import { describeFileProblem, errorCode, readSmallTextFile, writeFileAtomic } from '../files';
 
 /** A project larger than this is refused before reading (a wrong file chosen, most likely). */
 export const MAX_PROJECT_FILE_BYTES = 256 * 1024 * 1024;
@@ -32,12 +31,7 @@ export async function loadProjectFile(path: string): Promise<OpenedProject> {
   const fileName = basename(path);
   let text: string;
   try {
-    const stats = await stat(path);
-    if (stats.isDirectory()) throw Object.assign(new Error('is a directory'), { code: 'EISDIR' });
-    if (stats.size > MAX_PROJECT_FILE_BYTES) {
-      throw new WhenceError('project-open-failed', `${path} is ${(stats.size / 2 ** 20).toFixed(0)} MiB, far larger than a Whence project; check that you chose the .whence file.`);
-    }
-    text = await readFile(path, 'utf8');
+    text = await readSmallTextFile(path, MAX_PROJECT_FILE_BYTES, (sizeBytes) => new WhenceError('project-open-failed', `${path} is ${(sizeBytes / 2 ** 20).toFixed(0)} MiB, far larger than a Whence project; check that you chose the .whence file.`));
   } catch (error) {
     if (error instanceof WhenceError) throw error;
     throw new WhenceError('project-open-failed', `Could not open the project ${path}: ${describeFileProblem(error)}.`);

@@ -5,8 +5,7 @@ import { join } from 'node:path';
 import { z } from 'zod';
 import type { RecoveryCopy } from '../../core/contract';
 import { readProjectText, serializeProjectDocument, type ProjectDocument } from '../../core/project';
-import { writeFileAtomic } from '../files';
-import { errorCode } from './fileProblem';
+import { errorCode, writeFileAtomic } from '../files';
 
 export const RECOVERY_FILE_NAME = 'recovery.json';
 /** A copy once offered is moved here (not deleted), so a second crash before the user acts loses nothing. */

@@ -1,10 +1,9 @@
-// Writes a synthesized scene to a WAV/RF64 file block by block (never the whole recording in memory), atomically:
-// a temporary file in the same folder, flushed, then renamed over the target. Sizes in bytes, counts in frames.
-import { open, rename, unlink, type FileHandle } from 'node:fs/promises';
-import { basename, dirname, join } from 'node:path';
+// Writes a synthesized scene to a WAV/RF64 file block by block (never the whole recording in memory), atomically
+// (main/files writeFileAtomicWith: temporary file, flush, rename). Sizes in bytes, counts in frames.
 import { encodeFrames, encodeWavHeader, wavFileLayout, type WavBextSpec, type WavWriteSpec } from '../../core/audio';
-import { isWhenceError, WhenceError } from '../../core/errors';
+import { WhenceError } from '../../core/errors';
 import { NOISE_TILE_FRAMES, PreparedScene, prepareScene, renderScene, type SceneSpec } from '../../core/simulate';
+import { writeFileAtomicWith } from '../files';
 
 export interface WriteSceneWavOptions {
   /** Default 24. */
@@ -78,19 +77,16 @@ export async function writeSceneWav(scene: SceneSpec | PreparedScene, path: stri
   const layout = wavFileLayout(spec);
   const header = encodeWavHeader(spec);
 
-  const temporaryPath = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
   const channels = Array.from({ length: prepared.channelCount }, () => new Float32Array(Math.min(blockFrames, Math.max(1, prepared.frameCount))));
   const buffers = [0, 1].map(() => new Uint8Array(channels[0].length * layout.blockAlignBytes));
-  let handle: FileHandle | undefined;
   let clippedSampleCount = 0;
   let peakAbsolute = 0;
-  try {
-    handle = await open(temporaryPath, 'wx');
+  await writeFileAtomicWith(path, async (handle) => {
     let position = 0;
     const write = async (bytes: Uint8Array) => {
       let done = 0;
       while (done < bytes.length) {
-        const { bytesWritten } = await handle!.write(bytes, done, bytes.length - done, position + done);
+        const { bytesWritten } = await handle.write(bytes, done, bytes.length - done, position + done);
         done += bytesWritten;
       }
       position += bytes.length;
@@ -111,17 +107,7 @@ export async function writeSceneWav(scene: SceneSpec | PreparedScene, path: stri
     }
     if (pending !== undefined) await pending;
     if (layout.padLengthBytes > 0) await write(new Uint8Array(layout.padLengthBytes));
-    await handle.sync();
-    await handle.close();
-    handle = undefined;
-    await rename(temporaryPath, path);
-  } catch (error) {
-    if (handle !== undefined) await handle.close().catch(() => undefined);
-    await unlink(temporaryPath).catch(() => undefined);
-    if (isWhenceError(error)) throw error;
-    const reason = error instanceof Error ? error.message : String(error);
-    throw new WhenceError('file-write-failed', `Could not write ${path}: ${reason}. Check that the folder exists and is writable and that the disk has space (${layout.fileLengthBytes} bytes needed); any previous file there is unchanged.`);
-  }
+  }, ` (${layout.fileLengthBytes} bytes needed)`);
   return {
     path,
     frameCount: prepared.frameCount,

@@ -3,6 +3,7 @@
 import { useMemo } from 'react';
 import type { ChannelAutocorrelationPlot, PairCorrelationPlot } from '../../core/overview';
 import { autocorrelationShape } from './autocorrelationShape';
+import type { AxisTick } from './lagAxis';
 import { pairPlotShape, type PlotBox } from './pairPlotShape';
 import { weightingName } from './plotFormat';
 import './correlations.css';
@@ -70,7 +71,7 @@ function PairCard({ plot }: { plot: PairCorrelationPlot }) {
         {shape.beyondSpacing && <span className="cv-badge cv-badge-warn">beyond d/c</span>}
       </figcaption>
       <svg viewBox={`0 0 ${pairBox.widthPixels} ${pairBox.heightPixels}`} width="100%" className="cv-svg" role="img" aria-label={`${shape.title}: ${shape.delayText}, ${shape.qualityText}`}>
-        <rect x={pairBox.left} y={pairBox.top} width={pairBox.widthPixels - pairBox.left - pairBox.right} height={plotBottom - pairBox.top} className="cv-plot-area" />
+        <PlotArea box={pairBox} />
         {shape.spacingBand && (
           <rect x={shape.spacingBand.x0} y={pairBox.top} width={Math.max(1, shape.spacingBand.x1 - shape.spacingBand.x0)} height={plotBottom - pairBox.top} className="cv-band" />
         )}
@@ -80,13 +81,7 @@ function PairCard({ plot }: { plot: PairCorrelationPlot }) {
         <line x1={shape.sigmaBar.x0} x2={shape.sigmaBar.x0} y1={shape.sigmaBar.y - 8} y2={shape.sigmaBar.y - 2} className="cv-sigma" />
         <line x1={shape.sigmaBar.x1} x2={shape.sigmaBar.x1} y1={shape.sigmaBar.y - 8} y2={shape.sigmaBar.y - 2} className="cv-sigma" />
         <circle cx={shape.peak.x} cy={shape.peak.y} r={3} className={shape.beyondSpacing ? 'cv-peak cv-peak-warn' : 'cv-peak'} />
-        {shape.xTicks.map((tick) => (
-          <g key={tick.position}>
-            <line x1={tick.position} x2={tick.position} y1={plotBottom} y2={plotBottom + 3} className="cv-tick" />
-            <text x={tick.position} y={plotBottom + 13} className="cv-tick-label">{tick.label}</text>
-          </g>
-        ))}
-        <text x={pairBox.widthPixels - pairBox.right} y={pairBox.top + 9} className="cv-unit">{shape.xUnit}</text>
+        <LagAxis box={pairBox} ticks={shape.xTicks} unit={shape.xUnit} />
       </svg>
       <div className="cv-text">{shape.delayText}</div>
       <div className={weak ? 'cv-text cv-warn' : 'cv-text cv-muted'}>{shape.qualityText}{weak ? ' · close second peak' : ''}</div>
@@ -101,7 +96,7 @@ function AutocorrelationCard({ plot, index }: { plot: ChannelAutocorrelationPlot
     <figure className="cv-card" data-testid={`autocorrelation-${index}`}>
       <figcaption className="cv-card-title"><span>{shape.title}</span></figcaption>
       <svg viewBox={`0 0 ${autoBox.widthPixels} ${autoBox.heightPixels}`} width="100%" className="cv-svg" role="img" aria-label={`${shape.title}: ${shape.widthText}, ${shape.precisionText}`}>
-        <rect x={autoBox.left} y={autoBox.top} width={autoBox.widthPixels - autoBox.left - autoBox.right} height={plotBottom - autoBox.top} className="cv-plot-area" />
+        <PlotArea box={autoBox} />
         <line x1={autoBox.left} x2={autoBox.widthPixels - autoBox.right} y1={shape.zeroY} y2={shape.zeroY} className="cv-zero" />
         {shape.halfWidthX !== undefined && (
           <>
@@ -112,18 +107,33 @@ function AutocorrelationCard({ plot, index }: { plot: ChannelAutocorrelationPlot
         )}
         {shape.firstZeroX !== undefined && <circle cx={shape.firstZeroX} cy={shape.zeroY} r={2.5} className="cv-zero-mark" />}
         <path d={shape.curvePath} className="cv-curve" />
-        {shape.xTicks.map((tick) => (
-          <g key={tick.position}>
-            <line x1={tick.position} x2={tick.position} y1={plotBottom} y2={plotBottom + 3} className="cv-tick" />
-            <text x={tick.position} y={plotBottom + 13} className="cv-tick-label">{tick.label}</text>
-          </g>
-        ))}
-        <text x={autoBox.widthPixels - autoBox.right} y={autoBox.top + 9} className="cv-unit">{shape.xUnit}</text>
+        <LagAxis box={autoBox} ticks={shape.xTicks} unit={shape.xUnit} />
       </svg>
       <div className="cv-text cv-muted">{shape.widthText}</div>
       <div className="cv-text">{shape.precisionText}</div>
       {shape.basisText && <div className="cv-text cv-muted cv-small">{shape.basisText}</div>}
     </figure>
+  );
+}
+
+/** The plot's background, inside the box's margins. */
+function PlotArea({ box }: { box: PlotBox }) {
+  return <rect x={box.left} y={box.top} width={box.widthPixels - box.left - box.right} height={box.heightPixels - box.bottom - box.top} className="cv-plot-area" />;
+}
+
+/** The lag axis under a plot: tick marks, their labels and the unit at the right. */
+function LagAxis({ box, ticks, unit }: { box: PlotBox; ticks: readonly AxisTick[]; unit: string }) {
+  const plotBottom = box.heightPixels - box.bottom;
+  return (
+    <>
+      {ticks.map((tick) => (
+        <g key={tick.position}>
+          <line x1={tick.position} x2={tick.position} y1={plotBottom} y2={plotBottom + 3} className="cv-tick" />
+          <text x={tick.position} y={plotBottom + 13} className="cv-tick-label">{tick.label}</text>
+        </g>
+      ))}
+      <text x={box.widthPixels - box.right} y={box.top + 9} className="cv-unit">{unit}</text>
+    </>
   );
 }
 

@@ -17,6 +17,11 @@ export interface FixLogContext extends SurveyLogContext {
 
 export type FixLogExportKind = 'csv' | 'geojson';
 
+/** The file name an export of the log is offered under. */
+export function fixLogFileName(kind: FixLogExportKind): string {
+  return kind === 'csv' ? 'whence-log.csv' : 'whence-log.geojson';
+}
+
 /** Columns a fix log entry does not keep: written only when the located event is at hand. */
 export const COLUMNS_NEEDING_LOCATED_EVENT = [
   'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_dropped', 'alternative_x_m', 'alternative_y_m', 'alternative_z_m',

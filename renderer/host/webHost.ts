@@ -1,6 +1,6 @@
 // The host for a plain browser: file inputs to open, downloads to save and export, localStorage for the
 // recovery copy, and the demo fetched from the web build's demo/ folder.
-import type { ExportKind, MenuCommand } from '../../core/contract';
+import { DEMO_FILE_NAMES, type ExportKind, type MenuCommand } from '../../core/contract';
 import { parseProjectDocument, serializeProjectDocument, validateProjectDocument } from '../../core/project';
 import type { Host, OpenedRecording, TextInput } from './host';
 
@@ -79,12 +79,13 @@ export function createWebHost(baseUrl = './'): Host {
       return Promise.resolve(suggestedName);
     },
     async openDemo() {
-      const [recordingResponse, arrayResponse, projectResponse] = await Promise.all(['demo-recording.wav', 'demo-array.csv', 'demo-project.whence'].map((name) => fetchOrExplain(`${baseUrl}demo/${name}`)));
+      const { recording, array, project } = DEMO_FILE_NAMES;
+      const [recordingResponse, arrayResponse, projectResponse] = await Promise.all([recording, array, project].map((name) => fetchOrExplain(`${baseUrl}demo/${name}`)));
       const blob = await recordingResponse!.blob();
       return {
-        recording: blobRecording(blob, 'demo-recording.wav'),
-        array: { name: 'demo-array.csv', text: await arrayResponse!.text() },
-        project: { name: 'demo-project.whence', text: await projectResponse!.text() },
+        recording: blobRecording(blob, recording),
+        array: { name: array, text: await arrayResponse!.text() },
+        project: { name: project, text: await projectResponse!.text() },
       };
     },
     writeRecoveryCopy(document) {

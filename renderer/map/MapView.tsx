@@ -3,7 +3,7 @@
 // Units: local east/north metres in the props, pixels only here and through the one MapScale.
 
 import type Konva from 'konva';
-import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ComponentProps, type KeyboardEvent } from 'react';
 import { Circle, Group, Image as KonvaImage, Layer, Line, Rect, Stage, Text } from 'react-konva';
 import { WhenceError } from '../../core/errors';
 import type { LabelBox } from './curveLabels';
@@ -423,7 +423,7 @@ export function MapView(props: MapViewProps) {
                     shadowBlur={3}
                     shadowOpacity={0.35}
                   />
-                  <Text
+                  <HaloText
                     name="microphone-handle"
                     x={micRadiusPixels + 3}
                     y={-micRadiusPixels - 13}
@@ -431,9 +431,6 @@ export function MapView(props: MapViewProps) {
                     fontSize={12}
                     fontStyle="bold"
                     fill="#1d2a2f"
-                    stroke="#fbf9f4"
-                    strokeWidth={3}
-                    fillAfterStrokeEnabled
                   />
                 </Group>
               ))}
@@ -441,43 +438,34 @@ export function MapView(props: MapViewProps) {
             <Layer listening={false}>
               {curves.map((curve) =>
                 curve.label === undefined ? null : (
-                  <Text
+                  <HaloText
                     key={`label/${curve.key}`}
                     x={curve.label.xPixels}
                     y={curve.label.yPixels}
                     text={curve.pairLabel}
                     fontSize={11}
                     fill={curve.colour}
-                    stroke="#fbf9f4"
-                    strokeWidth={3}
-                    fillAfterStrokeEnabled
                   />
                 ),
               )}
               {grid?.eastLines.filter((line) => line.positionPixels < width - gridLabelClearRightPixels).map((line) => (
-                <Text
+                <HaloText
                   key={`le${line.valueMeters}`}
                   x={line.positionPixels + 3}
                   y={4}
                   text={line.label}
                   fontSize={11}
                   fill="#5d6b70"
-                  stroke="#fbf9f4"
-                  strokeWidth={3}
-                  fillAfterStrokeEnabled
                 />
               ))}
               {grid?.northLines.filter((line) => line.positionPixels < height - gridLabelClearBottomPixels).map((line) => (
-                <Text
+                <HaloText
                   key={`ln${line.valueMeters}`}
                   x={4}
                   y={line.positionPixels - 14}
                   text={line.label}
                   fontSize={11}
                   fill="#5d6b70"
-                  stroke="#fbf9f4"
-                  strokeWidth={3}
-                  fillAfterStrokeEnabled
                 />
               ))}
             </Layer>
@@ -604,17 +592,19 @@ function FixMark({ fix, hovered, onEnter, onLeave, onSelect }: FixMarkProps) {
       <Line points={[fix.xPixels, fix.yPixels - arm, fix.xPixels, fix.yPixels + arm]} stroke="#fffdf8" strokeWidth={5 + emphasis} lineCap="round" />
       <Line points={[fix.xPixels - arm, fix.yPixels, fix.xPixels + arm, fix.yPixels]} stroke={fix.colour} strokeWidth={2 + emphasis} lineCap="round" />
       <Line points={[fix.xPixels, fix.yPixels - arm, fix.xPixels, fix.yPixels + arm]} stroke={fix.colour} strokeWidth={2 + emphasis} lineCap="round" />
-      <Text
+      <HaloText
         x={fix.xPixels + 10}
         y={fix.yPixels - 20}
         text={fix.status === 'ok' ? fix.label : `${fix.label} (${fix.status})`}
         fontSize={12}
         fontStyle={fix.selected ? 'bold' : 'normal'}
         fill={fix.colour}
-        stroke="#fbf9f4"
-        strokeWidth={3}
-        fillAfterStrokeEnabled
       />
     </Group>
   );
+}
+
+/** Map text on a light halo, readable over curves, the grid and the overlay. */
+function HaloText(props: ComponentProps<typeof Text>) {
+  return <Text stroke="#fbf9f4" strokeWidth={3} fillAfterStrokeEnabled {...props} />;
 }

@@ -1,8 +1,11 @@
 // Pure derivations from the project document: the speed of sound in use, the locate settings and context for the
-// worker, and fix-log entries from located events. Metres, seconds, m/s.
+// worker, and the survey-log context of the fix log. Metres, seconds, m/s.
+import { fixLogContextFor, type FixLogContext } from '../fixlog';
 import { describeSpeed } from '../settings';
-import type { LocateContext, LocateSettings } from '../../core/pipeline';
+import { WhenceError } from '../../core/errors';
+import { mapArrayToRecording, type LocateContext, type LocatedEvent, type LocateSettings } from '../../core/pipeline';
 import type { ArrayGeometry, ProjectDocument, ProjectMedium } from '../../core/project';
+import type { WorkspaceState } from './workspace';
 
 export interface SpeedInUse { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number; description: string; reference: string }
 
@@ -28,19 +31,47 @@ export function locateSettings(document: ProjectDocument, speed: SpeedInUse): Lo
   return settings;
 }
 
-/** Problems that stop a locate run, in words; empty when the document and recording fit together. */
-export function locateBlockers(document: ProjectDocument, recordingChannelCount: number | undefined): string[] {
-  const problems: string[] = [];
-  const microphones = document.array.microphones;
-  if (recordingChannelCount === undefined) problems.push('Open a recording first.');
-  if (microphones.length < 3) problems.push(`The array has ${microphones.length} microphone${microphones.length === 1 ? '' : 's'}; a fix needs at least 3.`);
-  if (recordingChannelCount !== undefined) {
-    const beyond = microphones.filter((m) => m.channel > recordingChannelCount);
-    if (beyond.length > 0) problems.push(`${beyond.map((m) => `${m.label} (channel ${m.channel})`).join(', ')}: the recording has ${recordingChannelCount} channels.`);
-  }
-  return problems;
-}
-
 export function locateContext(document: ProjectDocument, speed: SpeedInUse): LocateContext {
   return { geometry: geometryOf(document), channelIndexOfMicrophone: document.array.microphones.map((m) => m.channel - 1), settings: locateSettings(document, speed) };
+}
+
+/**
+ * The context of a locate run over the open recording, or the problems that stop one, in words: the channel checks are
+ * core/pipeline's mapArrayToRecording (as `whence locate` makes them), the speed is the medium's.
+ */
+export function locateReadiness(document: ProjectDocument, recording: { name: string; info: { channelCount: number } } | undefined): { context: LocateContext } | { problems: string[] } {
+  if (recording === undefined) return { problems: ['Open a recording first.'] };
+  const problems: string[] = [];
+  try {
+    mapArrayToRecording(geometryOf(document), recording.info.channelCount, recording.name);
+  } catch (error) {
+    if (!(error instanceof WhenceError)) throw error;
+    problems.push(`${error.message.charAt(0).toUpperCase()}${error.message.slice(1)}`);
+  }
+  let speed: SpeedInUse | undefined;
+  try {
+    speed = speedInUse(document.medium);
+  } catch (error) {
+    problems.push(error instanceof Error ? error.message : String(error));
+  }
+  return speed === undefined || problems.length > 0 ? { problems } : { context: locateContext(document, speed) };
+}
+
+/** What the fix log's exports say about the run, with this session's located events by entry id; undefined without a recording or a speed. */
+export function fixLogContextOf(state: Pick<WorkspaceState, 'document' | 'recording' | 'events'>): FixLogContext | undefined {
+  const { document, recording } = state;
+  if (recording === undefined) return undefined;
+  const located = new Map<string, LocatedEvent>();
+  for (const fix of document.fixes) {
+    const match = state.events.find((event) => event.event.index === fix.eventIndex);
+    if (match !== undefined) located.set(fix.id, match);
+  }
+  try {
+    return fixLogContextFor({
+      recordingName: recording.name, ...(recording.info.startTime ? { recordingStartTime: recording.info.startTime } : {}), sampleRateHz: recording.info.sampleRateHz,
+      microphones: document.array.microphones, ...(document.array.origin ? { origin: document.array.origin } : {}), medium: document.medium, settings: document.settings, located,
+    });
+  } catch {
+    return undefined;
+  }
 }

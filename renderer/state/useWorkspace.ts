@@ -3,14 +3,13 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import type { WavInfo } from '../../core/audio';
 import type { MenuCommand } from '../../core/contract';
-import { surveyLogCsv, fixesToGeoJson, locatedEventRecord, type SurveyLogContext } from '../../core/export';
 import type { CorrelationPlots, EnvelopePyramid, Spectrogram, SpectrogramRequest } from '../../core/overview';
 import type { LocatedEvent, PipelineProgress, PipelineResult } from '../../core/pipeline';
-import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
-import { WHENCE_VERSION } from '../../core/version';
+import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
+import { fixLogExportText, fixLogFileName, type FixLogContext, type FixLogExport, type FixLogExportKind } from '../fixlog';
 import type { Host, OpenedRecording } from '../host';
 import { PipelineBridge, type WorkerCall } from '../worker/bridge';
-import { locateBlockers, locateContext, speedInUse, type SpeedInUse } from './derive';
+import { fixLogContextOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
 import { initialWorkspace, workspaceReducer, type WorkspaceState } from './workspace';
 
@@ -18,10 +17,10 @@ function message(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
 }
 
-/** The speed of sound of a document, read when needed (never from a stale closure). */
-function currentSpeed(document: ProjectDocument): SpeedInUse | { error: string } {
+/** The speed of sound of a medium, or the model's message when it gives none. */
+function currentSpeed(medium: ProjectMedium): SpeedInUse | { error: string } {
   try {
-    return speedInUse(document.medium);
+    return speedInUse(medium);
   } catch (error) {
     return { error: message(error) };
   }
@@ -54,16 +53,18 @@ export interface WorkspaceController {
   selectSpan(startSeconds: number, endSeconds: number): void;
   logEvents(indices: number[]): void;
   updateFix(id: string, patch: { label?: string; note?: string; accepted?: boolean }): void;
-  setFixes(fixes: import('../../core/project').FixLogEntry[]): void;
+  setFixes(fixes: FixLogEntry[]): void;
   selectFix(id: string | undefined): void;
-  exportLog(kind: 'csv' | 'geojson'): Promise<void>;
+  /** The accepted fixes of the log, written as the Fix log panel writes them. */
+  exportLog(kind: FixLogExportKind): Promise<void>;
   exportText(name: string, text: string, kind: 'csv' | 'geojson' | 'json'): Promise<void>;
   requestSpectrogram(request: SpectrogramRequest): Promise<Spectrogram>;
   dismissNotice(id: number): void;
   restoreRecovery(): void;
   discardRecovery(): void;
   recoveryOffer: { savedAtIso: string } | undefined;
-  surveyContext(): SurveyLogContext | undefined;
+  /** What the fix log's exports say about the run (undefined without a recording or a speed). */
+  fixLogContext: FixLogContext | undefined;
 }
 
 export function useWorkspace(host: Host): WorkspaceController {
@@ -84,7 +85,8 @@ export function useWorkspace(host: Host): WorkspaceController {
 
   const notify = useCallback((level: 'info' | 'warning' | 'error', text: string) => dispatch({ type: 'notice/add', level, text }), []);
 
-  const speed = useMemo(() => currentSpeed(state.document), [state.document.medium]);
+  const speed = useMemo(() => currentSpeed(state.document.medium), [state.document.medium]);
+  const fixLogContext = useMemo(() => fixLogContextOf({ document: state.document, recording: state.recording, events: state.events }), [state.document, state.recording, state.events]);
 
   const loadRecording = useCallback(async (opened: OpenedRecording): Promise<WavInfo | undefined> => {
     const previous = recordingRef.current;
@@ -126,12 +128,9 @@ export function useWorkspace(host: Host): WorkspaceController {
   }, [bridge, notify]);
 
   const locateAll = useCallback(async () => {
-    const current = stateRef.current;
-    const blockers = locateBlockers(current.document, current.recording?.info.channelCount);
-    const speed = currentSpeed(current.document);
-    if ('error' in speed) blockers.push(speed.error);
-    if (blockers.length > 0) { notify('warning', `Cannot locate yet: ${blockers.join(' ')}`); return; }
-    const context = locateContext(current.document, speed as SpeedInUse);
+    const ready = locateReadiness(stateRef.current.document, stateRef.current.recording);
+    if ('problems' in ready) { notify('warning', `Cannot locate yet: ${ready.problems.join(' ')}`); return; }
+    const { context } = ready;
     dispatch({ type: 'busy/set', busy: { label: 'Finding and locating sounds', progress: 0 } });
     const call = bridge().call<PipelineResult>('run', { context }, (progress) => {
       const p = progress as PipelineProgress;
@@ -154,14 +153,12 @@ export function useWorkspace(host: Host): WorkspaceController {
 
   const locateSpan = useCallback(async (startSeconds: number, endSeconds: number) => {
     const current = stateRef.current;
-    const blockers = locateBlockers(current.document, current.recording?.info.channelCount);
-    const speed = currentSpeed(current.document);
-    if ('error' in speed) blockers.push(speed.error);
-    if (blockers.length > 0) { notify('warning', `Cannot locate yet: ${blockers.join(' ')}`); return; }
+    const ready = locateReadiness(current.document, current.recording);
+    if ('problems' in ready) { notify('warning', `Cannot locate yet: ${ready.problems.join(' ')}`); return; }
     dispatch({ type: 'busy/set', busy: { label: 'Locating the selection', progress: 0.5 } });
     try {
       const index = Math.max(-1, ...current.events.map((e) => e.event.index)) + 1;
-      const located = await bridge().call<LocatedEvent>('locateSpan', { context: locateContext(current.document, speed as SpeedInUse), startSeconds, endSeconds, index }).promise;
+      const located = await bridge().call<LocatedEvent>('locateSpan', { context: ready.context, startSeconds, endSeconds, index }).promise;
       dispatch({ type: 'events/add', event: located });
       dispatch({ type: 'fixes/log-events', indices: [current.events.length] });
       notify(located.solve.status === 'ok' ? 'info' : 'warning', `Selection ${startSeconds.toFixed(2)}-${endSeconds.toFixed(2)} s: ${located.solve.status}${located.solve.status === 'ok' ? '' : ` (${located.solve.warnings[0] ?? 'no fix'})`}; added to the log.`);
@@ -251,19 +248,6 @@ export function useWorkspace(host: Host): WorkspaceController {
     void openDemo();
   }, [host, openDemo]);
 
-  const surveyContext = useCallback((): SurveyLogContext | undefined => {
-    const current = stateRef.current;
-    const speed = currentSpeed(current.document);
-    if ('error' in speed || current.recording === undefined) return undefined;
-    return {
-      recordingName: current.recording.name, recordingStartTime: current.recording.info.startTime, sampleRateHz: current.recording.info.sampleRateHz,
-      geometry: { microphones: current.document.array.microphones, origin: current.document.array.origin, warnings: [] },
-      medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
-      softwareVersion: WHENCE_VERSION, settings: { dims: current.document.settings.dimensions, confidence: current.document.settings.confidence, weighting: current.document.settings.weighting, band_hz: current.document.settings.bandHz === 'automatic' ? 'per event' : `${current.document.settings.bandHz.lowHz}-${current.document.settings.bandHz.highHz}` },
-      dimensions: current.document.settings.dimensions,
-    };
-  }, []);
-
   const exportText = useCallback(async (name: string, text: string, kind: 'csv' | 'geojson' | 'json') => {
     try {
       const where = await host.exportText(name, text, kind);
@@ -273,25 +257,25 @@ export function useWorkspace(host: Host): WorkspaceController {
     }
   }, [host, notify]);
 
-  const exportLog = useCallback(async (kind: 'csv' | 'geojson') => {
-    const context = surveyContext();
-    const current = stateRef.current;
-    if (context === undefined) { notify('warning', 'Open a recording and set a valid medium before exporting the log.'); return; }
-    const accepted = current.events.filter((located) => current.document.fixes.some((fix) => fix.accepted && fix.eventIndex === located.event.index));
-    const records = accepted.map((located) => locatedEventRecord(located, context));
-    if (kind === 'geojson') {
-      if (context.geometry.origin === undefined) { notify('warning', 'GeoJSON needs a WGS84 origin: set one in the microphone table.'); return; }
-      await exportText('whence-log.geojson', fixesToGeoJson(records, context.geometry.origin, true, { microphones: context.geometry.microphones }), 'geojson');
-    } else {
-      await exportText('whence-log.csv', surveyLogCsv(records, context), 'csv');
+  const exportLog = useCallback(async (kind: FixLogExportKind) => {
+    if (fixLogContext === undefined) { notify('warning', 'Open a recording and set a valid medium before exporting the log.'); return; }
+    let result: FixLogExport;
+    try {
+      result = fixLogExportText(kind, stateRef.current.document.fixes, fixLogContext);
+    } catch (error) {
+      notify('error', `The log could not be written: ${message(error)}`);
+      return;
     }
-  }, [exportText, notify, surveyContext]);
+    if (!result.ok) { notify('warning', result.message); return; }
+    await exportText(fixLogFileName(kind), result.text, kind);
+  }, [exportText, notify, fixLogContext]);
 
   const controller: WorkspaceController = {
     state,
     speed,
     correlations,
-    recoveryOffer: recovery === undefined ? undefined : { savedAtIso: recovery.savedAtIso },
+    recoveryOffer: recovery,
+    fixLogContext,
     async openRecording() {
       try {
         const opened = await host.openRecording();
@@ -371,7 +355,6 @@ export function useWorkspace(host: Host): WorkspaceController {
       setRecovery(undefined);
       void host.discardRecoveryCopy().catch(() => undefined);
     },
-    surveyContext,
   };
 
   useEffect(() => host.onMenuCommand((command: MenuCommand) => {

@@ -2,8 +2,9 @@
 // spectrograms, detection and location, correlation plots), with progress and cancel. No DOM here.
 import { readWavInfo, type ByteSource, type WavInfo } from '../../core/audio';
 import { isWhenceError } from '../../core/errors';
+import { manualEvent } from '../../core/detect';
 import { correlationPlots, envelopeFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
-import { locateEvent, manualEventFor, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
+import { locateEvent, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
 import { blobByteSource } from '../io';
 import { proxyByteSource, type ProxyReads } from './proxyByteSource';
 import type { FromWorker, ToWorker, WorkerSource } from './protocol';
@@ -63,7 +64,7 @@ const handlers: Record<string, Handler> = {
   },
   async locateSpan(params: { context: LocateContext; startSeconds: number; endSeconds: number; index: number }) {
     const { recording, info } = requireRecording();
-    return locateEvent(recording, manualEventFor(params.startSeconds, params.endSeconds, info.channelCount, params.index), params.context);
+    return locateEvent(recording, manualEvent(params.startSeconds, params.endSeconds, info.channelCount, params.index), params.context);
   },
   async correlations(params: { context: LocateContext; startSeconds: number; endSeconds: number; bandHz: { lowHz: number; highHz: number }; usedPairs?: string[] }) {
     const { recording, info } = requireRecording();

@@ -11,7 +11,7 @@ export function mapMicrophones(document: ProjectDocument): MapMicrophone[] {
 }
 
 /** Quality 0..1 from the correlation's peak-to-second ratio: 1 at a ratio of 5 or more; 0 for pairs left out. */
-export function pairQuality(peakToSecondRatio: number, used: boolean): number {
+function pairQuality(peakToSecondRatio: number, used: boolean): number {
   if (!used) return 0;
   return Math.max(0, Math.min(1, (peakToSecondRatio - 1) / 4));
 }
@@ -37,23 +37,33 @@ export function mapFixes(events: readonly LocatedEvent[], selectedIndex: number 
 export function planeHeightMeters(document: ProjectDocument, located: LocatedEvent | undefined): number {
   if (located?.solve.fix !== undefined) return located.solve.fix.upMeters;
   if (document.settings.sourceUpMeters !== undefined) return document.settings.sourceUpMeters;
-  const mics = document.array.microphones;
-  return mics.length === 0 ? 0 : mics.reduce((sum, m) => sum + m.upMeters, 0) / mics.length;
+  return meanUpMeters(document.array.microphones);
 }
 
-export const PRECISION_TIMING_SIGMA_SECONDS = 50e-6;
+/** The mean height of the microphones (0 for none). */
+export function meanUpMeters(microphones: readonly { upMeters: number }[]): number {
+  return microphones.length === 0 ? 0 : microphones.reduce((sum, m) => sum + m.upMeters, 0) / microphones.length;
+}
 
-/** Expected 1-sigma horizontal error over the array's surroundings for a given arrival-time sigma (CRLB). */
-export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond: number, cells = 120): MapOverlay | undefined {
-  const mics = document.array.microphones;
-  if (mics.length < 3) return undefined;
+/** The square the overlays cover: three times the array's larger extent (at least 20 m) around its centre. */
+function overlaySquare(mics: readonly { eastMeters: number; northMeters: number }[]) {
   const easts = mics.map((m) => m.eastMeters);
   const norths = mics.map((m) => m.northMeters);
   const span = Math.max(20, Math.max(...easts) - Math.min(...easts), Math.max(...norths) - Math.min(...norths));
   const centreEast = (Math.max(...easts) + Math.min(...easts)) / 2;
   const centreNorth = (Math.max(...norths) + Math.min(...norths)) / 2;
-  const step = (3 * span) / cells;
-  const grid = { eastStartMeters: centreEast - 1.5 * span + step / 2, northStartMeters: centreNorth - 1.5 * span + step / 2, eastStepMeters: step, northStepMeters: step, columns: cells, rows: cells, upMeters: planeHeightMeters(document, undefined) };
+  return { sideMeters: 3 * span, minEastMeters: centreEast - 1.5 * span, maxEastMeters: centreEast + 1.5 * span, minNorthMeters: centreNorth - 1.5 * span, maxNorthMeters: centreNorth + 1.5 * span };
+}
+
+const PRECISION_TIMING_SIGMA_SECONDS = 50e-6;
+
+/** Expected 1-sigma horizontal error over the array's surroundings for a given arrival-time sigma (CRLB). */
+export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond: number, cells = 120): MapOverlay | undefined {
+  const mics = document.array.microphones;
+  if (mics.length < 3) return undefined;
+  const square = overlaySquare(mics);
+  const step = square.sideMeters / cells;
+  const grid = { eastStartMeters: square.minEastMeters + step / 2, northStartMeters: square.minNorthMeters + step / 2, eastStepMeters: step, northStepMeters: step, columns: cells, rows: cells, upMeters: planeHeightMeters(document, undefined) };
   const output = { horizontalErrorMeters: new Float64Array(cells * cells), gdop: new Float64Array(cells * cells) };
   try {
     precisionMap(mics.map((m) => ({ label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters })), grid, { speedMetersPerSecond, timingSigmaSeconds: PRECISION_TIMING_SIGMA_SECONDS, dimensions: 2, timingModel: 'arrival-times' }, output);
@@ -72,13 +82,9 @@ export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond
 export function srpOverlay(document: ProjectDocument, plots: CorrelationPlots | undefined, speedMetersPerSecond: number, planeUpMeters: number, cells = 150): MapOverlay | undefined {
   const mics = document.array.microphones;
   if (plots === undefined || mics.length < 3 || plots.pairs.length === 0) return undefined;
-  const easts = mics.map((m) => m.eastMeters);
-  const norths = mics.map((m) => m.northMeters);
-  const span = Math.max(20, Math.max(...easts) - Math.min(...easts), Math.max(...norths) - Math.min(...norths));
-  const centreEast = (Math.max(...easts) + Math.min(...easts)) / 2;
-  const centreNorth = (Math.max(...norths) + Math.min(...norths)) / 2;
+  const { minEastMeters, maxEastMeters, minNorthMeters, maxNorthMeters } = overlaySquare(mics);
   try {
-    const grid = srpGridFromBounds({ minEastMeters: centreEast - 1.5 * span, maxEastMeters: centreEast + 1.5 * span, minNorthMeters: centreNorth - 1.5 * span, maxNorthMeters: centreNorth + 1.5 * span, minUpMeters: planeUpMeters, maxUpMeters: planeUpMeters }, { east: cells, north: cells });
+    const grid = srpGridFromBounds({ minEastMeters, maxEastMeters, minNorthMeters, maxNorthMeters, minUpMeters: planeUpMeters, maxUpMeters: planeUpMeters }, { east: cells, north: cells });
     const plan = createSrpPlan({ microphones: mics, speedMetersPerSecond, grid });
     const values = new Float64Array(plan.pointCount);
     srpMap(plan, plots.pairs.map((pair) => ({ indexA: pair.indexA, indexB: pair.indexB, sampleRateHz: pair.sampleRateHz, values: pair.values, zeroLagIndex: pair.maxLagFrames })), values);

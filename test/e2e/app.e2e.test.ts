@@ -1,6 +1,8 @@
 // The app in a real browser (web mode, Debian's Chromium via playwright-core): the demo opens and shows its fixes;
 // editing and dragging a microphone move the fix; a selected span is located into the log; the exported log matches
 // the command line; a corrupt recording and a bad cell give messages and lose nothing. Screenshots at 1440 x 900.
+// Expected values: the demo is an invented scene (core/simulate); counts are the sounds the synthesis placed, and the
+// exported rows are compared with the command line's own output on the same files (self-consistency), no outside reference.
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';

@@ -2,8 +2,9 @@
 // reference data) run through detection, GCC and the solver; fixes are compared with the places the scenes used.
 import { describe, expect, it } from 'vitest';
 import type { SceneSource, SceneSpec } from '../../core/simulate';
+import { median } from '../../core/locate';
 import { speedOfSound } from '../../core/medium';
-import { locateScene, mahalanobis2d, median, type SceneRun } from '../helpers/sceneRecording';
+import { locateScene, mahalanobis2d, type SceneRun } from '../helpers/sceneRecording';
 
 // chi-square quantile, 2 dof, 95 %: 5.991465 (statistical tables; ../shared/check-values.md).
 const CHI2_2DOF_95 = 5.991465;

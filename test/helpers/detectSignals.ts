@@ -3,17 +3,11 @@
 // audio need no memory; pink noise by P. Kellett's filter (common practice), wind by white noise low-passed below 60 Hz.
 import { butterworthSections, createBiquadCascade, type BiquadCascade } from '../../core/dsp';
 import type { DetectedEvent, StreamingDetector } from '../../core/detect';
+import { mulberry32 } from './signals';
 
 /** Fills arrays with standard normal numbers: mulberry32 uniforms, Marsaglia's polar method, seeded. */
-export function createNormalFiller(seed: number): (out: Float64Array, count: number) => void {
-  let state = seed >>> 0;
-  const uniform = (): number => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+function createNormalFiller(seed: number): (out: Float64Array, count: number) => void {
+  const uniform = mulberry32(seed);
   let spare = Number.NaN;
   return (out, count) => {
     let i = 0;

@@ -35,9 +35,3 @@ export function mahalanobis2d(dEast: number, dNorth: number, covariance: number[
   const det = a * d - b * b;
   return (d * dEast * dEast - 2 * b * dEast * dNorth + a * dNorth * dNorth) / det;
 }
-
-export function median(values: readonly number[]): number {
-  const sorted = [...values].sort((x, y) => x - y);
-  const middle = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[middle]! : (sorted[middle - 1]! + sorted[middle]!) / 2;
-}

@@ -38,14 +38,3 @@ export function virtualSource(sizeBytes: number, header: Uint8Array, byteAt: (of
     },
   };
 }
-
-/** A source whose reads fail the way a removed card does. */
-export function failingSource(sizeBytes: number, message = 'EIO: i/o error, read'): ByteSource {
-  return {
-    sizeBytes,
-    name: 'failing.wav',
-    read(): Promise<Uint8Array> {
-      return Promise.reject(new Error(message));
-    },
-  };
-}

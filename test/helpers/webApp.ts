@@ -17,7 +17,6 @@ export interface WebApp { server: PreviewServer; browser: Browser; url: string; 
 export async function startWebApp(port: number): Promise<WebApp> {
   if (!existsSync('assets/demo/out/demo-recording.wav')) execFileSync(process.execPath, ['--import', 'tsx', 'assets/demo/make-demo.ts'], { stdio: 'pipe' });
   execFileSync(process.execPath, ['scripts/build.mjs', 'web'], { stdio: 'pipe' });
-  execFileSync('cp', ['-r', 'assets/demo/out', 'dist-web/demo']);
   const server = await preview({ configFile: 'vite.config.ts', logLevel: 'error', preview: { host: '127.0.0.1', port, strictPort: true } });
   const browser = await chromium.launch({
     executablePath: CHROMIUM_PATH,

@@ -1,7 +1,7 @@
 // `whence locate RECORDING --array ARRAY.csv`: find each sound in a multichannel recording, measure its time
 // differences by GCC, fix its position with an uncertainty ellipse, and write the survey log (CSV, JSON or GeoJSON).
 import { availableParallelism } from 'node:os';
-import { basename, extname } from 'node:path';
+import { basename } from 'node:path';
 import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
@@ -12,11 +12,11 @@ import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
 import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
 import type { CliIo } from '../io';
-import { chooseSpeed, mediumOptionSpec } from '../mediumOptions';
+import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
+import { chooseSpeed } from '../mediumOptions';
 import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError, type ParsedCommand } from '../parse';
 import { progressLine } from '../progress';
 import { readTextFile } from '../readInput';
-import { parseOrigin } from './solve';
 
 export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
 
@@ -58,22 +58,13 @@ export function parseBand(text: string | undefined): { lowHz: number; highHz: nu
 }
 
 function settingsFromOptions(values: ParsedCommand['values'], speed: { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number }): LocateSettings {
-  const dimensions = Number(oneOf('dims', optionalString(values, 'dims'), ['2', '3'] as const, '2')) as 2 | 3;
-  const confidence = optionalNumber(values, 'confidence', 'a probability such as 0.95') ?? DEFAULT_LOCATE_SETTINGS.confidence;
-  if (!(confidence > 0 && confidence < 1)) throw new UsageError(`--confidence must be between 0 and 1 (e.g. 0.95); got ${confidence}.`);
   const settings: LocateSettings = {
     ...speed,
-    dimensions,
-    confidence,
+    ...fixShapeFromOptions(values, DEFAULT_LOCATE_SETTINGS.confidence),
     weighting: oneOf('weighting', optionalString(values, 'weighting'), weightings, 'phat') as GccWeighting,
   };
   const band = parseBand(optionalString(values, 'band'));
   if (band !== undefined) settings.bandHz = band;
-  const height = optionalNumber(values, 'height', 'metres up');
-  if (height !== undefined) {
-    if (dimensions === 3) throw new UsageError('--height fixes the source height for a 2-D fix; a 3-D fix (--dims 3) finds the height itself.');
-    settings.sourceUpMeters = height;
-  }
   const threshold = optionalNumber(values, 'threshold', 'decibels');
   if (threshold !== undefined) {
     if (!(threshold >= 3 && threshold <= 60)) throw new UsageError(`--threshold must be 3 to 60 dB above the noise floor; got ${threshold}.`);
@@ -98,19 +89,14 @@ function settingsForLog(settings: LocateSettings, values: ParsedCommand['values'
 
 export async function runLocate(argv: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseCommandArgs('locate', argv, {
-    array: { type: 'string' }, 'sound-speed': { type: 'string' }, 'sound-speed-sigma': { type: 'string' }, ...mediumOptionSpec,
-    'temperature-sigma': { type: 'string' }, dims: { type: 'string' }, height: { type: 'string' }, band: { type: 'string' },
-    weighting: { type: 'string' }, threshold: { type: 'string' }, 'min-channels': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' },
-    confidence: { type: 'string' }, origin: { type: 'string' }, workers: { type: 'string' }, json: { type: 'boolean' }, out: { type: 'string' },
+    ...fixOptionSpec, array: { type: 'string' }, band: { type: 'string' }, weighting: { type: 'string' }, threshold: { type: 'string' },
+    'min-channels': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' }, workers: { type: 'string' },
   });
   if (positionals.length !== 1) throw new UsageError(`whence locate takes one recording; got ${positionals.length}. Example: whence locate site.wav --array array.csv`);
   const recordingPath = positionals[0]!;
   const arrayPath = optionalString(values, 'array');
   if (arrayPath === undefined) throw new UsageError('whence locate needs --array ARRAY.csv (the microphones and their channels).');
-  const outPath = optionalString(values, 'out');
-  const outKind = outPath === undefined ? undefined : extname(outPath).toLowerCase();
-  if (outKind !== undefined && !['.csv', '.json', '.geojson'].includes(outKind)) throw new UsageError(`--out must end in .csv, .json or .geojson; got '${outPath}'.`);
-  if (outPath !== undefined && values.json === true) throw new UsageError('give either --json (standard output) or --out FILE, not both.');
+  const { outPath, kind: outputKind } = outputFromOptions(values);
   const speed = chooseSpeed(values);
   const settings = settingsFromOptions(values, speed);
   const origin = parseOrigin(optionalString(values, 'origin'));
@@ -120,7 +106,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
   const toSeconds = optionalNumber(values, 'to', 'seconds');
 
   const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, origin);
-  if (outKind === '.geojson' && geometry.origin === undefined) throw new UsageError('GeoJSON needs WGS84 positions: give the array as lat,lon or set --origin LAT,LON.');
+  const geoJsonOrigin = outputKind === 'geojson' ? requireGeoJsonOrigin(geometry.origin) : undefined;
   const source = await openFileByteSource(recordingPath);
   let pool: LocatePool | undefined;
   try {
@@ -148,13 +134,9 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const records = result.located.map((located) => locatedEventRecord(located, logContext));
     const notes = [...result.warnings, `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
     let text: string;
-    if (outKind === '.geojson') {
-      text = fixesToGeoJson(records, geometry.origin!, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
-    } else if (outKind === '.json' || values.json === true) {
-      text = surveyLogJson(records, logContext, notes);
-    } else {
-      text = surveyLogCsv(records, logContext, notes);
-    }
+    if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
+    else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
+    else text = surveyLogCsv(records, logContext, notes);
     if (outPath !== undefined) await writeFileAtomic(outPath, text);
     else io.writeStdout(text);
     const fixed = records.filter((record) => record.status === 'ok').length;

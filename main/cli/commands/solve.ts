@@ -1,14 +1,13 @@
 // `whence solve`: position fixes from measured time differences (a delay table) and the array, one record per event,
 // with covariance, uncertainty ellipse, residuals and warnings; CSV to stdout, or JSON/GeoJSON.
-import { extname } from 'node:path';
 import { fixesToCsv, fixesToGeoJson, fixesToJson, fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from '../../../core/export';
-import { parseDegrees, type GeodeticPosition } from '../../../core/geo';
 import { solveFix, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
 import { parseArrayCsv, parseDelaysCsv, type ArrayGeometry, type DelayEvent } from '../../../core/project';
 import { writeFileAtomic } from '../../files';
 import type { CliIo } from '../io';
-import { chooseSpeed, mediumOptionSpec } from '../mediumOptions';
-import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError } from '../parse';
+import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
+import { chooseSpeed } from '../mediumOptions';
+import { optionalNumber, optionalString, parseCommandArgs, UsageError } from '../parse';
 import { readTextFile } from '../readInput';
 
 export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [options]
@@ -41,15 +40,6 @@ export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [op
   residual_rms_s, pairs_used, warnings, and more.
 `;
 
-export function parseOrigin(text: string | undefined): GeodeticPosition | undefined {
-  if (text === undefined) return undefined;
-  const parts = text.split(',').map((part) => part.trim());
-  if (parts.length < 2 || parts.length > 3) throw new UsageError(`--origin needs LAT,LON or LAT,LON,ALT in WGS84 degrees and metres; got '${text}'.`);
-  const heightMeters = parts[2] !== undefined ? Number(parts[2]) : 0;
-  if (!Number.isFinite(heightMeters)) throw new UsageError(`--origin altitude must be a number of metres; got '${parts[2]}'.`);
-  return { latitudeDegrees: parseDegrees(parts[0]!), longitudeDegrees: parseDegrees(parts[1]!), heightMeters };
-}
-
 export function solveEvents(geometry: ArrayGeometry, events: readonly DelayEvent[], options: SolveOptions): FixRecord[] {
   const microphones: Microphone[] = geometry.microphones.map((m) => ({ label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: m.surveySigmaMeters }));
   const indexOfChannel = new Map(geometry.microphones.map((m, index) => [m.channel, index]));
@@ -66,31 +56,17 @@ export function solveEvents(geometry: ArrayGeometry, events: readonly DelayEvent
 
 export async function runSolve(argv: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseCommandArgs('solve', argv, {
-    array: { type: 'string' }, delays: { type: 'string' }, 'sound-speed': { type: 'string' }, 'sound-speed-sigma': { type: 'string' },
-    ...mediumOptionSpec, 'temperature-sigma': { type: 'string' }, dims: { type: 'string' }, height: { type: 'string' },
-    confidence: { type: 'string' }, 'timing-sigma': { type: 'string' }, origin: { type: 'string' }, 'monte-carlo': { type: 'string' },
-    seed: { type: 'string' }, json: { type: 'boolean' }, out: { type: 'string' },
+    ...fixOptionSpec, array: { type: 'string' }, delays: { type: 'string' }, 'timing-sigma': { type: 'string' }, 'monte-carlo': { type: 'string' }, seed: { type: 'string' },
   });
   if (positionals.length > 0) throw new UsageError(`whence solve takes its files as --array and --delays; unexpected '${positionals.join(' ')}'.`);
   const arrayPath = optionalString(values, 'array');
   const delaysPath = optionalString(values, 'delays');
   if (arrayPath === undefined || delaysPath === undefined) throw new UsageError('whence solve needs --array ARRAY.csv and --delays DELAYS.csv.');
-  const dimensions = Number(oneOf('dims', optionalString(values, 'dims'), ['2', '3'] as const, '2')) as 2 | 3;
-  const confidence = optionalNumber(values, 'confidence', 'a probability such as 0.95') ?? 0.95;
-  if (!(confidence > 0 && confidence < 1)) throw new UsageError(`--confidence must be between 0 and 1 (e.g. 0.95); got ${confidence}.`);
-  const outPath = optionalString(values, 'out');
-  const outKind = outPath === undefined ? undefined : extname(outPath).toLowerCase();
-  if (outKind !== undefined && !['.csv', '.json', '.geojson'].includes(outKind)) throw new UsageError(`--out must end in .csv, .json or .geojson; got '${outPath}'.`);
-  if (outPath !== undefined && values.json === true) throw new UsageError('give either --json (standard output) or --out FILE, not both.');
-
+  const shape = fixShapeFromOptions(values, 0.95);
+  const output = outputFromOptions(values);
   const origin = parseOrigin(optionalString(values, 'origin'));
   const speed = chooseSpeed(values);
-  const options: SolveOptions = { speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, dimensions, confidence };
-  const height = optionalNumber(values, 'height', 'metres up');
-  if (height !== undefined) {
-    if (dimensions === 3) throw new UsageError('--height fixes the source height for a 2-D fix; a 3-D fix (--dims 3) finds the height itself.');
-    options.sourceUpMeters = height;
-  }
+  const options: SolveOptions = { speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, ...shape };
   const timingSigma = optionalNumber(values, 'timing-sigma', 'seconds');
   if (timingSigma !== undefined) {
     if (!(timingSigma > 0)) throw new UsageError(`--timing-sigma must be positive; got ${timingSigma}.`);
@@ -106,19 +82,13 @@ export async function runSolve(argv: string[], io: CliIo): Promise<number> {
   const events = parseDelaysCsv(await readTextFile(delaysPath, 'delay table'), delaysPath, new Set(geometry.microphones.map((m) => m.channel)));
   for (const warning of [...geometry.warnings, ...speed.warnings]) io.writeStderr(`warning: ${warning}\n`);
   const records = solveEvents(geometry, events, options);
-  const columns = dimensions === 3 ? FIX_COLUMNS_3D : FIX_COLUMNS_2D;
   let text: string;
-  if (outKind === '.geojson') {
-    if (geometry.origin === undefined) throw new UsageError('GeoJSON needs WGS84 positions: give the array as lat,lon or set --origin LAT,LON.');
-    text = fixesToGeoJson(records, geometry.origin, true);
-  } else if (outKind === '.json' || values.json === true) {
-    text = fixesToJson(records);
-  } else {
-    text = fixesToCsv(columns, records);
-  }
-  if (outPath !== undefined) {
-    await writeFileAtomic(outPath, text);
-    io.writeStderr(`wrote ${records.length} fix${records.length === 1 ? '' : 'es'} to ${outPath}\n`);
+  if (output.kind === 'geojson') text = fixesToGeoJson(records, requireGeoJsonOrigin(geometry.origin), true);
+  else if (output.kind === 'json') text = fixesToJson(records);
+  else text = fixesToCsv(shape.dimensions === 3 ? FIX_COLUMNS_3D : FIX_COLUMNS_2D, records);
+  if (output.outPath !== undefined) {
+    await writeFileAtomic(output.outPath, text);
+    io.writeStderr(`wrote ${records.length} fix${records.length === 1 ? '' : 'es'} to ${output.outPath}\n`);
   } else {
     io.writeStdout(text);
   }

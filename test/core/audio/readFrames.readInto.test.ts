@@ -3,6 +3,7 @@ import { memoryByteSource, readFrames, readWavInfo, type ByteSource } from '../.
 import { buildWav } from '../../helpers/wavBuilder';
 
 describe('readFrames() with a source that reads into a caller buffer', () => {
+  // Expected values: the same decoder on a plain in-memory source (self-consistency); the call and buffer counts are this project's reuse contract; no outside reference.
   it('decodes the same samples and reuses one buffer across windows', async () => {
     const samples = [Float64Array.from({ length: 2000 }, (_, i) => Math.sin(i / 7) * 0.5), Float64Array.from({ length: 2000 }, (_, i) => Math.cos(i / 5) * 0.25)];
     const bytes = buildWav({ channelCount: 2, sampleRateHz: 8000, bitsPerSample: 24, samples });

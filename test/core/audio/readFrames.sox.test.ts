@@ -25,6 +25,7 @@ const INTEGER_FIXTURES = [
 ];
 
 describe('readWavInfo() and readFrames() on files written by sox', () => {
+  // Expected values: computed with sox (general-purpose reference decoder, test/fixtures/audio/make-fixtures.sh); tag 3 is IEEE float and 0xFFFE is Microsoft WAVE_FORMAT_EXTENSIBLE, common practice.
   it.each(INTEGER_FIXTURES)('readFrames() decodes $file exactly as sox does', async (expected) => {
     const { info, channels } = await open(`${expected.file}.wav`);
     const { file: _file, ...header } = expected;

@@ -12,6 +12,7 @@ function rampFile(channelCount: number, frames: number): Uint8Array {
 const ramp = (c: number, from: number, to: number) => Array.from({ length: to - from }, (_, k) => Math.fround((1000 * c + from + k) / 32768));
 
 describe('readFrames()', () => {
+  // Expected values: the ramp the test wrote, 16-bit PCM / 2^15 in float32 (Microsoft WAVE PCM, IEEE 754, common practice); byte offsets = frames × block align worked by hand; codes are this project's.
   it('readFrames() returns the frames of a window, one array per channel, in one read of the window bytes', async () => {
     const source = recordingSource(memoryByteSource(rampFile(3, 500), 'ramp.wav'));
     const info = await readWavInfo(source);

@@ -64,6 +64,7 @@ async function expectResultOrWavError(bytes: Uint8Array): Promise<'result' | 'er
 }
 
 describe('readWavInfo() on mutated files', () => {
+  // Expected values: the behaviour this project specifies (a result or a deliberate error, never a crash); PCM samples lie in [-1, 1) (common practice).
   it.each(Object.keys(BASE_FILES))('readWavInfo() survives truncation of %s at every offset', async (key) => {
     const bytes = BASE_FILES[key];
     expect(await expectResultOrWavError(bytes)).toBe('result');

@@ -21,6 +21,7 @@ function eventAndNoise(sampleRateHz: number, shape: SoundShape | null, amplitude
 }
 
 describe('chooseBand()', () => {
+  // Expected values: the bands the synthesis used (invented scenes from test/helpers/detectSignals), widened by the bin width and smoothing; defaults and messages are what this project specifies.
   it('picks about 2-6 kHz for a call sweeping 2.2-5.8 kHz', () => {
     const { event, noise } = eventAndNoise(48000, callShape(), 0.03);
     const band = chooseBand(event, noise, 48000);

@@ -3,6 +3,7 @@ import { defaultDetectionBand } from '../../../core/detect';
 import { resolveDetectorConfig } from '../../../core/detect/config';
 
 describe('resolveDetectorConfig()', () => {
+  // Expected values: the defaults this project specifies (frame, hop, window lengths, 0.45 fs upper edge), converted to hops by hand; no outside reference.
   it.each([
     [1, 1],
     [2, 2],

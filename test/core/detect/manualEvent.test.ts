@@ -3,6 +3,7 @@ import { manualEvent } from '../../../core/detect';
 import { WhenceError } from '../../../core/errors';
 
 describe('manualEvent()', () => {
+  // Expected values: the behaviour this project specifies (window fields, messages, error codes); no outside reference.
   it('makes a window with no onsets, flagged manual', () => {
     expect(manualEvent(12.5, 13.25, 4, 2)).toEqual({
       index: 2,

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createNoiseFloorTracker } from '../../../core/detect/noiseFloor';
 
 describe('createNoiseFloorTracker()', () => {
+  // Expected values: the lower-quantile (order statistic) definition worked by hand and checked against a plain sort, common practice; no outside reference.
   it('is NaN before the first level and the quantile of what it holds before the window is full', () => {
     const tracker = createNoiseFloorTracker(80, 0.2);
     expect(tracker.floorDb).toBeNaN();

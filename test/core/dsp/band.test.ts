@@ -4,7 +4,7 @@ import { WhenceError } from '../../../core/errors';
 
 describe('bandWeights()', () => {
   it('is 1 inside the band, 0 outside, with raised-cosine edges of 10 % of the width inside the band', () => {
-    // definition of the band weights (core/dsp/band.ts): f = k fs / N
+    // definition of the band weights (core/dsp/band.ts): f = k fs / N and a raised-cosine (Hann) taper, common practice
     const { weights, firstBin, lastBin } = bandWeights({ lowHz: 1000, highHz: 3000 }, 8000, 1024);
     const binHz = 8000 / 1024;
     expect(bandEdgeTaperFraction).toBe(0.1);
@@ -24,7 +24,7 @@ describe('bandWeights()', () => {
   it('gives 0 to DC and Nyquist for a full band', () => {
     const { weights } = bandWeights({ lowHz: 0, highHz: 4000 }, 8000, 64);
     expect(weights[0]).toBe(0);
-    expect(weights[32]).toBe(0);
+    expect(weights[32]).toBe(0); // bin N/2 is Nyquist (f = k fs / N), common practice; zero weight there is this project's choice
   });
 
   it('rejects a band outside 0..fs/2 or inverted', () => {

@@ -8,24 +8,14 @@ import {
   type GccOptions,
   type GccWeighting,
 } from '../../../core/dsp';
-import { WhenceError } from '../../../core/errors';
 import { delayedNoisePair, fractionalDelay, reverberantPair, whiteNoise } from '../../helpers/signals';
+import { errorCode } from './errorCode';
 
 const fs = 48_000;
 const wholeBand = { lowHz: 100, highHz: 23_500 };
 
 function options(weighting: GccWeighting, extra: Partial<GccOptions> = {}): GccOptions {
   return { sampleRateHz: fs, weighting, bandHz: wholeBand, maxLagSeconds: 0.002, ...extra };
-}
-
-function errorCode(call: () => unknown): string | undefined {
-  try {
-    call();
-  } catch (error) {
-    if (error instanceof WhenceError) return error.code;
-    throw error;
-  }
-  return undefined;
 }
 
 describe('gccPairDelay() sign convention', () => {

@@ -7,18 +7,8 @@ import {
   type GccWeighting,
   type PairDelay,
 } from '../../../core/dsp';
-import { WhenceError } from '../../../core/errors';
 import { addNoise, delayedNoisePair, fractionalDelay, whiteNoise } from '../../helpers/signals';
-
-function errorCode(call: () => unknown): string | undefined {
-  try {
-    call();
-  } catch (error) {
-    if (error instanceof WhenceError) return error.code;
-    throw error;
-  }
-  return undefined;
-}
+import { errorCode } from './errorCode';
 
 /** Four microphones hearing one source at known fractional arrival offsets (samples), independent noise each. */
 function fourChannels(arrivalSamples: number[], lengthFrames: number, seed: number, snrDb: number): Float64Array[] {

@@ -1,9 +1,9 @@
 // Test helpers for core/geo: proj4 as an independent WGS84 oracle, a seeded spread of positions, error assertions.
-import { expect } from 'vitest';
 import fc from 'fast-check';
 import proj4 from 'proj4';
-import { WhenceError } from '../../../core/errors';
 import type { EcefPosition, GeodeticPosition } from '../../../core/geo';
+
+export { expectWhenceError } from '../../helpers/expectWhenceError';
 
 const proj4Geocentric = proj4('+proj=longlat +datum=WGS84 +no_defs', '+proj=geocent +datum=WGS84 +units=m +no_defs');
 
@@ -43,16 +43,4 @@ export function geodeticSpread(seed: number, count: number): GeodeticPosition[] 
     { seed, numRuns: count },
   );
   return [...fixed, ...random];
-}
-
-export function expectWhenceError(call: () => unknown, code: string, fragments: string[]): void {
-  let caught: unknown;
-  try {
-    call();
-  } catch (error) {
-    caught = error;
-  }
-  expect(caught).toBeInstanceOf(WhenceError);
-  expect((caught as WhenceError).code).toBe(code);
-  for (const fragment of fragments) expect((caught as WhenceError).message).toContain(fragment);
 }

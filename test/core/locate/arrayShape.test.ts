@@ -7,6 +7,7 @@ const C = 343;
 const columns = (points: Point3[]): [number[], number[], number[]] => [points.map((p) => p[0]), points.map((p) => p[1]), points.map((p) => p[2])];
 
 describe('arrayShape()', () => {
+  // Expected values: collinear/coplanar/general by the rank of the centred coordinates (linear algebra, common practice), worked by hand; mirror across the array's line by hand.
   it('classifies general, collinear, coplanar, line and point arrays', () => {
     const shape = (dims: 2 | 3, points: Point3[]): string => arrayShape(dims, ...columns(points), points.map((_, i) => i)).degeneracy;
     expect(shape(2, [[0, 0, 0], [10, 0, 0], [0, 10, 0]])).toBe('general');
@@ -27,6 +28,7 @@ describe('arrayShape()', () => {
 });
 
 describe('solveFix() on degenerate arrays', () => {
+  // Expected values: the source positions and delays the synthesis used (geometry: r/c, common practice); mirror ambiguity of collinear/coplanar arrays is geometry, common practice; status names are this project's.
   it("returns 'insufficient' for two microphones: one delay is a hyperbola, not a fix", () => {
     const points: Point3[] = [[0, 0, 0], [20, 0, 0]];
     const result = solveFix(microphonesAt(points), pairDelays(points, [30, 40, 0], [[0, 1]], C, undefined, 0, false), { speedMetersPerSecond: C, dimensions: 2 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { WhenceError } from '../../../core/errors';
+import { expectWhenceError } from '../../helpers/expectWhenceError';
 import {
   hyperbolaBranch,
   type HyperbolaBounds,
@@ -381,17 +381,7 @@ describe('hyperbolaBranch()', () => {
   });
 
   it('refuses non-finite numbers, a non-positive speed and empty bounds with hyperbola-invalid-input', () => {
-    const expectInvalid = (call: () => unknown, fragment: string): void => {
-      let caught: unknown;
-      try {
-        call();
-      } catch (error) {
-        caught = error;
-      }
-      expect(caught).toBeInstanceOf(WhenceError);
-      expect((caught as WhenceError).code).toBe('hyperbola-invalid-input');
-      expect((caught as WhenceError).message).toContain(fragment);
-    };
+    const expectInvalid = (call: () => unknown, fragment: string): void => expectWhenceError(call, 'hyperbola-invalid-input', [fragment]);
     const options = { bounds: square(10), planeUpMeters: 0 };
     expectInvalid(() => hyperbolaBranch(mic(Number.NaN, 0), mic(1, 0), 0, speed, options), 'micA.eastMeters');
     expectInvalid(() => hyperbolaBranch(mic(0, 0), mic(1, 0), Number.POSITIVE_INFINITY, speed, options), 'delaySeconds');

@@ -18,6 +18,7 @@ function covers(fix: Fix, truth: Point3): boolean {
 }
 
 describe('solveFix() outlier rejection', () => {
+  // Expected values: the positions and delays the synthesis used (geometry: r/c, common practice) with seeded Gaussian noise; the 1 % test level and the chi-square ellipse are the usual significance tests, common practice.
   for (const stated of [true, false]) {
     for (const dims of [2, 3] as const) {
       it(`drops a pair 20 sigma off and names it (${dims}-D, 8 microphones, sigma ${stated ? 'stated' : 'from residuals'}, 20 seeded cases)`, () => {
@@ -97,6 +98,7 @@ describe('solveFix() outlier rejection', () => {
 });
 
 describe('deletionStatistics()', () => {
+  // Expected values: the exact cost drop computed by re-solving without each row (Cook & Weisberg 1982 give the linearised form, from memory).
   it('approximates the exact drop in cost of leaving each row out (Cook & Weisberg 1982, linearised)', () => {
     const rng = makeRng(17);
     const points = randomArray(rng, 6, 3, 40);

@@ -4,6 +4,7 @@ import { crlbCovariance, gdop, precisionMap } from '../../../core/locate';
 import { makeRng, microphonesAt, randomArray } from '../../helpers/geometry';
 
 describe('precisionMap()', () => {
+  // Expected values: crlbCovariance() and gdop() at the same points (self-consistency); no fix on the line of a collinear array is geometry, common practice.
   const mics = microphonesAt(randomArray(makeRng(2024), 8, 3, 60, 10));
   const grid = { eastStartMeters: -150, northStartMeters: 120, eastStepMeters: 7.5, northStepMeters: -6, columns: 40, rows: 30 };
 

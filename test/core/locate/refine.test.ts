@@ -35,6 +35,7 @@ function independentFix(points: Point3[], pairs: [number, number][], delaysSecon
 }
 
 describe('solveFix() against ml-levenberg-marquardt', () => {
+  // Expected values: computed with ml-levenberg-marquardt (general-purpose least-squares library) on the same synthetic delays (geometry: r/c, common practice).
   for (const dims of [2, 3] as const) {
     it(`finds the same weighted least-squares position on seeded noisy cases (${dims}-D, unequal sigmas)`, () => {
       const rng = makeRng(2718 + dims);
@@ -59,6 +60,7 @@ describe('solveFix() against ml-levenberg-marquardt', () => {
 });
 
 describe('refinePosition()', () => {
+  // Expected values: a least-squares minimum never raises the cost and any small move raises it (definition of a minimum, common practice).
   it('converges from a start far off to the cost minimum, and never raises the cost', () => {
     const rng = makeRng(31);
     const points = randomArray(rng, 6, 3, 40);

@@ -22,6 +22,7 @@ function randomSpd(seed: number, n: number): number[][] {
 const flat = (m: number[][]): Float64Array => Float64Array.from(m.flat());
 
 describe('invertSmall()', () => {
+  // Expected values: computed with mathjs (general-purpose linear-algebra library) as oracle; singular examples have dependent rows by construction.
   it('agrees with mathjs inv() on random 2x2 and 3x3 matrices (mathjs as oracle)', () => {
     const rng = makeRng(11);
     for (let trial = 0; trial < 50; trial++) {
@@ -42,6 +43,7 @@ describe('invertSmall()', () => {
 });
 
 describe('choleskySolve() and choleskyInverse()', () => {
+  // Expected values: computed with mathjs inv(); [[1, 2], [2, 1]] has a negative eigenvalue (-1), so no Cholesky factor exists (common practice).
   it('solve symmetric positive definite systems up to 16 x 16 like mathjs', () => {
     for (const n of [1, 2, 3, 5, 9, 16]) {
       const spd = randomSpd(100 + n, n);
@@ -63,6 +65,7 @@ describe('choleskySolve() and choleskyInverse()', () => {
 });
 
 describe('symmetricEigen()', () => {
+  // Expected values: computed with mathjs eigs(); A v = lambda v and orthonormal vectors are the definition (common practice); a diagonal matrix's eigenvalues are its diagonal.
   it('agrees with mathjs eigs() on random symmetric 2x2 and 3x3 matrices, vectors orthonormal', () => {
     for (let seed = 0; seed < 40; seed++) {
       for (const n of [2, 3] as const) {
@@ -100,6 +103,7 @@ describe('symmetricEigen()', () => {
 });
 
 describe('inverseSymmetricClamped() and conditionNumberSymmetric()', () => {
+  // Expected values: computed with mathjs inv() and eigs(); the 2-norm condition number of a symmetric matrix is |lambda_max / lambda_min| (common practice).
   it('equal the plain inverse and the eigenvalue ratio for a well-conditioned matrix', () => {
     const m = randomSpd(5, 3);
     const out = new Float64Array(9);

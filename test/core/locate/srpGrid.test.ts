@@ -3,6 +3,7 @@ import { WhenceError } from '../../../core/errors';
 import { checkSrpGrid, srpGridFromBounds, srpGridIndex, srpGridPointCount, type SrpGrid } from '../../../core/locate/srpGrid';
 
 describe('srpGridFromBounds()', () => {
+  // Expected values: cell centres worked by hand (first = min + step / 2, step = extent / count); error codes are what this project specifies.
   it('puts the points at the centres of equal cells, one plane when up has no extent', () => {
     const grid = srpGridFromBounds(
       { minEastMeters: -10, maxEastMeters: 10, minNorthMeters: 0, maxNorthMeters: 5, minUpMeters: 1.5, maxUpMeters: 1.5 },
@@ -33,6 +34,7 @@ describe('srpGridFromBounds()', () => {
 });
 
 describe('srpGridIndex()', () => {
+  // Expected values: row-major order with east fastest, index = e + nE (n + nN u), worked by hand; the order is this project's choice.
   it('orders points with east fastest, then north, then up', () => {
     const grid: SrpGrid = {
       east: { firstMeters: 0, stepMeters: 1, count: 3 },

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { WhenceError } from '../../../core/errors';
+import { expectWhenceError } from '../../helpers/expectWhenceError';
 import { srpGridFromBounds, srpGridIndex, type SrpGrid } from '../../../core/locate/srpGrid';
 import { createSrpPlan, srpMap, type PairCorrelationFunction, type SrpMicrophone } from '../../../core/locate/srpMap';
 import { srpRefinePeak } from '../../../core/locate/srpRefine';
@@ -273,17 +273,7 @@ describe('srpMap()', () => {
     const plan = createSrpPlan({ microphones: mics, speedMetersPerSecond: speed, grid: planeGrid });
     const map = new Float64Array(plan.pointCount);
     const good = { indexA: 0, indexB: 1, sampleRateHz, values: new Float64Array(9), zeroLagIndex: 4 };
-    const expectInvalid = (call: () => unknown, fragment: string): void => {
-      let caught: unknown;
-      try {
-        call();
-      } catch (error) {
-        caught = error;
-      }
-      expect(caught).toBeInstanceOf(WhenceError);
-      expect((caught as WhenceError).code).toBe('srp-invalid-input');
-      expect((caught as WhenceError).message).toContain(fragment);
-    };
+    const expectInvalid = (call: () => unknown, fragment: string): void => expectWhenceError(call, 'srp-invalid-input', [fragment]);
     expectInvalid(() => srpMap(plan, [{ ...good, indexB: 2 }], map), 'two different indices');
     expectInvalid(() => srpMap(plan, [{ ...good, indexB: 0 }], map), 'two different indices');
     expectInvalid(() => srpMap(plan, [{ ...good, sampleRateHz: 0 }], map), 'sampleRateHz');

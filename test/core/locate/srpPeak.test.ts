@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { WhenceError } from '../../../core/errors';
+import { expectWhenceError } from '../../helpers/expectWhenceError';
 import { srpGridIndex, type SrpGrid } from '../../../core/locate/srpGrid';
 import { srpPeak } from '../../../core/locate/srpPeak';
 
@@ -88,15 +88,7 @@ describe('srpPeak()', () => {
       [new Float64Array(4), 'at least 5 values'],
       [new Float64Array(5).fill(Number.NaN), 'no finite value'],
     ] as const) {
-      let caught: unknown;
-      try {
-        srpPeak(grid, map);
-      } catch (error) {
-        caught = error;
-      }
-      expect(caught).toBeInstanceOf(WhenceError);
-      expect((caught as WhenceError).code).toBe('srp-invalid-input');
-      expect((caught as WhenceError).message).toContain(fragment);
+      expectWhenceError(() => srpPeak(grid, map), 'srp-invalid-input', [fragment]);
     }
   });
 });

@@ -17,6 +17,7 @@ function expectInvalid(mics: Microphone[], delays: DelayMeasurement[], options: 
 }
 
 describe('solveFix() input checks', () => {
+  // Expected values: the behaviour this project specifies (field names in messages, status); no outside reference.
   it('accepts the unmodified input', () => {
     const { mics, delays, options } = good();
     expect(solveFix(mics, delays, options).status).toBe('ok');

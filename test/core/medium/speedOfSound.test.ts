@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { WhenceError } from '../../../core/errors';
+import { expectWhenceError } from '../../helpers/expectWhenceError';
 import { MEDIUM_DEFAULTS, speedOfSound, type MediumSpec } from '../../../core/medium';
 import { expectOutOfRange } from './testHelpers';
 
@@ -52,15 +52,7 @@ describe('speedOfSound()', () => {
     const badMedium = { medium: 'helium', temperatureCelsius: 20 } as unknown as MediumSpec;
     const badModel = { medium: 'air', temperatureCelsius: 20, model: 'stokes' } as unknown as MediumSpec;
     for (const [spec, fragment] of [[badMedium, 'helium'], [badModel, 'stokes']] as const) {
-      let caught: unknown;
-      try {
-        speedOfSound(spec);
-      } catch (error) {
-        caught = error;
-      }
-      expect(caught).toBeInstanceOf(WhenceError);
-      expect((caught as WhenceError).code).toBe('medium-unknown');
-      expect((caught as WhenceError).message).toContain(fragment);
+      expectWhenceError(() => speedOfSound(spec), 'medium-unknown', [fragment]);
     }
   });
 });

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { detailEnvelope } from '../../../core/overview';
 
 describe('detailEnvelope()', () => {
+  // Expected values: min/max of a ramp worked by hand (frame n holds value n); NaN outside the data is what this project specifies.
   it('gives each column the exact min/max of the frames it covers, and shows a frame in columns narrower than a frame', () => {
     const ramp = Float32Array.from({ length: 100 }, (_, i) => i);
     // frames 10..30 (firstFrame 0) at 1 Hz over 4 columns of 5 frames: [10,15) [15,20) [20,25) [25,30)

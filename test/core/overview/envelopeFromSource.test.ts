@@ -12,6 +12,7 @@ async function floatRecording(channelCount: number, frameCount: number, seed: nu
 }
 
 describe('envelopeFromSource()', () => {
+  // Expected values: the same envelope builder fed the samples whole (self-consistency); block count ceil(30001 / 4096) = 8 worked by hand; codes are this project's.
   it('reads the recording block by block into the same pyramid as the samples pushed whole', async () => {
     const { channels, source, info } = await floatRecording(3, 30_001, 8);
     const progress: number[] = [];

@@ -14,6 +14,7 @@ async function recording() {
 }
 
 describe('spectrogramFromSource()', () => {
+  // Expected values: computeSpectrogram() and detailEnvelope() on the same samples in memory (self-consistency); no outside reference.
   const request = { startSeconds: 0.5, endSeconds: 2.5, widthPixels: 120, heightPixels: 100 };
 
   it('matches the in-memory spectrogram whether the span is read whole or one window per column', async () => {

@@ -34,6 +34,7 @@ function codeOf(action: () => unknown): string {
 }
 
 describe('PROJECT_MIGRATION_REGISTRY', () => {
+  // Expected values: the behaviour this project specifies (schema versions, step order, error codes, messages); no outside reference.
   it('is complete for the current version (1, with no steps yet)', () => {
     expect(CURRENT_PROJECT_SCHEMA_VERSION).toBe(1);
     expect(PROJECT_MIGRATION_REGISTRY.currentVersion).toBe(CURRENT_PROJECT_SCHEMA_VERSION);

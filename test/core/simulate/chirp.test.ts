@@ -11,6 +11,7 @@ function frequencyNear(source: ChirpSource, tau: number): number {
 }
 
 describe('chirp waveform', () => {
+  // Expected values: instantaneous frequency of linear and exponential sweeps, common practice; the taper and unit peak are the values the synthesis used.
   it('a linear chirp is at the arithmetic mean frequency halfway', () => {
     // f(t) = f0 + (f1 - f0) t / D: 4250 Hz at t = D / 2
     expect(frequencyNear(CHIRP, 0.5)).toBeCloseTo(4250, -1);

@@ -5,6 +5,7 @@ import { upwardZeroCrossings } from './simulateHelpers';
 const KNOCK: KnockSource = { id: 'k', kind: 'knock', eastMeters: 0, northMeters: 0, upMeters: 0, emissionTimeSeconds: 0, levelDb: 0, frequencyHz: 200, decaySeconds: 0.03, overtoneLevelDb: -200 };
 
 describe('knock waveform', () => {
+  // Expected values: a damped sinusoid sin(2 pi f t) e^(-t / decay), common practice; -80 dB = 1e-4 in amplitude (20 log10), common practice; attack and end are what the synthesis used.
   it('a knock oscillates at frequencyHz and decays by e^-1 per decaySeconds', () => {
     const waveform = sourceWaveform(KNOCK, 48000);
     const crossings = upwardZeroCrossings((t) => waveform.valueAt(t), 0.003, 0.05, 1e-5);

@@ -7,6 +7,7 @@ import { encodeWavFile, memoryByteSource, readWavInfo, type ByteSource, type Wav
 import { correlationPlots, envelopeFromSource, spectrogramFromSource, type EnvelopePyramid } from '../../../core/overview';
 import { CorrelationsView } from '../../../renderer/correlations';
 import { RecordingView } from '../../../renderer/recording';
+import { mulberry32 } from '../../helpers/signals';
 import '../../../renderer/styles.css';
 
 const params = new URLSearchParams(window.location.search);
@@ -41,20 +42,8 @@ const sourceEvents: SourceEvent[] = [
   { kind: 'hoot', emitSeconds: 35.6, east: 5, north: 5, level: 1.2, status: 'insufficient' },
 ];
 
-/** mulberry32, seeded. */
-function random(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 function gaussian(seed: number): () => number {
-  const uniform = random(seed);
+  const uniform = mulberry32(seed);
   return () => Math.sqrt(-2 * Math.log(Math.max(1e-300, uniform()))) * Math.cos(2 * Math.PI * uniform());
 }
 

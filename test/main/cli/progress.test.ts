@@ -8,6 +8,7 @@ function fakeIo(terminal: boolean): CliIo & { stderr: string } {
 }
 
 describe('progressLine()', () => {
+  // Expected values: the behaviour this project specifies (bar layout, wording); time left = elapsed (1 - f) / f worked by hand.
   it('draws a bar with events found and time left on a terminal', () => {
     const io = fakeIo(true);
     let nowMilliseconds = 0;

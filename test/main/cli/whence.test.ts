@@ -4,6 +4,7 @@ import { runCliBinary, runCliInProcess } from '../../helpers/cli';
 import { WHENCE_VERSION } from '../../../core/version';
 
 describe('whence command line', () => {
+  // Expected values: the behaviour this project specifies (help text, messages); exit status 2 for usage errors is common practice.
   it('main() lists every command in its help and exits 0 for `help`', async () => {
     const run = await runCliInProcess(['help']);
     expect(run.exitCode).toBe(0);

@@ -5,6 +5,7 @@ import { appPaths, PACKAGED_DEMO_FOLDER_NAME } from '../../../main/electron/appP
 import { isAllowedPageUrl, isAllowedRequestUrl } from '../../../main/electron/security';
 
 describe('appPaths()', () => {
+  // Expected values: the folder layout this project specifies (package.json, scripts/build.mjs); file URLs percent-encode spaces (RFC 8089 / RFC 3986, common practice).
   it('finds the page beside dist/main and the demo in the source tree during development', () => {
     const paths = appPaths({ bundleFolder: '/repo/dist/main', isPackaged: false, resourcesPath: '/unused', appPath: '/repo' });
     expect(paths.rendererIndexPath).toBe('/repo/dist-web/index.html');

@@ -22,6 +22,7 @@ const config = yaml.load(readFileSync(join(root, 'electron-builder.yml'), 'utf8'
 const quietLogger = { isEnabled: false, add: () => undefined };
 
 describe('electron-builder.yml', () => {
+  // Expected values: electron-builder's own schema (app-builder-lib validateConfiguration) and the layout this project specifies.
   it("matches electron-builder's own configuration schema (app-builder-lib scheme.json)", async () => {
     await expect(validateConfiguration(config, quietLogger)).resolves.toBeUndefined();
   });

@@ -22,6 +22,7 @@ const info = { appVersion: '0.1.0', platform: 'linux' };
 const webUtils = { getPathForFile: (file: never) => (file as { path: string }).path };
 
 describe('createHostApi()', () => {
+  // Expected values: the IPC contract this project specifies (core/contract); exposing no generic send follows the Electron security checklist, common practice.
   it('exposes exactly the contract: one method per message and no generic send', () => {
     const api = createHostApi(fakeIpcRenderer().ipc, webUtils, info);
     const expected = [...Object.keys(IPC_CHANNELS), 'kind', 'appVersion', 'platform', 'getPathForFile', 'onMenuCommand'].sort();

@@ -16,6 +16,7 @@ function setUp() {
 }
 
 describe('registerIpcHandlers()', () => {
+  // Expected values: the IPC contract this project specifies; checking the sender of every message follows the Electron security checklist, common practice.
   it('registers exactly one handler per host request channel', () => {
     const { registry } = setUp();
     expect(registry.registrations.sort()).toEqual(Object.values(IPC_CHANNELS).sort());

@@ -22,6 +22,7 @@ function commands(spec: readonly MenuItemSpec[]): MenuCommand[] {
 }
 
 describe('applicationMenuSpec()', () => {
+  // Expected values: the menu this project specifies; Ctrl/Cmd+O, Ctrl/Cmd+S, Ctrl/Cmd+Shift+S and the macOS app menu are desktop conventions, common practice.
   it('gives File its shortcuts: Open recording Ctrl/Cmd+O and Save Ctrl/Cmd+S', () => {
     const spec = applicationMenuSpec(options('linux'));
     expect(find(spec, 'Open recording…')).toMatchObject({ accelerator: 'CmdOrCtrl+O', command: { command: 'open-recording' } });
@@ -77,6 +78,7 @@ describe('applicationMenuSpec()', () => {
 });
 
 describe('toElectronTemplate()', () => {
+  // Expected values: the behaviour this project specifies (labels, roles, shortcuts carried over); no outside reference.
   it('turns each command into a click that sends it, keeping labels, roles and shortcuts', () => {
     const sent: MenuCommand[] = [];
     const template = toElectronTemplate(applicationMenuSpec(options('linux')), (command) => sent.push(command));

@@ -3,6 +3,7 @@ import { checkUserPath } from '../../../main/electron/pathPolicy';
 import { safeFileName } from '../../../main/electron/dialogs';
 
 describe('checkUserPath()', () => {
+  // Expected values: the behaviour this project specifies (accepted extensions, messages, codes); no outside reference.
   it('accepts absolute paths of the kinds Whence reads, whatever the letter case', () => {
     expect(checkUserPath('/data/night3/HEDGE_0003.WAV', 'recording')).toBe('/data/night3/HEDGE_0003.WAV');
     expect(checkUserPath('/data/long.rf64', 'recording')).toBe('/data/long.rf64');
@@ -21,6 +22,7 @@ describe('checkUserPath()', () => {
 });
 
 describe('safeFileName()', () => {
+  // Expected values: characters reserved in file names on desktop systems (: / and control characters), common practice; the 120-character cap is this project's choice.
   it('replaces characters no desktop system allows and falls back when nothing is left', () => {
     expect(safeFileName('Pond: night 3/4', 'Untitled')).toBe('Pond- night 3-4');
     expect(safeFileName('a\u0001b', 'x')).toBe('a-b');

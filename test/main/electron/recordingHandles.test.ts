@@ -18,6 +18,7 @@ function fakeOpener() {
 }
 
 describe('createRecordingHandles()', () => {
+  // Expected values: the bytes of the sox-made fixture read directly from disk; a WAV file starts with 'RIFF' (Microsoft RIFF/WAVE, common practice); limits and codes are this project's.
   it('opens a recording on disk and reads any window of it', async () => {
     const handles = createRecordingHandles({ newHandleId: () => 'recording-a' });
     const handle = await handles.open(wavPath);

@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { writeFileAtomic } from '../../../main/files';
 
 describe('writeFileAtomic()', () => {
+  // Expected values: the behaviour this project specifies (write-then-rename leaves no temporary file; codes, messages); no outside reference.
   it('replaces the file and leaves no temporary file behind', async () => {
     const folder = mkdtempSync(join(tmpdir(), 'whence-atomic-'));
     const target = join(folder, 'log.csv');

@@ -24,6 +24,7 @@ async function openError(path: string): Promise<unknown> {
 }
 
 describe('openFileByteSource()', () => {
+  // Expected values: the bytes written to disk by the test itself; messages and codes are what this project specifies.
   it('openFileByteSource() reads any range at its offset, clipped at the end of the file', async () => {
     const source = await openFileByteSource(join(folder, 'pattern.bin'));
     try {
@@ -55,6 +56,7 @@ describe('openFileByteSource()', () => {
     try {
       const info = await readWavInfo(source);
       const out = await readFrames(source, info, 1, 2);
+      // 16-bit PCM scaled by 1/32768 (Microsoft WAVE PCM, common practice), rounded to float32 (IEEE 754)
       expect(Array.from(out[1])).toEqual([-2 / 32768, -3 / 32768].map(Math.fround));
     } finally {
       await source.close();

@@ -11,6 +11,7 @@ const tempFolder = (): string => mkdtempSync(join(tmpdir(), 'whence-project-'));
 const runsAsRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 
 describe('saveProjectFile()', () => {
+  // Expected values: the behaviour this project specifies (file names, backups, codes, messages); no outside reference.
   it('writes a project that loadProjectFile() reads back, and leaves no temporary file', async () => {
     const folder = tempFolder();
     const path = join(folder, 'survey.whence');

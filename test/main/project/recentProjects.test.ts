@@ -16,6 +16,7 @@ function setUp(existing: (path: string) => boolean = () => true) {
 }
 
 describe('createRecentProjectsStore()', () => {
+  // Expected values: the behaviour this project specifies (order, limit, pruning); no outside reference.
   it('puts the newest first, once, named after the file', async () => {
     const { store } = setUp();
     await store.add('/s/pond.whence');

@@ -9,6 +9,7 @@ const clock = () => new Date('2024-05-14T22:10:00.000Z');
 const recoveryFolder = (): string => join(mkdtempSync(join(tmpdir(), 'whence-userdata-')), 'recovery');
 
 describe('createRecoveryStore()', () => {
+  // Expected values: the behaviour this project specifies (what is kept and discarded, when); no outside reference.
   it('gives back the unsaved document once, with when it was kept and where it was saved before', async () => {
     const folder = recoveryFolder();
     const store = createRecoveryStore(folder, clock);

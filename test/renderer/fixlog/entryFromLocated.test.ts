@@ -4,6 +4,7 @@ import { fixLogEntryFromLocated, minPeakRatio } from '../../../renderer/fixlog/e
 import { locatedEvent, squareArray, startTime } from './locatedFixtures';
 
 describe('fixLogEntryFromLocated()', () => {
+  // Expected values: the fixes of invented events (./locatedFixtures, delays from geometry r/c, common practice) copied through; the entry layout is this project's schema.
   it('fixLogEntryFromLocated() keeps the fix, its clock time and the warnings in an entry the project schema accepts', () => {
     const event = locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2);
     const entry = fixLogEntryFromLocated(event, { id: 'a', recordingStartTime: startTime, sampleRateHz: 48_000, label: 'wren' });
@@ -30,6 +31,7 @@ describe('fixLogEntryFromLocated()', () => {
 });
 
 describe('minPeakRatio()', () => {
+  // Expected values: the definition this project specifies (smallest ratio over pairs); no outside reference.
   it('minPeakRatio() is the smallest peak-to-second ratio of the pairs', () => {
     const event = locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2);
     expect(minPeakRatio(event)).toBe(Math.min(...event.pairs.map((p) => p.peakToSecondRatio)));

@@ -15,6 +15,7 @@ const events2d = [locatedEvent(squareArray, [100, 150, 1.5], 0, 2, 1), locatedEv
 const events3d = [locatedEvent(tallArray, [20, 30, 4], 0, 3, 4), locatedEvent(tallArray, [35, 10, 2], 1, 3, 5)];
 
 describe('fixLogToRecords()', () => {
+  // Expected values: locatedEventRecord() from core/export on the same invented events (self-consistency with the command line's log).
   it('fixLogToRecords() writes exactly the command line\'s record when the located event is at hand (plus label and note)', () => {
     const context: FixLogContext = { ...surveyContext(squareArray, 2, true), located: new Map(events2d.map((event, i) => [`fix-${i + 1}`, event])) };
     const entries = entriesOf(events2d).map((entry, i) => (i === 1 ? { ...entry, label: ' wren ', note: 'song start' } : entry));
@@ -62,6 +63,7 @@ describe('fixLogToRecords()', () => {
 });
 
 describe('fixLogExportText()', () => {
+  // Expected values: the log layout this project specifies, read back with core/csv (RFC 4180); GeoJSON FeatureCollection (RFC 7946); messages are this project's.
   const entries = entriesOf(events2d).map((entry, i) => ({ ...entry, accepted: i !== 1, label: i === 2 ? 'dog?' : '', note: i === 2 ? 'far away' : '' }));
 
   it('fixLogExportText() writes only the accepted fixes as the survey-log CSV with the columns of whence locate', () => {

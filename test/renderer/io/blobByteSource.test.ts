@@ -6,6 +6,7 @@ import { buildWav } from '../../helpers/wavBuilder';
 const bytes = Uint8Array.from({ length: 5000 }, (_, i) => (i * 13) & 0xff);
 
 describe('blobByteSource()', () => {
+  // Expected values: the bytes the test wrote; 24-bit PCM scaled by 1/8388608 (Microsoft WAVE PCM, common practice), rounded to float32 (IEEE 754).
   it('blobByteSource() reads any range of a Blob, clipped at its end', async () => {
     const source = blobByteSource(new Blob([bytes]), 'drop.wav');
     expect(source.sizeBytes).toBe(5000);

@@ -10,6 +10,7 @@ describe('colour scale helpers', () => {
   });
 
   it('makeColourScale() hits its stops exactly at their positions', () => {
+    // Expected values: the stops the test gives (8-bit sRGB hex, 102/255 = 0.4); interpolation between stops is this project's choice.
     const scale = makeColourScale([{ at: 0, hex: '#102030' }, { at: 0.4, hex: '#808080' }, { at: 1, hex: '#f0e0d0' }]);
     expect(colourAt(scale, 0)).toBe('#102030');
     expect(colourAt(scale, 1)).toBe('#f0e0d0');

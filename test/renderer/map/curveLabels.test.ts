@@ -4,6 +4,7 @@ import { curveEntryPoint, placeCurveLabels } from '../../../renderer/map/curveLa
 const box = { minX: 20, maxX: 380, minY: 20, maxY: 280 };
 
 describe('curveEntryPoint()', () => {
+  // Expected values: line/box intersections worked by hand (geometry, common practice).
   it('curveEntryPoint() finds where a segment crosses into the inner box, not the next vertex', () => {
     // A straight line from below the view up to its middle, sampled only at its ends (as along an asymptote).
     const flat = [100, 310, 100, 150];
@@ -20,6 +21,7 @@ describe('curveEntryPoint()', () => {
 });
 
 describe('placeCurveLabels()', () => {
+  // Expected values: the layout this project specifies (text metrics, offsets, priorities); no outside reference.
   const options = { widthPixels: 400, heightPixels: 300, insetPixels: 20 };
 
   it('placeCurveLabels() gives the better curve the first place and moves a clashing label to the other end', () => {

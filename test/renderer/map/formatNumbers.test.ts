@@ -12,6 +12,7 @@ describe('formatLength()', () => {
   });
 
   it('formatLength() shows grid values at the precision of the step, with a true minus sign', () => {
+    // U+2212 minus sign in typeset numbers, common practice; the precision rule is this project's.
     expect(formatLength(1500, 500)).toBe('1500 m');
     expect(formatLength(-40, 20)).toBe('−40 m');
     expect(formatLength(0.6000000000000001, 0.2)).toBe('0.6 m');
@@ -20,6 +21,7 @@ describe('formatLength()', () => {
   });
 
   it('decimalsForStep() counts the decimals a step needs', () => {
+    // worked by hand: decimals of the step written in shortest form
     expect([10, 1, 0.5, 0.2, 0.1, 0.05, 0.001].map(decimalsForStep)).toEqual([0, 0, 1, 1, 1, 2, 3]);
   });
 

@@ -22,6 +22,7 @@ function delay(a: MapMicrophone, b: MapMicrophone): number {
 }
 
 describe('hyperbolaShapes()', () => {
+  // Expected values: the source position the synthesis used (invented scene) and its delays (geometry: r/c, common practice); a hyperbola branch is |p−a| − |p−b| = c·τ (definition of TDOA); core hyperbolaBranch() for the point-for-point check; notes are this project's wording.
   it('hyperbolaShapes() maps core hyperbolaBranch() points to pixels through the scale, point for point', () => {
     const pairs = [
       { indexA: 0, indexB: 1, delaySeconds: delay(mics[0], mics[1]), quality: 0.9 },

@@ -15,6 +15,7 @@ const fix = (eastMeters: number, northMeters: number, extra: Partial<MapFix> = {
 });
 
 describe('contentBounds()', () => {
+  // Expected values: bounding boxes worked by hand from the points given; the rule for large ellipses is this project's choice.
   it('contentBounds() covers the microphones, the fixes and their other solutions', () => {
     const bounds = contentBounds([mic(0, 0), mic(40, 10)], [fix(20, 60, { alternative: { eastMeters: -15, northMeters: 5 } })]);
     expect(bounds).toEqual({ minEastMeters: -15, maxEastMeters: 40, minNorthMeters: 0, maxNorthMeters: 60 });

@@ -3,6 +3,7 @@ import { MapScale } from '../../../renderer/map/mapScale';
 import { microphoneMarkers } from '../../../renderer/map/microphoneMarkers';
 
 describe('microphoneMarkers()', () => {
+  // Expected values: pixel = centre + (east - centreEast) / (m per px), y flipped (screen y down), worked by hand; title layout is this project's.
   it('microphoneMarkers() places each microphone through the scale with its label, channel and a title', () => {
     const scale = MapScale.create({ centerEastMeters: 10, centerNorthMeters: 10, metersPerPixel: 0.5, widthPixels: 400, heightPixels: 300 });
     const markers = microphoneMarkers(
@@ -19,6 +20,7 @@ describe('microphoneMarkers()', () => {
 });
 
 describe('microphoneMarkers() with unusable positions', () => {
+  // Expected values: the same scale worked by hand; leaving out non-finite positions is this project's choice.
   it('microphoneMarkers() leaves out a microphone without a finite position and keeps the others’ indices', () => {
     const scale = MapScale.create({ centerEastMeters: 0, centerNorthMeters: 0, metersPerPixel: 1, widthPixels: 100, heightPixels: 100 });
     const markers = microphoneMarkers(

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { northArrow } from '../../../renderer/map/northArrow';
 
 describe('northArrow()', () => {
+  // Expected values: the layout this project specifies; screen y grows downward (SVG/canvas coordinates, common practice).
   it('northArrow() points straight up on a north-up map (screen y grows downward)', () => {
     const arrow = northArrow(40);
     const [tipX, tipY] = arrow.headPoints;

@@ -23,6 +23,7 @@ function luminanceOf(rgba: number[]): number {
 }
 
 describe('overlayRaster()', () => {
+  // Expected values: the layout this project specifies (north row first, cells centred on grid points, legend titles, clipping ratio), worked by hand; log-scale midpoint of 0.1 and 10 is 1 (common practice); core precisionMap() for the last check.
   it('overlayRaster() makes one RGBA pixel per grid point, north row first, west column first', () => {
     // 3 east × 2 north; values east fastest: row j = 0 is the southern row (north −4 m), j = 1 the northern (−3 m).
     const raster = overlayRaster(overlay('srp', [0, 1, 2, 3, 4, 5], 3, 2));

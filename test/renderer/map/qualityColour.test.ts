@@ -3,6 +3,7 @@ import { relativeLuminance } from '../../../renderer/map/colourScale';
 import { qualityColour, qualityStrokePixels, qualityWord, QUALITY_SCALE } from '../../../renderer/map/qualityColour';
 
 describe('qualityColour()', () => {
+  // Expected values: a sequential scale is monotone in luminance (cartographic colour practice, common practice); luminance per IEC 61966-2-1; words and widths are this project's.
   it('qualityColour() darkens steadily from poor to excellent (a sequential scale)', () => {
     let previous = Infinity;
     for (let k = 0; k <= 100; k += 1) {

@@ -12,6 +12,7 @@ const microphones: ArrayMicrophone[] = [
 ];
 
 describe('arrayCsvText()', () => {
+  // Expected values: round trips through core/csv (RFC 4180) and parseArrayCsv of the invented positions given; column names are this project's array format.
   it('arrayCsvText() writes the local columns of whence locate --array, read back unchanged by parseArrayCsv', () => {
     const text = arrayCsvText(microphones, 'local', undefined);
     expect(readCsv(text, 'a.csv').header).toEqual(['channel', 'label', 'x_m', 'y_m', 'z_m', 'sigma_m']);
@@ -33,6 +34,7 @@ describe('arrayCsvText()', () => {
 });
 
 describe('importArrayText()', () => {
+  // Expected values: the behaviour this project specifies (origin comment, centroid origin, messages); the centroid has zero mean east by definition.
   it('importArrayText() reads back the origin written as a comment, so a local table keeps its georeference', () => {
     const result = importArrayText(arrayCsvText(microphones, 'local', origin), 'a.csv', undefined);
     expect(result.ok).toBe(true);

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { originTextFrom, parseOriginText } from '../../../renderer/microphones/originText';
 
 describe('parseOriginText()', () => {
+  // Expected values: sexagesimal degrees and S/W as negative (common practice); the digits are those of the IOGP Guidance Note 7-2 example point (longitude moved to W); messages are this project's.
   it('parseOriginText() reads all-blank fields as no origin', () => {
     expect(parseOriginText({ lat: ' ', lon: '', alt: '' })).toEqual({ kind: 'blank' });
   });

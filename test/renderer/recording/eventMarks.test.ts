@@ -3,6 +3,7 @@ import { eventAt, eventMarks, eventTone, smallestMarkPixels } from '../../../ren
 import { timeScale } from '../../../renderer/recording/timeScale';
 
 describe('eventMarks()', () => {
+  // Expected values: pixels = (t − start) / (s per px) worked by hand; minimum width, tones and click rule are what this project specifies.
   const scale = timeScale({ startSeconds: 10, endSeconds: 20 }, 1000);
   const events = [
     { index: 1, startSeconds: 2, endSeconds: 3, selected: false },

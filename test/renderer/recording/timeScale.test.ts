@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { clampSpan, panSpan, spanAround, timeScale, zoomSpan } from '../../../renderer/recording/timeScale';
 
 describe('timeScale()', () => {
+  // Expected values: linear time-to-pixel mapping worked by hand; zoom about the pointer and clamping are what this project specifies.
   it('maps seconds to pixels and back', () => {
     const scale = timeScale({ startSeconds: 10, endSeconds: 20 }, 1000);
     expect(scale.secondsPerPixel).toBe(0.01);

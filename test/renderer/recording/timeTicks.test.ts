@@ -3,6 +3,7 @@ import { timeScale } from '../../../renderer/recording/timeScale';
 import { decimalsForStep, formatOffset, formatSpan, formatWallClock, parseStartTime, timeLabelStyle, timeTicks } from '../../../renderer/recording/timeTicks';
 
 describe('formatOffset()', () => {
+  // Expected values: sexagesimal time h:mm:ss (ISO 8601 style, common practice) worked by hand; tick spacing and label styles are what this project specifies.
   it('writes s for short recordings, m:ss under an hour and h:mm:ss beyond', () => {
     expect(timeLabelStyle(45)).toBe('seconds');
     expect(timeLabelStyle(600)).toBe('minutes');
