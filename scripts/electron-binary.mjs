@@ -25,7 +25,7 @@ export function electronBinaryPath() {
 export function firstReason(text) {
   const line = String(text ?? '')
     .split('\n')
-    .map((entry) => entry.replace(/[\u0000-\u001f\u007f]/g, ' ').trim())
+    .map((entry) => Array.from(entry, (char) => (char.charCodeAt(0) < 0x20 || char.charCodeAt(0) === 0x7f ? ' ' : char)).join('').trim())
     .find((entry) => entry.length > 0 && !entry.startsWith('at '));
   if (line === undefined) return 'no reason given';
   return line.length > 120 ? `${line.slice(0, 117)}...` : line;
