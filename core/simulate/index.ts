@@ -1,8 +1,8 @@
 // Synthesized multichannel field recordings: known sounds at known places heard by a microphone array, with noise, wind,
-// hum and a ground reflection; any window rendered on demand, bit-identical however split; and the ground truth.
+// hum, a ground reflection or a room's image sources; any window rendered on demand, bit-identical however split; and the ground truth.
 export type {
   SceneSpec, SceneMicrophone, SceneSource, SceneSourceKind, FmCallSource, ClickSource, KnockSource, ChirpSource,
-  SceneBackground, SceneWind, SceneHum,
+  SceneBackground, SceneWind, SceneHum, SceneRoom, SceneWall,
 } from './sceneTypes';
 export { SceneSpecError } from './sceneSpecError';
 export { validateScene, MAX_TONE_FRACTION_OF_RATE, MIN_SOURCE_DISTANCE_METERS } from './validateScene';
@@ -13,3 +13,5 @@ export { sourceWaveform } from './sourceWaveform';
 export type { SourceWaveform } from './waveform';
 export { soundPaths, DEFAULT_REFLECTION_COEFFICIENT, type SoundPath } from './propagation';
 export { NOISE_TILE_FRAMES } from './noiseTiles';
+export { imageSourcePaths, eyringRt60Seconds, shoeboxRoom, roomAcoustics, MAX_IMAGES_PER_PATH, MAX_IMAGE_ORDER, DEFAULT_MAX_IMAGE_ORDER, type ImagePath, type ShoeboxOptions } from './imageSources';
+export { diffuseTailTaps, MAX_TAIL_TAPS, type TailTaps } from './diffuseTail';

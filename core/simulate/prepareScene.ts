@@ -1,6 +1,8 @@
 // Builds a scene once for rendering many windows: checks it, designs the noise filters, tabulates hums and lists every
 // source-to-microphone path with its delay (r / c), gain (level at 1 m times 1 / r) and the frames it can touch.
+import { diffuseTailTaps } from './diffuseTail';
 import { HumRenderer, planeWaveDelaysSeconds } from './hum';
+import { eyringRt60Seconds, roomAcoustics } from './imageSources';
 import { dbToAmplitude } from './levels';
 import { NoiseTiles } from './noiseTiles';
 import { soundPaths } from './propagation';
@@ -24,6 +26,17 @@ export interface RenderPath {
   endFrame: number;
 }
 
+/** One source's diffuse tail at one microphone: copies of its waveform at emission + delay, times gain. */
+export interface RenderTail {
+  channelIndex: number;
+  waveform: SourceWaveform;
+  emissionTimeSeconds: number;
+  delaysSeconds: Float64Array;
+  gains: Float64Array;
+  firstFrame: number;
+  endFrame: number;
+}
+
 /** Frames in the scene's recording: round(durationSeconds * sampleRateHz). */
 export function sceneFrameCount(spec: Pick<SceneSpec, 'durationSeconds' | 'sampleRateHz'>): number {
   return Math.round(spec.durationSeconds * spec.sampleRateHz);
@@ -39,6 +52,7 @@ export class PreparedScene {
   readonly noise: NoiseTiles | undefined;
   readonly hums: readonly HumRenderer[];
   readonly paths: readonly RenderPath[];
+  readonly tails: readonly RenderTail[];
 
   constructor(spec: SceneSpec) {
     validateScene(spec);
@@ -53,6 +67,10 @@ export class PreparedScene {
     const channelIndexes = scene.microphones.map((m) => m.channel - 1);
     this.hums = (scene.interference ?? []).map((hum, index) => new HumRenderer(hum, index, seed, rate, planeWaveDelaysSeconds(hum, scene.microphones, scene.speedMetersPerSecond), channelIndexes));
     const paths: RenderPath[] = [];
+    const tails: RenderTail[] = [];
+    const room = scene.room;
+    const acoustics = room?.diffuseTail === true ? roomAcoustics(room) : undefined;
+    const rt60Seconds = room !== undefined && acoustics !== undefined ? eyringRt60Seconds(room, scene.speedMetersPerSecond) ?? 0 : 0;
     scene.sources.forEach((source, sourceIndex) => {
       const waveform = sourceWaveform(source, rate);
       const level = dbToAmplitude(source.levelDb);
@@ -64,9 +82,21 @@ export class PreparedScene {
           if (firstFrame >= endFrame) continue;
           paths.push({ sourceIndex, channelIndex: mic.channel - 1, waveform, offsetSeconds, gain: level * path.relativeAmplitude, firstFrame, endFrame });
         }
+        if (acoustics !== undefined && rt60Seconds > 0 && Number.isFinite(rt60Seconds)) {
+          const taps = diffuseTailTaps({
+            seed, sourceIndex, channelIndex: mic.channel - 1, volumeCubicMeters: acoustics.volumeCubicMeters, rt60Seconds, speedMetersPerSecond: scene.speedMetersPerSecond,
+            startSeconds: room!.maxDelaySeconds!, waveformSeconds: waveform.endSeconds - waveform.startSeconds,
+          });
+          const count = taps.delaysSeconds.length;
+          const gains = taps.amplitudes.map((amplitude) => amplitude * level);
+          const firstFrame = Math.max(0, Math.ceil((source.emissionTimeSeconds + taps.delaysSeconds[0]! + waveform.startSeconds) * rate));
+          const endFrame = Math.min(this.frameCount, Math.floor((source.emissionTimeSeconds + taps.delaysSeconds[count - 1]! + waveform.endSeconds) * rate) + 1);
+          if (firstFrame < endFrame) tails.push({ channelIndex: mic.channel - 1, waveform, emissionTimeSeconds: source.emissionTimeSeconds, delaysSeconds: taps.delaysSeconds, gains, firstFrame, endFrame });
+        }
       }
     });
     this.paths = paths;
+    this.tails = tails;
   }
 }
 

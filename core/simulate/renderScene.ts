@@ -1,5 +1,5 @@
 // Renders any window of a scene's recording into caller-owned Float32Arrays, one per channel (full scale = 1).
-// Each frame is computed the same way whatever the window, so any split into windows gives the same samples bit for bit.
+// Each frame is computed the same way whatever the window (paths, then diffuse tails), so any split gives the same samples bit for bit.
 import { WhenceError } from '../errors';
 import { PreparedScene, prepareScene } from './prepareScene';
 import type { SceneSpec } from './sceneTypes';
@@ -32,6 +32,16 @@ export function renderScene(scene: SceneSpec | PreparedScene, startFrame: number
     const from = Math.max(path.firstFrame, startFrame);
     const to = Math.min(path.endFrame, endFrame);
     if (from < to) path.waveform.addTo(out[path.channelIndex], startFrame, from, to, path.offsetSeconds, path.gain, rate);
+  }
+  for (const tail of prepared.tails) {
+    if (tail.endFrame <= startFrame || tail.firstFrame >= endFrame) continue;
+    const { waveform } = tail;
+    for (let i = 0; i < tail.delaysSeconds.length; i++) {
+      const offsetSeconds = tail.emissionTimeSeconds + tail.delaysSeconds[i]!;
+      const from = Math.max(Math.ceil((offsetSeconds + waveform.startSeconds) * rate), startFrame);
+      const to = Math.min(Math.floor((offsetSeconds + waveform.endSeconds) * rate) + 1, endFrame);
+      if (from < to) waveform.addTo(out[tail.channelIndex], startFrame, from, to, offsetSeconds, tail.gains[i]!, rate);
+    }
   }
   return out;
 }

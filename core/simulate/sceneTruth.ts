@@ -63,7 +63,9 @@ export function sceneTruth(spec: SceneSpec): SceneTruth {
     const waveform = sourceWaveform(source, rate);
     const level = dbToAmplitude(source.levelDb);
     const arrivals = microphones.map((mic): MicrophoneArrival => {
-      const [direct, ground] = soundPaths(source, mic, spec);
+      const paths = soundPaths(source, mic, spec);
+      const direct = paths[0]!;
+      const ground = paths.find((path) => path.kind === 'ground');
       const arrivalTimeSeconds = source.emissionTimeSeconds + direct.delaySeconds;
       const arrival: MicrophoneArrival = {
         channel: mic.channel,

@@ -118,6 +118,36 @@ export interface SceneHum {
   elevationDegrees?: number;
 }
 
+/** A flat reflecting plane perpendicular to one axis, at a coordinate in the scene's local metres. */
+export interface SceneWall {
+  atMeters: number;
+  /** Pressure reflection coefficient, -1..1 (about -1 for a water surface seen from below, a pressure-release surface). */
+  reflectionCoefficient: number;
+}
+
+/**
+ * Reflecting planes of a shoebox room or an open site (Allen & Berkley 1979 image sources): any wall may be left out (open).
+ * west/east are planes of constant east, south/north of constant north, floor/ceiling of constant up (a water surface is
+ * a ceiling, a sea bed a floor). Sources and microphones must lie between the walls given.
+ */
+export interface SceneRoom {
+  west?: SceneWall;
+  east?: SceneWall;
+  south?: SceneWall;
+  north?: SceneWall;
+  floor?: SceneWall;
+  ceiling?: SceneWall;
+  /** Highest number of reflections of an image. Default 2; at most 12. */
+  maxOrder?: number;
+  /** Images arriving later than this after emission are left out (and the diffuse tail, if any, takes over). */
+  maxDelaySeconds?: number;
+  /**
+   * A seeded diffuse tail after maxDelaySeconds, decaying with the room's Eyring reverberation time (needs all six walls
+   * and maxDelaySeconds): random-sign copies of the sound at random delays, so long reverberation renders fast.
+   */
+  diffuseTail?: boolean;
+}
+
 export interface SceneSpec {
   /** Whole hertz, e.g. 48000. */
   sampleRateHz: number;
@@ -131,6 +161,8 @@ export interface SceneSpec {
   groundUpMeters?: number;
   /** Pressure reflection coefficient of the ground, -1..1. Default 0.5. */
   reflectionCoefficient?: number;
+  /** Walls of a room or an open site with image-source reflections; not together with groundUpMeters (give a floor instead). */
+  room?: SceneRoom;
   sources: SceneSource[];
   background?: SceneBackground;
   interference?: SceneHum[];

@@ -13,7 +13,7 @@ export function mix32(value: number): number {
 }
 
 /** Streams of random numbers in a scene; each has its own seeds, so enabling one part never changes another. */
-export const RANDOM_STREAM = Object.freeze({ background: 1, wind: 2, gust: 3, humPhase: 4 });
+export const RANDOM_STREAM = Object.freeze({ background: 1, wind: 2, gust: 3, humPhase: 4, diffuseTail: 5 });
 
 /** A nonzero 32-bit state for xorshift32 from the scene seed and the coordinates of a block. */
 export function streamSeed(seed: number, stream: number, channelIndex: number, blockIndex: number): number {

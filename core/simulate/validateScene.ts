@@ -1,7 +1,9 @@
 // Checks a scene description before rendering: every field present, finite and in range, named in the error when not.
 // Units as in sceneTypes.ts; tonal content must stay below 0.45 x the sample rate so nothing aliases.
 import { SceneSpecError } from './sceneSpecError';
+import { MAX_IMAGE_ORDER, roomAcoustics } from './imageSources';
 import type { SceneSource, SceneSpec } from './sceneTypes';
+import { maxOf, minOf } from '../units';
 
 /** Highest frequency of any tonal component, as a fraction of the sample rate (below Nyquist with a margin). */
 export const MAX_TONE_FRACTION_OF_RATE = 0.45;
@@ -114,6 +116,45 @@ function validateSource(source: SceneSource, at: string, sampleRateHz: number): 
   }
 }
 
+const ROOM_AXES = [
+  { low: 'west', high: 'east', coordinate: 'eastMeters' },
+  { low: 'south', high: 'north', coordinate: 'northMeters' },
+  { low: 'floor', high: 'ceiling', coordinate: 'upMeters' },
+] as const;
+
+/** The room's walls, limits, tail, and every microphone and source between the walls. */
+function validateRoom(spec: SceneSpec): void {
+  const room = spec.room!;
+  if (typeof room !== 'object' || room === null) fail('room', 'must be an object with walls (west, east, south, north, floor, ceiling), each { atMeters, reflectionCoefficient }', room);
+  if (spec.groundUpMeters !== undefined) fail('groundUpMeters', 'cannot be given with room; give the room a floor instead', spec.groundUpMeters);
+  for (const axis of ROOM_AXES) {
+    for (const side of [axis.low, axis.high]) {
+      const wall = room[side];
+      if (wall === undefined) continue;
+      if (typeof wall !== 'object' || wall === null) fail(`room.${side}`, 'must be an object { atMeters, reflectionCoefficient }', wall);
+      finite(`room.${side}.atMeters`, wall.atMeters, 'metres');
+      within(`room.${side}.reflectionCoefficient`, wall.reflectionCoefficient, -1, 1, 'pressure reflection coefficient');
+    }
+    const low = room[axis.low]?.atMeters ?? Number.NEGATIVE_INFINITY;
+    const high = room[axis.high]?.atMeters ?? Number.POSITIVE_INFINITY;
+    if (!(high > low)) fail(`room.${axis.high}.atMeters`, `must be greater than room.${axis.low}.atMeters (${low})`, high);
+    const inside = (field: string, value: number): void => {
+      if (!(value >= low && value <= high)) fail(field, `must lie between room.${axis.low} and room.${axis.high} (${low}..${high} m)`, value);
+    };
+    spec.microphones.forEach((mic, index) => inside(`microphones[${index}].${axis.coordinate}`, mic[axis.coordinate]));
+    if (Array.isArray(spec.sources)) spec.sources.forEach((source, index) => inside(`sources[${index}].${axis.coordinate}`, source[axis.coordinate]));
+  }
+  if (room.maxOrder !== undefined && (!Number.isInteger(room.maxOrder) || room.maxOrder < 0 || room.maxOrder > MAX_IMAGE_ORDER)) {
+    fail('room.maxOrder', `must be a whole number of reflections from 0 to ${MAX_IMAGE_ORDER}`, room.maxOrder);
+  }
+  optional(room.maxDelaySeconds, (v) => positive('room.maxDelaySeconds', v, 'seconds after emission'));
+  if (room.diffuseTail !== undefined && typeof room.diffuseTail !== 'boolean') fail('room.diffuseTail', 'must be true or false', room.diffuseTail);
+  if (room.diffuseTail === true) {
+    if (roomAcoustics(room) === undefined) fail('room.diffuseTail', 'needs all six walls (a closed room has a reverberation time; an open site has none)', room.diffuseTail);
+    if (room.maxDelaySeconds === undefined) fail('room.diffuseTail', 'needs room.maxDelaySeconds (where the image sources stop and the tail takes over)', room.diffuseTail);
+  }
+}
+
 /** Lowest and highest instantaneous fundamental of an fm-call contour f(u) = f0 + (f1 - f0) u + 4 bend u (1 - u), u in 0..1. */
 export function fmCallFrequencyRange(startHz: number, endHz: number, bendHz: number): { minHz: number; maxHz: number } {
   const values = [startHz, endHz];
@@ -121,7 +162,7 @@ export function fmCallFrequencyRange(startHz: number, endHz: number, bendHz: num
     const vertex = (endHz - startHz + 4 * bendHz) / (8 * bendHz);
     if (vertex > 0 && vertex < 1) values.push(startHz + (endHz - startHz) * vertex + 4 * bendHz * vertex * (1 - vertex));
   }
-  return { minHz: Math.min(...values), maxHz: Math.max(...values) };
+  return { minHz: minOf(values), maxHz: maxOf(values) };
 }
 
 /** Throws SceneSpecError (code 'scene-invalid') naming the first field that is missing, not finite or out of range. */
@@ -162,6 +203,8 @@ export function validateScene(spec: SceneSpec): void {
       if (mic.upMeters < ground) fail(`microphones[${index}].upMeters`, `must not be below groundUpMeters (${ground})`, mic.upMeters);
     });
   }
+
+  if (spec.room !== undefined) validateRoom(spec);
 
   if (!Array.isArray(spec.sources)) fail('sources', 'must be a list of sounds (it may be empty)', spec.sources);
   const ids = new Map<string, number>();
