@@ -1,6 +1,6 @@
 // Reads a small text input file (an array or delay table) with a message that says what to do when it cannot.
 import { WhenceError } from '../../core/errors';
-import { errorCode, readSmallTextFile } from '../files';
+import { errorCode, NOT_REGULAR_FILE_CODE, readSmallTextFile } from '../files';
 
 const maxTableBytes = 64 * 1024 * 1024;
 
@@ -11,6 +11,7 @@ export async function readTextFile(path: string, what: string): Promise<string> 
     if (error instanceof WhenceError) throw error;
     const code = errorCode(error);
     if (code === 'EISDIR') throw new WhenceError('file-open-failed', `${path} is a folder; give the ${what} file inside it.`);
+    if (code === NOT_REGULAR_FILE_CODE) throw new WhenceError('file-open-failed', `${path} is not a regular file but a pipe, socket or device; save the ${what} to a file and give that.`);
     const reason = code === 'ENOENT' ? 'no such file' : code === 'EACCES' ? 'permission denied' : (error as Error).message;
     throw new WhenceError('file-open-failed', `cannot read the ${what} ${path}: ${reason}. Check the path and try again.`);
   }

@@ -34,7 +34,7 @@ export interface HostServiceDeps {
 async function readTextFile(path: string, what: string): Promise<TextFile> {
   try {
     const tooLarge = (sizeBytes: number) => new WhenceError('array-open-failed', `${path} is ${(sizeBytes / 2 ** 20).toFixed(0)} MiB, far larger than ${what}; check that you chose the right file.`);
-    return { name: basename(path), path, text: await readSmallTextFile(path, MAX_ARRAY_FILE_BYTES, tooLarge, true) };
+    return { name: basename(path), path, text: await readSmallTextFile(path, MAX_ARRAY_FILE_BYTES, tooLarge) };
   } catch (error) {
     if (isWhenceError(error)) throw error;
     throw new WhenceError('array-open-failed', `Could not open ${what} ${path}: ${describeFileProblem(error)}.`);

@@ -4,6 +4,7 @@ const ADVICE: Record<string, string> = {
   ENOENT: 'there is no file or folder there (was it moved, renamed, or on a card or drive that is no longer connected?)',
   ENOTDIR: 'part of the path is a file, not a folder',
   EISDIR: 'it is a folder, not a file',
+  ENOTREGULAR: 'it is not a regular file but a pipe, socket or device (reading it could wait forever); save its contents to a file and choose that',
   EACCES: 'permission denied (your user may not read or write there)',
   EPERM: 'the operating system refused (the file or folder may be read-only or locked by another program)',
   EROFS: 'the disk is read-only',

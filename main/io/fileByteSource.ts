@@ -1,9 +1,9 @@
 // A ByteSource over a file on disk: positional reads through an fs.promises FileHandle, so any window of a
 // multi-gigabyte recording is read without loading the file. Offsets and lengths in bytes.
-import { open, type FileHandle } from 'node:fs/promises';
+import { open, stat, type FileHandle } from 'node:fs/promises';
 import type { ByteSource } from '../../core/audio';
 import { WhenceError } from '../../core/errors';
-import { errorCode } from '../files';
+import { errorCode, NOT_REGULAR_FILE_CODE, READ_NO_WAIT_FLAGS, requireRegularFile } from '../files';
 
 export type FileByteSource = ByteSource & { close(): Promise<void> };
 
@@ -19,6 +19,7 @@ function openFailure(path: string, error: unknown): WhenceError {
   const advice: Record<string, string> = {
     ENOENT: 'there is no file at that path; check the folder and file name (was the card or drive removed?)',
     EISDIR: 'it is a folder, not a file; choose the WAV recording inside it',
+    [NOT_REGULAR_FILE_CODE]: 'it is not a regular file but a pipe, socket or device (reading it could wait forever); save the recording to a file and open that',
     EACCES: 'permission denied; give your user read access to the file or copy it somewhere you can read',
     EPERM: 'the operating system refused access; give your user read access to the file or copy it somewhere you can read',
     EMFILE: 'too many files are open; close some recordings or programs and try again',
@@ -31,14 +32,16 @@ function openFailure(path: string, error: unknown): WhenceError {
 export async function openFileByteSource(path: string): Promise<FileByteSource> {
   let handle: FileHandle;
   try {
-    handle = await open(path, 'r');
+    // Checked before opening: opening a FIFO for reading waits for a writer (the flags below also avoid that wait).
+    requireRegularFile(path, await stat(path));
+    handle = await open(path, READ_NO_WAIT_FLAGS);
   } catch (error) {
     throw openFailure(path, error);
   }
   let sizeBytes: number;
   try {
     const stats = await handle.stat();
-    if (stats.isDirectory()) throw Object.assign(new Error('is a directory'), { code: 'EISDIR' });
+    requireRegularFile(path, stats);
     sizeBytes = stats.size;
   } catch (error) {
     await handle.close().catch(() => undefined);

@@ -18,3 +18,15 @@ describe('readSmallTextFile()', () => {
     await expect(readSmallTextFile(join(folder, 'missing.csv'), 100, tooLarge)).rejects.toMatchObject({ code: 'ENOENT' });
   });
 });
+
+describe('readSmallTextFile() and non-regular files', () => {
+  // Expected: refused at once with ENOTREGULAR (this project's code); without the check, reading a FIFO waits for a writer forever.
+  it.skipIf(process.platform === 'win32')('readSmallTextFile() refuses a FIFO at once instead of waiting for a writer', async () => {
+    const { execFileSync } = await import('node:child_process');
+    const folder = mkdtempSync(join(tmpdir(), 'whence-read-fifo-'));
+    const fifo = join(folder, 'array.csv');
+    execFileSync('mkfifo', [fifo]);
+    const tooLarge = (sizeBytes: number) => new WhenceError('too-large', `${sizeBytes} bytes`);
+    await expect(readSmallTextFile(fifo, 100, tooLarge)).rejects.toMatchObject({ code: 'ENOTREGULAR' });
+  }, 3000);
+});
