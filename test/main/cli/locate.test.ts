@@ -25,7 +25,8 @@ beforeAll(async () => {
   await writeSceneWav({ ...spec, sources: [] }, join(folder, 'quiet.wav'), { bitsPerSample: 16 });
   await writeSceneWav({ ...spec, microphones: spec.microphones.slice(0, 3), sources: [] }, join(folder, 'three.wav'), { bitsPerSample: 16 });
   writeFileSync(join(folder, 'array.csv'), 'channel,label,x_m,y_m,z_m,sigma_m\n1,M1,0,0,1,0.02\n2,M2,40,0,1.5,0.02\n3,M3,40,40,1,0.02\n4,M4,0,40,2,0.02\n');
-  writeFileSync(join(folder, 'array-geo.csv'), 'channel,label,lat,lon,alt_m,sigma_m\n1,M1,51.5,-2.5,101,0.02\n2,M2,51.5,-2.49942,101.5,0.02\n3,M3,51.50036,-2.49942,101,0.02\n4,M4,51.50036,-2.5,102,0.02\n');
+  // The scene's microphones in WGS84, east/north/up of M1 at 51.5° N, 2.5° W (computed by test/reference/cli_reference.py).
+  writeFileSync(join(folder, 'array-geo.csv'), 'channel,label,lat,lon,alt_m,sigma_m\n1,M1,51.5,-2.5,101,0.02\n2,M2,51.499999999,-2.499423977,101.5001,0.02\n3,M3,51.500359518,-2.499423972,101.0003,0.02\n4,M4,51.500359519,-2.5,102.0001,0.02\n');
   writeFileSync(join(folder, 'array-ch9.csv'), 'channel,label,x_m,y_m\n1,M1,0,0\n2,M2,40,0\n9,M9,40,40\n');
   writeFileSync(join(folder, 'broken.wav'), 'RIFF....WAVEjunk');
 });
@@ -38,15 +39,30 @@ describe('whence locate', () => {
     const table = readCsv(run.stdout, 'stdout');
     const column = (name: string) => table.header.indexOf(name);
     expect(table.rows).toHaveLength(2);
-    const fixes = table.rows.map((row) => ({ status: row.cells[column('status')], x: Number(row.cells[column('x_m')]), y: Number(row.cells[column('y_m')]), time: Number(row.cells[column('time_s')]), local: row.cells[column('local_time')] }));
+    const fixes = table.rows.map((row) => ({ status: row.cells[column('status')], x: Number(row.cells[column('x_m')]), y: Number(row.cells[column('y_m')]), time: Number(row.cells[column('time_s')]), arrival: Number(row.cells[column('arrival_s')]), local: row.cells[column('local_time')] }));
     expect(fixes.map((f) => f.status)).toEqual(['ok', 'ok']);
-    expect(Math.hypot(fixes[0]!.x - 12, fixes[0]!.y - 25)).toBeLessThan(0.3);
-    expect(Math.hypot(fixes[1]!.x - 28, fixes[1]!.y - 10)).toBeLessThan(0.3);
-    // Emission times estimated from the onsets: within a few milliseconds of the scene's 1.5 s and 3.8 s.
-    expect(fixes[0]!.time).toBeCloseTo(1.5, 1);
-    expect(fixes[1]!.time).toBeCloseTo(3.8, 1);
-    // TimeReference 727 200 000 samples at 48 kHz = 04:12:30.000 (EBU Tech 3285 start time, common practice).
-    expect(fixes[0]!.local).toMatch(/^2026-05-17T04:12:31\.5\d\d$/);
+    // The scene's speed of sound is given, so each sound lies inside its 95 % ellipse: within its semi-major axis (3.7 and
+    // 3.8 cm here) of where the scene put it.
+    const semiMajor = table.rows.map((row) => Number(row.cells[column('semi_major_m')]));
+    expect(semiMajor.every((axis) => axis > 0 && axis < 0.1)).toBe(true);
+    expect(Math.hypot(fixes[0]!.x - 12, fixes[0]!.y - 25)).toBeLessThan(semiMajor[0]!);
+    expect(Math.hypot(fixes[1]!.x - 28, fixes[1]!.y - 10)).toBeLessThan(semiMajor[1]!);
+    // Onsets are picked on 2 ms band-energy frames (DEVELOPERS.md), so a sound's first arrival is found a few frames late
+    // at most: within 10 ms of the scene's (the 200 ms FM call rises slowly and comes about 6 ms late, the chirp under 2 ms).
+    // First arrivals (scene geometry, c = 343 m/s): 1.5 s + 19.2312 m (to M4) = 1.556067 s; 3.8 s + 15.6234 m (to M2) = 3.845549 s.
+    const firstArrivalSeconds = [1.5 + Math.hypot(12, 15, 0.8) / 343, 3.8 + Math.hypot(12, 10, 0.3) / 343];
+    const emissionSeconds = [1.5, 3.8];
+    fixes.forEach((fix, i) => {
+      expect(Math.abs(fix.arrival - firstArrivalSeconds[i]!)).toBeLessThan(0.01);
+      expect(Math.abs(fix.time - emissionSeconds[i]!)).toBeLessThan(0.01);
+    });
+    // TimeReference 727 200 000 samples at 48 kHz = 04:12:30.000 (EBU Tech 3285 start time, common practice); the local
+    // time is that start plus the arrival, to the millisecond it is printed with.
+    fixes.forEach((fix) => {
+      const match = /^2026-05-17T04:12:(\d\d\.\d\d\d)$/.exec(fix.local ?? '');
+      expect(match, fix.local).not.toBeNull();
+      expect(Math.abs(Number(match![1]) - (30 + fix.arrival))).toBeLessThanOrEqual(0.0005 + 1e-9);
+    });
     for (const header of ['recording: site.wav, first sample at 2026-05-17T04:12:30.000', 'speed of sound 343.000', 'microphone M2: channel 2', 'Whence 0.1.0 survey log']) {
       expect(run.stdout).toContain(header);
     }
@@ -63,10 +79,20 @@ describe('whence locate', () => {
     expect(kinds.filter((k) => k === 'microphone:Point')).toHaveLength(4);
     expect(kinds.filter((k) => k === 'fix:Point')).toHaveLength(2);
     expect(kinds.filter((k) => k === 'uncertainty-ellipse:Polygon')).toHaveLength(2);
-    const fix = geojson.features.find((f) => f.properties.feature === 'fix')!;
-    // [lon, lat] order (RFC 7946 §3.1.1): longitude near -2.5, latitude near 51.5.
-    expect(fix.geometry.coordinates[0]).toBeCloseTo(-2.4998, 3);
-    expect(fix.geometry.coordinates[1]).toBeCloseTo(51.5002, 3);
+    // The sounds at (12, 25, 1.2) and (28, 10, 1.2) m east/north/up of the scene are at lat 51.500224700, lon -2.499827192 and
+    // lat 51.500089879, lon -2.499596783 (WGS84; 111257.8 m per degree of latitude and 69440.5 m per degree of longitude at
+    // 51.5° N; computed by test/reference/cli_reference.py). Each must lie inside its fix's 95 % ellipse, so within its
+    // semi-major axis (5 to 6 cm here; --temperature 20 gives 343.36 m/s where the scene used 343, which moves a fix about
+    // 1 cm). [lon, lat] order (RFC 7946 §3.1.1).
+    const fixes = geojson.features.filter((f) => f.properties.feature === 'fix')
+      .map((f) => ({ lonLat: f.geometry.coordinates as [number, number], semiMajorMeters: (f.properties as unknown as { semi_major_m: number }).semi_major_m }));
+    const expected = [[-2.499827192, 51.5002247], [-2.499596783, 51.500089879]];
+    fixes.forEach(({ lonLat: [lon, lat], semiMajorMeters }, i) => {
+      expect(semiMajorMeters).toBeGreaterThan(0);
+      expect(semiMajorMeters).toBeLessThan(0.1);
+      const missMeters = Math.hypot((lon - expected[i]![0]!) * 69440.5, (lat - expected[i]![1]!) * 111257.8);
+      expect(missMeters).toBeLessThan(semiMajorMeters);
+    });
   });
 
   it('gives an empty log with a note when the recording holds no sounds', () => {
