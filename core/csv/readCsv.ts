@@ -54,10 +54,31 @@ export function readCsv(text: string, fileName: string): CsvTable {
   const withoutBom = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const meaningful = (row: CsvRow) => !(row.cells.length === 1 && row.cells[0]!.trim() === '') && !row.cells[0]!.trimStart().startsWith('#');
   const firstLine = withoutBom.split(/\r?\n/).find((line) => line.trim() !== '' && !line.trimStart().startsWith('#')) ?? '';
-  const records = splitRecords(withoutBom, detectSeparator(firstLine), fileName).filter(meaningful);
+  const separator = detectSeparator(firstLine);
+  const records = splitRecords(withoutBom, separator, fileName).filter(meaningful);
   const headerRow = records[0];
   if (headerRow === undefined) throw new CsvError({ fileName }, 'the file is empty. It needs a header row naming the columns, then one row per entry.');
   const header = headerRow.cells.map((name) => name.trim().toLowerCase());
   const rows = records.slice(1).map((row) => ({ lineNumber: row.lineNumber, cells: row.cells.map((cell) => cell.trim()) }));
+  for (const row of rows) refuseExtraCells(row, header.length, separator, fileName);
   return { fileName, header, rows };
+}
+
+/** Numbers written with a decimal comma in a comma-separated file: a whole number followed by a cell of digits. */
+function looksLikeDecimalCommas(cells: readonly string[]): boolean {
+  for (let i = 0; i + 1 < cells.length; i++) {
+    if (/^[+-]?\d+$/.test(cells[i]!) && /^\d+([eE][+-]?\d+)?$/.test(cells[i + 1]!)) return true;
+  }
+  return false;
+}
+
+/** A row with more (non-empty) cells than the header would be read with its cells under the wrong columns: refused. */
+function refuseExtraCells(row: CsvRow, headerLength: number, separator: string, fileName: string): void {
+  if (row.cells.length <= headerLength || row.cells.slice(headerLength).every((cell) => cell === '')) return;
+  const counts = `it has ${row.cells.length} cells but the header names ${headerLength} column${headerLength === 1 ? '' : 's'}`;
+  const separatorName = separator === ',' ? 'commas' : separator === ';' ? 'semicolons' : 'tabs';
+  if (separator === ',' && looksLikeDecimalCommas(row.cells)) {
+    throw new CsvError({ fileName, lineNumber: row.lineNumber }, `${counts}; the numbers seem to use a comma as the decimal mark (e.g. '12,5'), which splits them across columns. Use a point as the decimal mark (12.5), or separate the columns with semicolons.`);
+  }
+  throw new CsvError({ fileName, lineNumber: row.lineNumber }, `${counts} (separated by ${separatorName}). Remove the extra cells, or put a cell that contains ${separatorName === 'tabs' ? 'a tab' : `a ${separator}`} in double quotes.`);
 }

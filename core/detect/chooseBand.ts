@@ -3,6 +3,7 @@
 // sixth of an octave; the band is the run of bins minSnrDb above the noise with the largest capacity Σ log2(1 + SNR)·Δf.
 import { WhenceError } from '../errors';
 import { createWelchEstimator, nextPowerOfTwo } from '../dsp';
+import { minOf } from '../units';
 
 export interface ChooseBandOptions {
   /** Excess of the event over the background that a bin needs, dB (default 6). */
@@ -55,7 +56,7 @@ export function chooseBand(eventChannels: Channels, noiseChannels: Channels, sam
   if (eventChannels.length === 0 || noiseChannels.length === 0) {
     bandError('chooseBand() needs at least one channel of the event and one of the background noise.');
   }
-  const shortest = Math.min(...eventChannels.map((x) => x.length), ...noiseChannels.map((x) => x.length));
+  const shortest = Math.min(minOf(eventChannels.map((x) => x.length)), minOf(noiseChannels.map((x) => x.length)));
   const fit = (points: number): number => {
     let size = points;
     while (size > smallestSegmentPoints && size > shortest) size /= 2;

@@ -7,6 +7,7 @@ import type { ArrayGeometry } from '../project';
 import { median } from '../locate';
 import type { LocatedEvent } from '../pipeline';
 import { fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, presentFields, roundDecimals, type FixRecord } from './fixRecord';
+import { minOf } from '../units';
 
 export interface SurveyLogContext {
   recordingName: string;
@@ -37,7 +38,7 @@ export function locatedEventRecord(located: LocatedEvent, context: SurveyLogCont
     band_low_hz: roundDecimals(located.bandHz.lowHz, 0),
     band_high_hz: roundDecimals(located.bandHz.highHz, 0),
     band_snr_db: roundDecimals(located.bandSnrDb, 1),
-    min_peak_ratio: roundDecimals(Math.min(...located.pairs.map((p) => p.peakToSecondRatio)), 2),
+    min_peak_ratio: roundDecimals(minOf(located.pairs.map((p) => p.peakToSecondRatio)), 2),
     median_pair_snr_db: located.pairs.length === 0 ? undefined : roundDecimals(median(located.pairs.map((p) => p.snrDb)), 1),
     channels_triggered: located.event.channelsTriggered,
     event_flags: located.event.flags.join(' '),

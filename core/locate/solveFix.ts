@@ -17,6 +17,7 @@ import { degreesOfFreedom, evaluateCost, updateGeometry, type TdoaProblem } from
 import type { DelayMeasurement, Fix, Microphone, PairResidual, Position, SolveOptions, SolveResult } from './types';
 import { linearBudget } from './uncertaintyBudget';
 import { validateInput } from './validateInput';
+import { maxOf, minOf } from '../units';
 
 /** Redundant delays needed before the timing sigma is estimated from the residuals instead of the default. */
 export const MIN_DOF_FOR_RESIDUAL_SIGMA = 3;
@@ -100,7 +101,7 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
   // Rows of the least-squares problem.
   const arrivalSigma = anyStated ? Math.sqrt(Array.from(pairSigma).reduce((s, v) => s + v * v, 0) / pairSigma.length / 2) : defaultSigma;
   if (model === 'arrival-times' && anyStated) {
-    const spread = Math.max(...pairSigma) / Math.min(...pairSigma);
+    const spread = maxOf(pairSigma) / minOf(pairSigma);
     if (spread > 1.01) warnings.push(`The arrival-time model assumes one sigma for every microphone; the stated delay sigmas differ (up to ${spread.toFixed(2)}x), their RMS was used.`);
   }
   const built = buildProblem({ microphones, delays, usable, pairSigmaSeconds: pairSigma, arrivalSigmaSeconds: arrivalSigma, dimensions: dims, speedMetersPerSecond: speed, sourceUpMeters, model });
@@ -350,4 +351,3 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
   }
   return { status, fix, warnings };
 }
-

@@ -3,6 +3,7 @@
 // GCC after Knapp & Carter (1976); precision from the CRLB for flat spectra, σ² = 3(1+2s)/(8π²T s²(f2³−f1³)) (Carter 1987).
 import { autocorrelation, autocorrelationWidth, createGccEngine, type FrequencyBand, type GccWeighting } from '../dsp';
 import { WhenceError } from '../errors';
+import { maxOf } from '../units';
 
 export interface PairCorrelationPlot {
   indexA: number;
@@ -107,7 +108,7 @@ export function correlationPlots(
   if (!(speedMetersPerSecond > 0) || !(sampleRateHz > 0)) {
     throw new WhenceError('overview-correlation-input', `The speed of sound and the sample rate must be positive, got ${speedMetersPerSecond} m/s and ${sampleRateHz} Hz.`);
   }
-  const windowFrames = Math.max(...channels.map((c) => c.length));
+  const windowFrames = maxOf(channels.map((c) => c.length));
   const marginSeconds = options.lagMarginSeconds ?? 2 / sampleRateHz;
   const spacing = (a: number, b: number) => {
     const p = microphones[a]!;
@@ -159,7 +160,7 @@ export function correlationPlots(
       throw error;
     }
   });
-  const widestFrames = Math.max(0, ...widths.map((w) => (w?.halfMaxWidthSeconds ?? 0) * sampleRateHz));
+  const widestFrames = Math.max(0, maxOf(widths.map((w) => (w?.halfMaxWidthSeconds ?? 0) * sampleRateHz)));
   const lagCount = Math.min(windowFrames - 1, 4096, Math.max(16, Math.ceil(autocorrelationWidthsShown * widestFrames)));
   const windowSeconds = windowFrames / sampleRateHz;
   const bandWidthHz = Math.min(bandHz.highHz, sampleRateHz / 2) - bandHz.lowHz;

@@ -2,6 +2,7 @@
 import { WhenceError } from '../errors';
 import type { ArrayGeometry } from '../project';
 import { pairSpacingMeters } from './measurePairs';
+import { maxOf } from '../units';
 
 export interface ChannelMapping {
   /** 0-based recording channel of each microphone, in array order. */
@@ -10,7 +11,7 @@ export interface ChannelMapping {
 }
 
 export function mapArrayToRecording(geometry: ArrayGeometry, recordingChannelCount: number, recordingName: string): ChannelMapping {
-  const highest = Math.max(...geometry.microphones.map((m) => m.channel));
+  const highest = maxOf(geometry.microphones.map((m) => m.channel));
   if (highest > recordingChannelCount) {
     const missing = geometry.microphones.filter((m) => m.channel > recordingChannelCount).map((m) => `${m.label} (channel ${m.channel})`);
     throw new WhenceError('channel-mismatch', `the array uses ${geometry.microphones.length} microphones up to channel ${highest}, but ${recordingName} has ${recordingChannelCount} channel${recordingChannelCount === 1 ? '' : 's'}: ${missing.join(', ')} ${missing.length === 1 ? 'is' : 'are'} not in the recording. Check the array's channel column against the recorder's channel order.`);

@@ -9,6 +9,7 @@ import { measurePairs, type PairMeasurement } from './measurePairs';
 import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
+import { maxOf, minOf } from '../units';
 
 export interface LocatedEvent {
   event: DetectedEvent;
@@ -97,7 +98,7 @@ export function solveWithHonestSigma(microphones: Microphone[], reduced: Reduced
 
 /** Lag margin beyond d/c: two samples, plus what survey error (4 sigma per microphone, two microphones) can add. */
 export function lagMarginSeconds(geometry: ArrayGeometry, sampleRateHz: number, speedMetersPerSecond: number): number {
-  const maxSurveySigmaMeters = Math.max(0, ...geometry.microphones.map((m) => m.surveySigmaMeters));
+  const maxSurveySigmaMeters = Math.max(0, maxOf(geometry.microphones.map((m) => m.surveySigmaMeters)));
   return 2 / sampleRateHz + (8 * maxSurveySigmaMeters) / speedMetersPerSecond;
 }
 
@@ -126,7 +127,7 @@ function correlationSpan(event: DetectedEvent, context: LocateContext): { startS
   const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
   if (event.flags.includes('manual') || onsets.some((onset) => onset === undefined)) return { startSeconds: event.startSeconds, endSeconds: event.endSeconds };
   const reachSeconds = maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98);
-  const startSeconds = Math.max(event.startSeconds, Math.min(...(onsets as number[])) - CORRELATION_MARGIN_SECONDS);
+  const startSeconds = Math.max(event.startSeconds, minOf(onsets as number[]) - CORRELATION_MARGIN_SECONDS);
   const endSeconds = Math.max(startSeconds + 0.01, event.endSeconds - reachSeconds);
   return { startSeconds, endSeconds };
 }
@@ -187,7 +188,7 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
     const c = context.settings.speedMetersPerSecond;
     const reference = microphones[referenceIndex]!;
     emissionTimeSeconds = onset.seconds - rangeMeters(reference) / c;
-    firstArrivalSeconds = emissionTimeSeconds + Math.min(...microphones.map((m) => rangeMeters(m))) / c;
+    firstArrivalSeconds = emissionTimeSeconds + minOf(microphones.map((m) => rangeMeters(m))) / c;
   }
   return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, solve, emissionTimeSeconds, firstArrivalSeconds, warnings };
 }

@@ -2,6 +2,7 @@
 // each searched only within the lags the pair's spacing allows (|τ| ≤ d/c plus a margin).
 import { createGccEngine, nextPowerOfTwo, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
 import type { ArrayMicrophone } from '../project';
+import { maxOf } from '../units';
 
 export interface PairMeasurement {
   indexA: number;                 // microphone indices (array order)
@@ -51,14 +52,14 @@ function engineFor(windowFrames: number, settings: PairSettings, maxLagSeconds: 
 
 /** All pairs (a < b) of the microphones whose window samples are given in `channels` (array order). */
 export function measurePairs(channels: readonly Float32Array[], microphones: readonly ArrayMicrophone[], settings: PairSettings): PairMeasurement[] {
-  const windowFrames = Math.max(...channels.map((c) => c.length));
+  const windowFrames = maxOf(channels.map((c) => c.length));
   const pairLagsSeconds: Array<{ a: number; b: number; lagSeconds: number }> = [];
   for (let a = 0; a < microphones.length; a++) {
     for (let b = a + 1; b < microphones.length; b++) {
       pairLagsSeconds.push({ a, b, lagSeconds: pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds });
     }
   }
-  const engine = engineFor(windowFrames, settings, Math.max(0, ...pairLagsSeconds.map((pair) => pair.lagSeconds)));
+  const engine = engineFor(windowFrames, settings, Math.max(0, maxOf(pairLagsSeconds.map((pair) => pair.lagSeconds))));
   channels.forEach((samples, index) => engine.setChannel(index, samples));
   return pairLagsSeconds.map(({ a, b, lagSeconds }) => {
     const maxLagSeconds = Math.min(engine.maxLagSeconds, lagSeconds);

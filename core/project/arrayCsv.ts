@@ -2,7 +2,8 @@
 // `lat,lon,alt_m` (WGS84 degrees and metres, converted to local east/north/up about the origin); optional `label`, `sigma_m`.
 import { cellNumber, cellText, CsvError, hasColumn, readCsv, requireColumns, type CsvTable } from '../csv';
 import { ecefToGeodetic, geodeticToEcef, geodeticToEnu, type GeodeticPosition } from '../geo';
-import type { ArrayGeometry, ArrayMicrophone } from './arrayGeometry';
+import { MAX_MICROPHONES, type ArrayGeometry, type ArrayMicrophone } from './arrayGeometry';
+import { maxOf } from '../units';
 
 /** Survey sigma when the table has none: positions treated as exact, with a warning saying so. */
 export const DEFAULT_SURVEY_SIGMA_METERS = 0;
@@ -34,6 +35,9 @@ export function parseArrayCsv(text: string, fileName: string, givenOrigin?: Geod
   }
   requireColumns(table, local ? ['channel', 'x_m', 'y_m'] : ['channel', 'lat', 'lon'], 'each microphone needs its channel and position');
   if (table.rows.length === 0) throw new CsvError({ fileName }, 'the table has a header but no microphones. Add one row per microphone.');
+  if (table.rows.length > MAX_MICROPHONES) {
+    throw new CsvError({ fileName, lineNumber: table.rows[MAX_MICROPHONES]!.lineNumber }, `the table has ${table.rows.length} microphones; Whence takes at most ${MAX_MICROPHONES} per array (every pair is correlated, so the work grows with the square of the count). Split the array, or keep the microphones that matter for this survey.`);
+  }
 
   const seen = new Map<number, number>();
   const geodetic: GeodeticPosition[] = [];
@@ -69,7 +73,7 @@ export function parseArrayCsv(text: string, fileName: string, givenOrigin?: Geod
     microphone.northMeters = enu.northMeters;
     microphone.upMeters = enu.upMeters;
   });
-  const spanMeters = Math.max(...microphones.map((m) => Math.hypot(m.eastMeters, m.northMeters)));
+  const spanMeters = maxOf(microphones.map((m) => Math.hypot(m.eastMeters, m.northMeters)));
   if (spanMeters > 20_000) warnings.push(`The microphones lie up to ${(spanMeters / 1000).toFixed(1)} km from the origin; check the coordinates (a swapped or mistyped lat/lon?).`);
   return { microphones, origin, warnings };
 }

@@ -2,6 +2,12 @@
 // with its survey sigma, and the WGS84 origin of the local frame when the array is georeferenced.
 import type { GeodeticPosition } from '../geo';
 
+/**
+ * Most microphones an array may have. TDOA arrays in the field have a handful to a few dozen; every pair is correlated,
+ * so the work grows with the square of the count (256 microphones make 32,640 pairs per sound).
+ */
+export const MAX_MICROPHONES = 256;
+
 export interface ArrayMicrophone {
   channel: number;               // 1-based channel of the recording
   label: string;

@@ -1,5 +1,5 @@
 // The user's documents: the microphone array and tables of measured delays.
-export type { ArrayGeometry, ArrayMicrophone } from './arrayGeometry';
+export { MAX_MICROPHONES, type ArrayGeometry, type ArrayMicrophone } from './arrayGeometry';
 export { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, parseArrayCsv } from './arrayCsv';
 export { parseDelaysCsv, type DelayEvent, type DelayRow } from './delaysCsv';
 export {

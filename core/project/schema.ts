@@ -3,12 +3,13 @@
 import { z } from 'zod';
 import { gccWeightings, type GccWeighting } from '../dsp';
 import type { FixStatus } from '../locate';
+import { MAX_MICROPHONES } from './arrayGeometry';
 
 const MAX_LABEL_CHARS = 200;
 const MAX_PATH_CHARS = 4096;
 const MAX_NOTE_CHARS = 10_000;
 /** Bounds that keep a document (and an IPC message carrying one) a sensible size. */
-export const PROJECT_LIMITS = Object.freeze({ microphones: 1024, fixes: 100_000, warningsPerFix: 100 });
+export const PROJECT_LIMITS = Object.freeze({ microphones: MAX_MICROPHONES, fixes: 100_000, warningsPerFix: 100 });
 
 export const FIX_STATUSES = ['ok', 'ambiguous', 'ill-conditioned', 'insufficient', 'invalid-input'] as const satisfies readonly FixStatus[];
 

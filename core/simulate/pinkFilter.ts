@@ -1,5 +1,6 @@
 // Pink (1/f, -3 dB per octave) noise from white: three parallel one-pole low-passes plus a direct path, the "economy"
 // filter of Paul Kellet (music-dsp mailing list, 1999; from memory), poles moved to keep their corners in Hz at any rate.
+import { maxOf } from '../units';
 
 export interface PinkFilter {
   poles: Float64Array;
@@ -37,5 +38,5 @@ export function designPinkFilter(sampleRateHz: number): PinkFilter {
   // Keep each section's gain at DC, g / (1 - p), so the sum keeps its shape in Hz.
   const gains = new Float64Array(DESIGN_GAINS.map((g, i) => (g * (1 - poles[i])) / (1 - DESIGN_POLES[i])));
   const variance = pinkOutputVariance(poles, gains, DESIGN_DIRECT);
-  return { poles, gains, direct: DESIGN_DIRECT, unitScale: 1 / Math.sqrt(variance), timeConstantFrames: -1 / Math.log(Math.max(...poles)) };
+  return { poles, gains, direct: DESIGN_DIRECT, unitScale: 1 / Math.sqrt(variance), timeConstantFrames: -1 / Math.log(maxOf(poles)) };
 }

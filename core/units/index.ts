@@ -23,3 +23,5 @@ export function framesToSeconds(frameCount: number, sampleRateHz: number): numbe
 export function celsiusToKelvin(temperatureCelsius: number): number {
   return temperatureCelsius + 273.15;
 }
+
+export { maxOf, minOf } from './extremes';

@@ -1,4 +1,5 @@
 // Text formatting for the command line's human-readable output (aligned key/value lines, clock durations).
+import { maxOf } from '../../core/units';
 
 export function formatDurationClock(durationSeconds: number): string {
   const totalMilliseconds = Math.round(durationSeconds * 1000);
@@ -12,6 +13,6 @@ export function formatDurationClock(durationSeconds: number): string {
 
 /** Key/value lines with the values aligned in one column. */
 export function formatTable(rows: ReadonlyArray<readonly [string, string]>): string {
-  const width = Math.max(...rows.map(([key]) => key.length));
+  const width = maxOf(rows.map(([key]) => key.length));
   return rows.map(([key, value]) => `${key.padEnd(width + 2)}${value}`).join('\n') + '\n';
 }

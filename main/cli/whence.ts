@@ -7,6 +7,7 @@ import { locateHelp, runLocate } from './commands/locate';
 import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
 import type { CliIo } from './io';
+import { maxOf } from '../../core/units';
 
 interface Command {
   summary: string;
@@ -22,7 +23,7 @@ const commands: Record<string, Command> = {
 };
 
 export function overallHelp(): string {
-  const width = Math.max(...Object.keys(commands).map((name) => name.length));
+  const width = maxOf(Object.keys(commands).map((name) => name.length));
   const lines = Object.entries(commands).map(([name, command]) => `  ${name.padEnd(width + 2)}${command.summary}`);
   return `whence ${WHENCE_VERSION}: where a sound came from, from a synchronized microphone array
 

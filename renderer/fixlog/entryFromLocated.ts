@@ -3,6 +3,7 @@
 import { formatStartTime, type WavStartTime } from '../../core/audio';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry } from '../../core/project';
+import { minOf } from '../../core/units';
 
 export interface EntryOptions {
   id: string;
@@ -52,5 +53,5 @@ export function fixLogEntryFromLocated(located: LocatedEvent, options: EntryOpti
 /** The smallest peak-to-second-peak ratio over the event's pairs (the weakest correlation), as the survey log's min_peak_ratio. */
 export function minPeakRatio(located: LocatedEvent): number | undefined {
   if (located.pairs.length === 0) return undefined;
-  return Math.min(...located.pairs.map((pair) => pair.peakToSecondRatio));
+  return minOf(located.pairs.map((pair) => pair.peakToSecondRatio));
 }

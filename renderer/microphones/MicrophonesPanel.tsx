@@ -8,6 +8,7 @@ import { blankRow, fieldsOf, rowsFromMicrophones, setRowPosition, type Microphon
 import { originTextFrom, parseOriginText, type OriginField, type OriginParse, type OriginText } from './originText';
 import { validateArray, type ArrayValidation, type RowCheck } from './validateArray';
 import './microphones.css';
+import { maxOf } from '../../core/units';
 
 /** What an import hands back: the text of the chosen file and its name (core/contract's TextFile fits). */
 export interface ArrayImportText {
@@ -91,7 +92,7 @@ function derive(state: TableState, propsOrigin: GeodeticPosition | undefined, re
 
 function nextNumberChannel(rows: readonly MicrophoneRowText[]): number {
   const used = rows.map((row) => Number(row.channel.trim())).filter((channel) => Number.isInteger(channel) && channel >= 1);
-  return used.length === 0 ? 1 : Math.max(...used) + 1;
+  return used.length === 0 ? 1 : maxOf(used) + 1;
 }
 
 export function MicrophonesPanel(props: MicrophonesPanelProps) {

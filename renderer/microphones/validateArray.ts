@@ -1,7 +1,7 @@
 // Checks the microphone table cell by cell and as a whole; returns messages per cell, per row and for the table, and the usable microphones.
 // Units: local east/north/up metres about the WGS84 origin (geodetic rows converted through core/geo); latitude/longitude in degrees.
 import { geodeticToEnu, parseDegrees, type GeodeticPosition } from '../../core/geo';
-import { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, type ArrayMicrophone } from '../../core/project';
+import { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, MAX_MICROPHONES, type ArrayMicrophone } from '../../core/project';
 import { isBlankRow, POSITION_FIELDS, type MicrophoneField, type MicrophoneRowText, type PositionMode } from './arrayRows';
 
 export type MessageSeverity = 'error' | 'warning';
@@ -245,7 +245,9 @@ export function validateArray(rows: readonly MicrophoneRowText[], recordingChann
 
   const microphones: ArrayMicrophone[] = [];
   let errorRowCount = 0;
+  let rowsSoFar = 0;
   const checks = parses.map((parse) => {
+    if (!parse.check.blank && ++rowsSoFar > MAX_MICROPHONES) add(parse.check, { severity: 'error', text: `Whence takes at most ${MAX_MICROPHONES} microphones per array; remove this row or split the array.` });
     const hasError = parse.check.messages.some((m) => m.severity === 'error');
     if (hasError) errorRowCount += 1;
     if (!hasError && !parse.check.blank && parse.channel !== undefined && parse.local !== undefined && parse.sigmaMeters !== undefined) {

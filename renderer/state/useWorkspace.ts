@@ -12,6 +12,7 @@ import { PipelineBridge, type WorkerCall } from '../worker/bridge';
 import { fixLogContextOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
 import { initialWorkspace, workspaceReducer, type WorkspaceState } from './workspace';
+import { maxOf } from '../../core/units';
 
 function message(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
@@ -157,7 +158,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     if ('problems' in ready) { notify('warning', `Cannot locate yet: ${ready.problems.join(' ')}`); return; }
     dispatch({ type: 'busy/set', busy: { label: 'Locating the selection', progress: 0.5 } });
     try {
-      const index = Math.max(-1, ...current.events.map((e) => e.event.index)) + 1;
+      const index = Math.max(-1, maxOf(current.events.map((e) => e.event.index))) + 1;
       const located = await bridge().call<LocatedEvent>('locateSpan', { context: ready.context, startSeconds, endSeconds, index }).promise;
       dispatch({ type: 'events/add', event: located });
       dispatch({ type: 'fixes/log-events', indices: [current.events.length] });

@@ -5,6 +5,7 @@ import type { CorrelationPlots } from '../../core/overview';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { ProjectDocument } from '../../core/project';
 import type { MapFix, MapHyperbola, MapMicrophone, MapOverlay } from '../map';
+import { maxOf, minOf } from '../../core/units';
 
 export function mapMicrophones(document: ProjectDocument): MapMicrophone[] {
   return document.array.microphones.map((m) => ({ label: m.label, channel: m.channel, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters }));
@@ -49,9 +50,9 @@ export function meanUpMeters(microphones: readonly { upMeters: number }[]): numb
 function overlaySquare(mics: readonly { eastMeters: number; northMeters: number }[]) {
   const easts = mics.map((m) => m.eastMeters);
   const norths = mics.map((m) => m.northMeters);
-  const span = Math.max(20, Math.max(...easts) - Math.min(...easts), Math.max(...norths) - Math.min(...norths));
-  const centreEast = (Math.max(...easts) + Math.min(...easts)) / 2;
-  const centreNorth = (Math.max(...norths) + Math.min(...norths)) / 2;
+  const span = Math.max(20, maxOf(easts) - minOf(easts), maxOf(norths) - minOf(norths));
+  const centreEast = (maxOf(easts) + minOf(easts)) / 2;
+  const centreNorth = (maxOf(norths) + minOf(norths)) / 2;
   return { sideMeters: 3 * span, minEastMeters: centreEast - 1.5 * span, maxEastMeters: centreEast + 1.5 * span, minNorthMeters: centreNorth - 1.5 * span, maxNorthMeters: centreNorth + 1.5 * span };
 }
 

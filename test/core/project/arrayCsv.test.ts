@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseArrayCsv, parseDelaysCsv } from '../../../core/project';
+import { MAX_MICROPHONES, parseArrayCsv, parseDelaysCsv } from '../../../core/project';
 import { geodeticToEnu } from '../../../core/geo';
 
 describe('parseArrayCsv()', () => {
@@ -37,6 +37,26 @@ describe('parseArrayCsv()', () => {
     expect(() => parseArrayCsv('channel,x_m,y_m,lat,lon\n1,0,0,1,1\n', 'c.csv')).toThrow(/both local columns/);
     expect(() => parseArrayCsv('channel,x_m,y_m\n0,0,0\n', 'd.csv')).toThrow(/whole number from 1/);
     expect(() => parseArrayCsv('channel,x_m,y_m\n1,zero,0\n', 'e.csv')).toThrow("e.csv, line 2, column 'x_m': 'zero' is not a number");
+  });
+});
+
+describe('parseArrayCsv() bad input', () => {
+  // Expected: the refusals this project specifies (issue 11); before, extra cells were dropped and positions shifted.
+  it('parseArrayCsv() refuses a comma-decimal row with its line number and says the decimal mark is the problem', () => {
+    const text = 'channel,x_m,y_m,z_m\n1,0,0,1\n2,12,5,3,25,1\n3,0,40,1\n';
+    expect(() => parseArrayCsv(text, 'comma.csv')).toThrow(/^comma\.csv, line 3: it has 6 cells but the header names 4 columns; the numbers seem to use a comma as the decimal mark/);
+  });
+
+  it('parseArrayCsv() refuses any row with more cells than the header, naming the line; trailing empty cells are allowed', () => {
+    expect(() => parseArrayCsv('channel,x_m,y_m\n1,0,0\n2,five,0,extra\n', 'extra.csv')).toThrow(/^extra\.csv, line 3: it has 4 cells but the header names 3 columns \(separated by commas\)/);
+    expect(parseArrayCsv('channel,x_m,y_m\n1,0,0,,\n2,5,0\n3,0,5\n', 'trailing.csv').microphones).toHaveLength(3);
+  });
+
+  it('parseArrayCsv() takes MAX_MICROPHONES microphones and refuses one more, saying the limit', () => {
+    const rows = (count: number) => Array.from({ length: count }, (_, i) => `${i + 1},${i},${(i * i) % 97}`).join('\n');
+    expect(MAX_MICROPHONES).toBe(256);
+    expect(parseArrayCsv(`channel,x_m,y_m\n${rows(MAX_MICROPHONES)}\n`, 'full.csv').microphones).toHaveLength(MAX_MICROPHONES);
+    expect(() => parseArrayCsv(`channel,x_m,y_m\n${rows(20_000)}\n`, 'huge.csv')).toThrow(/^huge\.csv, line 258: the table has 20000 microphones; Whence takes at most 256 per array/);
   });
 });
 
