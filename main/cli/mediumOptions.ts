@@ -1,7 +1,7 @@
 // The medium options shared by commands (--medium, --temperature, --humidity, ...): parsed into a core/medium spec,
 // refusing options that do not apply to the chosen medium.
 import { MEDIUM_DEFAULTS, speedOfSound, type MediumSpec } from '../../core/medium';
-import { oneOf, optionalNumber, optionalString, UsageError, type OptionSpec, type ParsedCommand } from './parse';
+import { oneOf, optionalNumber, optionalNumberAtLeast, optionalString, UsageError, type OptionSpec, type ParsedCommand } from './parse';
 
 export const mediumOptionSpec: OptionSpec = {
   medium: { type: 'string' }, temperature: { type: 'string' }, humidity: { type: 'string' }, pressure: { type: 'string' },
@@ -24,16 +24,17 @@ export function mediumSpecFromOptions(values: ParsedCommand['values']): { spec: 
   }
   const warnings: string[] = [];
   const temperatureAssumed = values.temperature === undefined;
-  let temperatureCelsius = optionalNumber(values, 'temperature', 'degrees Celsius');
+  let temperatureCelsius = optionalNumberAtLeast(values, 'temperature', 'degrees Celsius', -273.15, 'cannot be below absolute zero (-273.15 °C)');
   if (temperatureCelsius === undefined) {
     temperatureCelsius = MEDIUM_DEFAULTS.temperatureCelsius;
     warnings.push(`No temperature given: assumed ${temperatureCelsius} °C. Give --temperature; in air each kelvin of error changes the speed by about 0.6 m/s (0.17 %).`);
   }
   if (medium === 'air') {
     const spec: MediumSpec = { medium, temperatureCelsius, model: oneOf('model', optionalString(values, 'model'), ['cramer', 'ideal-gas'] as const, 'cramer') };
-    const humidity = optionalNumber(values, 'humidity', 'percent relative humidity');
-    const pressure = optionalNumber(values, 'pressure', 'kilopascals');
-    const co2 = optionalNumber(values, 'co2', 'parts per million');
+    const humidity = optionalNumberAtLeast(values, 'humidity', 'percent relative humidity', 0, 'is a relative humidity from 0 to 100 %');
+    if (humidity !== undefined && humidity > 100) throw new UsageError(`--humidity is a relative humidity from 0 to 100 %; got ${humidity}.`);
+    const pressure = optionalNumberAtLeast(values, 'pressure', 'kilopascals', Number.MIN_VALUE, 'must be a positive pressure in kilopascals (about 101.3 at sea level)');
+    const co2 = optionalNumberAtLeast(values, 'co2', 'parts per million', 0, 'cannot be negative (about 420 ppm outdoors)');
     if (humidity !== undefined) spec.relativeHumidityPercent = humidity;
     if (pressure !== undefined) spec.pressureKilopascals = pressure;
     if (co2 !== undefined) spec.co2PartsPerMillion = co2;
@@ -41,8 +42,8 @@ export function mediumSpecFromOptions(values: ParsedCommand['values']): { spec: 
   }
   if (medium === 'seawater') {
     const spec: MediumSpec = { medium, temperatureCelsius };
-    const salinity = optionalNumber(values, 'salinity', 'parts per thousand');
-    const depth = optionalNumber(values, 'depth', 'metres');
+    const salinity = optionalNumberAtLeast(values, 'salinity', 'parts per thousand', 0, 'cannot be negative (about 35 ppt in the open sea)');
+    const depth = optionalNumberAtLeast(values, 'depth', 'metres', 0, 'is metres below the surface and cannot be negative');
     if (salinity !== undefined) spec.salinityPartsPerThousand = salinity;
     if (depth !== undefined) spec.depthMeters = depth;
     return { spec, warnings, temperatureAssumed };
@@ -55,7 +56,7 @@ export interface SpeedChoice { speedMetersPerSecond: number; speedSigmaMetersPer
 
 export function chooseSpeed(values: ParsedCommand['values']): SpeedChoice {
   const given = optionalNumber(values, 'sound-speed', 'metres per second');
-  const givenSigma = optionalNumber(values, 'sound-speed-sigma', 'metres per second');
+  const givenSigma = optionalNumberAtLeast(values, 'sound-speed-sigma', 'metres per second', 0, 'is a standard deviation and cannot be negative (0 for an exact speed)');
   if (given !== undefined) {
     const clash = mediumOptionNames.filter((name) => values[name] !== undefined).concat(values['temperature-sigma'] !== undefined ? ['temperature-sigma'] : []);
     if (clash.length > 0) throw new UsageError(`--sound-speed replaces the medium options; leave out ${clash.map((name) => `--${name}`).join(', ')}.`);
@@ -65,8 +66,7 @@ export function chooseSpeed(values: ParsedCommand['values']): SpeedChoice {
   if (givenSigma !== undefined) throw new UsageError('--sound-speed-sigma goes with --sound-speed; with a medium, give --temperature-sigma instead.');
   const { spec, warnings, temperatureAssumed } = mediumSpecFromOptions(values);
   const speed = speedOfSound(spec);
-  const temperatureSigmaKelvin = optionalNumber(values, 'temperature-sigma', 'kelvin') ?? (temperatureAssumed ? 5 : 1);
-  if (temperatureSigmaKelvin < 0) throw new UsageError(`--temperature-sigma cannot be negative; got ${temperatureSigmaKelvin}.`);
+  const temperatureSigmaKelvin = optionalNumberAtLeast(values, 'temperature-sigma', 'kelvin', 0, 'is a standard deviation and cannot be negative') ?? (temperatureAssumed ? 5 : 1);
   const inputs = Object.entries(speed.inputs).map(([name, value]) => `${name} ${value}`).join(', ');
   return {
     speedMetersPerSecond: speed.speedMetersPerSecond,

@@ -33,7 +33,8 @@ Commands:
 ${lines.join('\n')}
 
 'whence help COMMAND' shows a command's options. Results go to standard output,
-messages and progress to standard error.
+messages and progress to standard error. Numbers are plain decimals (12.5, -5, 1e3);
+a negative value may follow its option after a space or '=' (--temperature -5).
 `;
 }
 

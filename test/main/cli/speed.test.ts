@@ -61,7 +61,7 @@ describe('whence speed', () => {
   it('refuses text where a number belongs, naming the option', async () => {
     const run = await runCliInProcess(['speed', '--temperature', 'warm']);
     expect(run.exitCode).toBe(2);
-    expect(run.stderr).toContain("--temperature must be a number (degrees Celsius); got 'warm'");
+    expect(run.stderr).toContain("--temperature must be a decimal number such as 12.5, -5 or 1e3 (degrees Celsius); got 'warm'");
   });
 
   it('prints a readable table from the bundled program', () => {
