@@ -3,7 +3,7 @@ export type { ByteSource } from './byteSource';
 export { memoryByteSource } from './byteSource';
 export type { WavInfo, WavStartTime, SampleLayout } from './wavTypes';
 export { WavFormatError } from './wavFormatError';
-export { readWavInfo } from './readWavInfo';
+export { PLAUSIBLE_SAMPLE_RATE_HZ, readWavInfo } from './readWavInfo';
 export { readFrames } from './readFrames';
 export { decodeInterleaved } from './decodeInterleaved';
 export { formatStartTime } from './startTime';

@@ -9,6 +9,7 @@ import { fourCC, hexBytes, isPlausibleChunkId, uint32LE } from './riffBytes';
 import { HeaderReader } from './sourceRead';
 import { bwfStartTime } from './startTime';
 import { WavFormatError } from './wavFormatError';
+import { printableText } from '../text';
 import type { WavInfo } from './wavTypes';
 
 /** Most chunks Whence walks before giving up; real recordings have a handful. */
@@ -19,6 +20,10 @@ const LIST_READ_MAX_BYTES = 64 * 1024;
 const LIST_TOTAL_MAX_BYTES = 256 * 1024;
 const SIZE_UNKNOWN_32 = 0xffffffff;
 const TWO_POW_32 = 0x100000000;
+/** Sample rates of audio recorders, Hz: a header outside this is almost certainly damaged (or not audio). */
+export const PLAUSIBLE_SAMPLE_RATE_HZ = Object.freeze({ lowest: 1_000, highest: 1_000_000 });
+/** Longest file name quoted in a message, in characters. */
+const MAX_NAME_CHARS = 120;
 
 // Chunks that may legitimately follow an empty data chunk (used to tell an empty data chunk from an unfinalised one).
 const KNOWN_CHUNK_IDS = new Set(['fmt ', 'data', 'LIST', 'bext', 'JUNK', 'junk', 'PAD ', 'pad ', 'fact', 'cue ', 'smpl', 'inst', 'iXML', 'axml', 'chna', 'id3 ', 'ID3 ', '_PMX', 'umid', 'levl', 'FLLR', 'filr', 'acid', 'DISP']);
@@ -37,7 +42,7 @@ function describeSpan(lengthBytes: number, blockAlignBytes: number, sampleRateHz
 }
 
 function readContainer(head: Uint8Array, source: ByteSource): WavInfo['container'] {
-  const name = source.name;
+  const name = printableText(source.name, MAX_NAME_CHARS);
   if (head.length < 12) {
     throw new WavFormatError('not-riff-wave', `${name} is ${source.sizeBytes} bytes long, too short to be a WAV file (the RIFF/WAVE header alone takes 12). Choose the recording itself, not an empty or partial copy.`);
   }
@@ -45,7 +50,7 @@ function readContainer(head: Uint8Array, source: ByteSource): WavInfo['container
   const kind = fourCC(head, 8);
   if ((magic === 'RIFF' || magic === 'RF64' || magic === 'BW64') && kind === 'WAVE') return magic;
   if (magic === 'RIFF' || magic === 'RF64' || magic === 'BW64') {
-    throw new WavFormatError('not-riff-wave', `${name} is a ${magic} file of type '${kind}', not WAVE audio. Choose a WAV recording.`);
+    throw new WavFormatError('not-riff-wave', `${name} is a ${magic} file of type '${printableText(kind, 8)}', not WAVE audio. Choose a WAV recording.`);
   }
   const other = OTHER_FORMATS.find(([prefix]) => magic.startsWith(prefix));
   const what = other === undefined ? `starts with bytes ${hexBytes(head, 0, 4)} instead of 'RIFF', 'RF64' or 'BW64'` : `looks like ${other[1]}, not a WAV file`;
@@ -67,7 +72,8 @@ async function nextChunkOffset(reader: HeaderReader, bodyOffsetBytes: number, si
  * Damaged files give a result with warnings where the audio can still be located, else a WavFormatError.
  */
 export async function readWavInfo(source: ByteSource): Promise<WavInfo> {
-  const name = source.name;
+  // Names and chunk ids are bytes from outside: quoted escaped and short (printableText) in every message.
+  const name = printableText(source.name, MAX_NAME_CHARS);
   const fileSizeBytes = source.sizeBytes;
   const reader = new HeaderReader(source);
   const container = readContainer(await reader.bytes(0, 12), source);
@@ -113,7 +119,7 @@ export async function readWavInfo(source: ByteSource): Promise<WavInfo> {
       if (container !== 'RIFF' && size32 === SIZE_UNKNOWN_32) {
         const fromTable = ds64?.chunkSizesBytes.get(id);
         if (fromTable === undefined) {
-          stoppedBecause = `its '${id}' chunk at byte ${position} has size 0xFFFFFFFF and the ds64 chunk gives no 64-bit size for it`;
+          stoppedBecause = `its '${printableText(id, 8)}' chunk at byte ${position} has size 0xFFFFFFFF and the ds64 chunk gives no 64-bit size for it`;
           break;
         }
         sizeBytes = fromTable;
@@ -122,6 +128,9 @@ export async function readWavInfo(source: ByteSource): Promise<WavInfo> {
         if (fmt === undefined) {
           fmt = parseFmtChunk(await reader.bytes(bodyOffset, Math.min(sizeBytes, FMT_READ_BYTES)), name);
           warnings.push(...fmt.warnings);
+          if (!(fmt.sampleRateHz >= PLAUSIBLE_SAMPLE_RATE_HZ.lowest && fmt.sampleRateHz <= PLAUSIBLE_SAMPLE_RATE_HZ.highest)) {
+            warnings.push(`${name} declares a sample rate of ${fmt.sampleRateHz} Hz, outside the ${PLAUSIBLE_SAMPLE_RATE_HZ.lowest / 1000} kHz to ${PLAUSIBLE_SAMPLE_RATE_HZ.highest / 1e6} MHz of audio recorders; its header is probably damaged, and times and delays computed from it would be wrong. Check the recorder's settings, or re-export the file.`);
+          }
         } else {
           warnings.push(`${name} has more than one fmt chunk; Whence used the first.`);
         }
@@ -135,7 +144,7 @@ export async function readWavInfo(source: ByteSource): Promise<WavInfo> {
         collectListInfo(body, infoTags);
       }
       if (sizeBytes > remainingBytes) {
-        stoppedBecause = `its '${id}' chunk at byte ${position} claims ${sizeBytes} bytes but only ${remainingBytes} remain in the file`;
+        stoppedBecause = `its '${printableText(id, 8)}' chunk at byte ${position} claims ${sizeBytes} bytes but only ${remainingBytes} remain in the file`;
         break;
       }
     }

@@ -3,6 +3,7 @@
 import { isWhenceError } from '../errors';
 import type { ByteSource } from './byteSource';
 import { WavFormatError } from './wavFormatError';
+import { printableText } from '../text';
 
 /** source.read(), with a failure reported as a typed error (a WhenceError from the source passes through unchanged). */
 export async function readOrFail(source: ByteSource, offsetBytes: number, lengthBytes: number): Promise<Uint8Array> {
@@ -11,7 +12,7 @@ export async function readOrFail(source: ByteSource, offsetBytes: number, length
   } catch (error) {
     if (isWhenceError(error)) throw error;
     const reason = error instanceof Error ? error.message : String(error);
-    throw new WavFormatError('read-failed', `Could not read ${lengthBytes} bytes of ${source.name} at byte ${offsetBytes}: ${reason}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
+    throw new WavFormatError('read-failed', `Could not read ${lengthBytes} bytes of ${printableText(source.name, 120)} at byte ${offsetBytes}: ${reason}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
   }
 }
 

@@ -1,5 +1,6 @@
 // Start time of the first sample from bext (EBU Tech 3285): midnight of OriginationDate + TimeReference / sampleRateHz
 // when TimeReference is nonzero, else OriginationDate + OriginationTime. Local wall-clock time, millisecond text.
+import { printableText } from '../text';
 import type { BextFields } from './bextChunk';
 import type { WavStartTime } from './wavTypes';
 
@@ -8,6 +9,16 @@ const DATE_PATTERN = /^(\d{4})[-_:./ ](\d{2})[-_:./ ](\d{2})$/;
 const TIME_PATTERN = /^(\d{2})[-_:./ ](\d{2})[-_:./ ](\d{2})$/;
 
 interface CalendarDate { year: number; month: number; day: number }
+
+/** The last instant a start time may have, 9999-12-31T23:59:59.999 (ISO 8601 four-digit years), in ms since 1970. */
+const LATEST_START_MILLISECONDS = Date.UTC(9999, 11, 31, 23, 59, 59, 999);
+
+/** Milliseconds since 1970 (UTC calendar, no time zone) of midnight of `date` plus `framesSinceMidnight`; may be non-finite. */
+function startMilliseconds(date: CalendarDate, framesSinceMidnight: number, sampleRateHz: number): number {
+  const midnight = new Date(0);
+  midnight.setUTCFullYear(date.year, date.month - 1, date.day);
+  return midnight.getTime() + Math.round((framesSinceMidnight * 1000) / sampleRateHz);
+}
 
 function parseDate(text: string): CalendarDate | undefined {
   const match = DATE_PATTERN.exec(text);
@@ -65,7 +76,7 @@ export function bwfStartTime(bext: BextFields, sampleRateHz: number): { startTim
   const date = parseDate(bext.originationDate);
   if (date === undefined) {
     if (!dateBlank) {
-      warnings.push(`The bext OriginationDate '${bext.originationDate}' is not a date (yyyy-mm-dd), so the recording's start time is unknown; enter it by hand if you need absolute times.`);
+      warnings.push(`The bext OriginationDate '${printableText(bext.originationDate, 40)}' is not a date (yyyy-mm-dd), so the recording's start time is unknown; enter it by hand if you need absolute times.`);
     } else if (timeReferenceFrames !== 0 || !timeBlank) {
       warnings.push('The bext chunk has a start time but no OriginationDate, so the recording\'s start time is unknown; set the recorder\'s date and clock, or enter the start time by hand.');
     }
@@ -83,14 +94,20 @@ export function bwfStartTime(bext: BextFields, sampleRateHz: number): { startTim
     if (timeSeconds !== undefined) {
       const disagreementSeconds = Math.abs(timeReferenceFrames / sampleRateHz - timeSeconds);
       if (disagreementSeconds > 1 && disagreementSeconds < 86_399) {
-        warnings.push(`The bext TimeReference (${(timeReferenceFrames / sampleRateHz).toFixed(3)} s after midnight) and OriginationTime '${bext.originationTime}' disagree by ${disagreementSeconds.toFixed(1)} s; Whence used TimeReference. Check the recorder's clock and timecode settings.`);
+        warnings.push(`The bext TimeReference (${(timeReferenceFrames / sampleRateHz).toFixed(3)} s after midnight) and OriginationTime '${printableText(bext.originationTime, 40)}' disagree by ${disagreementSeconds.toFixed(1)} s; Whence used TimeReference. Check the recorder's clock and timecode settings.`);
       }
     }
   } else if (timeSeconds !== undefined) {
     framesSinceMidnight = timeSeconds * sampleRateHz;
     basis = 'origination-time';
   } else {
-    warnings.push(`The bext OriginationTime '${bext.originationTime}' is not a time (hh:mm:ss) and TimeReference is 0, so the recording's start time is unknown; enter it by hand if you need absolute times.`);
+    warnings.push(`The bext OriginationTime '${printableText(bext.originationTime, 40)}' is not a time (hh:mm:ss) and TimeReference is 0, so the recording's start time is unknown; enter it by hand if you need absolute times.`);
+    return { startTime: undefined, warnings };
+  }
+  const startMs = startMilliseconds(date, framesSinceMidnight, sampleRateHz);
+  if (!(Number.isFinite(startMs) && startMs <= LATEST_START_MILLISECONDS)) {
+    const days = framesSinceMidnight / sampleRateHz / 86_400;
+    warnings.push(`The bext TimeReference (${timeReferenceFrames} samples, ${Number.isFinite(days) ? `${days.toExponential(3)} days` : 'an unbounded time'} after midnight of ${isoDate(date)}) puts the start of the recording beyond the year 9999, so the start time was dropped. Check the recorder's timecode settings, or enter the start time by hand if you need absolute times.`);
     return { startTime: undefined, warnings };
   }
   const partial: WavStartTime = {

@@ -2,11 +2,12 @@
 import { CsvError } from './csvError';
 import type { CsvRow, CsvTable } from './readCsv';
 import { isNumericText } from './writeCsv';
+import { printableText } from '../text';
 
 export function requireColumns(table: CsvTable, names: readonly string[], purpose: string): void {
   const missing = names.filter((name) => !table.header.includes(name));
   if (missing.length > 0) {
-    throw new CsvError({ fileName: table.fileName, lineNumber: 1 }, `missing column${missing.length > 1 ? 's' : ''} ${missing.map((n) => `'${n}'`).join(', ')} (${purpose}). The header has: ${table.header.join(', ')}.`);
+    throw new CsvError({ fileName: table.fileName, lineNumber: 1 }, `missing column${missing.length > 1 ? 's' : ''} ${missing.map((n) => `'${n}'`).join(', ')} (${purpose}). The header has: ${printableText(table.header.join(', '), 200)}.`);
   }
 }
 
@@ -31,7 +32,7 @@ export function cellNumber(table: CsvTable, row: CsvRow, name: string, unitText:
   }
   const value = Number(text);
   if (!Number.isFinite(value) || !isNumericText(text)) {
-    throw new CsvError(location, `'${text}' is not a number; expected ${unitText}${text.includes(',') ? ' (use a point as the decimal mark)' : ''}.`);
+    throw new CsvError(location, `'${printableText(text, 40)}' is not a number; expected ${unitText}${text.includes(',') ? ' (use a point as the decimal mark)' : ''}.`);
   }
   return value;
 }

@@ -4,6 +4,10 @@ import { cellNumber, cellText, CsvError, hasColumn, readCsv, requireColumns, typ
 import { ecefToGeodetic, geodeticToEcef, geodeticToEnu, type GeodeticPosition } from '../geo';
 import { MAX_MICROPHONES, type ArrayGeometry, type ArrayMicrophone } from './arrayGeometry';
 import { maxOf } from '../units';
+import { printableText } from '../text';
+
+/** Longest microphone label kept, in characters (as the project document allows). */
+const MAX_LABEL_CHARS = 200;
 
 /** Survey sigma when the table has none: positions treated as exact, with a warning saying so. */
 export const DEFAULT_SURVEY_SIGMA_METERS = 0;
@@ -31,7 +35,7 @@ export function parseArrayCsv(text: string, fileName: string, givenOrigin?: Geod
     throw new CsvError({ fileName, lineNumber: 1 }, 'the header has both local columns (x_m, y_m) and WGS84 columns (lat, lon); give one kind of position per file.');
   }
   if (!local && !geographic) {
-    throw new CsvError({ fileName, lineNumber: 1 }, `no position columns. Give 'channel,x_m,y_m,z_m' (local metres) or 'channel,lat,lon,alt_m' (WGS84). The header has: ${table.header.join(', ')}.`);
+    throw new CsvError({ fileName, lineNumber: 1 }, `no position columns. Give 'channel,x_m,y_m,z_m' (local metres) or 'channel,lat,lon,alt_m' (WGS84). The header has: ${printableText(table.header.join(', '), 200)}.`);
   }
   requireColumns(table, local ? ['channel', 'x_m', 'y_m'] : ['channel', 'lat', 'lon'], 'each microphone needs its channel and position');
   if (table.rows.length === 0) throw new CsvError({ fileName }, 'the table has a header but no microphones. Add one row per microphone.');
@@ -50,7 +54,8 @@ export function parseArrayCsv(text: string, fileName: string, givenOrigin?: Geod
     seen.set(channel, row.lineNumber);
     const sigma = cellNumber(table, row, 'sigma_m', 'metres', true) ?? DEFAULT_SURVEY_SIGMA_METERS;
     if (sigma < 0) throw new CsvError({ fileName, lineNumber: row.lineNumber, columnName: 'sigma_m' }, `a survey sigma cannot be negative; got ${sigma}.`);
-    const label = cellText(table, row, 'label') || `M${channel}`;
+    // Labels are printed and exported: control characters escaped, long ones cut (PROJECT_LIMITS: 200 characters).
+    const label = printableText(cellText(table, row, 'label'), MAX_LABEL_CHARS) || `M${channel}`;
     if (local) {
       return { channel, label, eastMeters: cellNumber(table, row, 'x_m', 'metres east'), northMeters: cellNumber(table, row, 'y_m', 'metres north'), upMeters: cellNumber(table, row, 'z_m', 'metres up', true) ?? 0, surveySigmaMeters: sigma };
     }

@@ -1,6 +1,10 @@
 // Reads a table of measured time differences: `mic_a,mic_b,delay_s` (arrival at a minus arrival at b, in seconds;
 // mic numbers are channel numbers), optional `sigma_s` and `event` (rows with the same event form one fix).
 import { cellNumber, cellText, CsvError, hasColumn, readCsv, requireColumns } from '../csv';
+import { printableText } from '../text';
+
+/** Longest event name kept, in characters. */
+const MAX_NAME_CHARS = 200;
 
 export interface DelayRow { channelA: number; channelB: number; delaySeconds: number; sigmaSeconds: number | undefined; lineNumber: number }
 export interface DelayEvent { event: string; rows: DelayRow[] }
@@ -26,7 +30,8 @@ export function parseDelaysCsv(text: string, fileName: string, knownChannels: Re
     if (sigmaSeconds !== undefined && !(sigmaSeconds > 0)) {
       throw new CsvError({ fileName, lineNumber: row.lineNumber, columnName: 'sigma_s' }, `a standard deviation must be positive; got ${sigmaSeconds}. Leave the cell empty if it is not known.`);
     }
-    const event = hasColumn(table, 'event') ? cellText(table, row, 'event') || '1' : '1';
+    // Event names are printed and exported: control characters escaped, long names cut (as labels).
+    const event = hasColumn(table, 'event') ? printableText(cellText(table, row, 'event'), MAX_NAME_CHARS) || '1' : '1';
     const group = events.get(event) ?? { event, rows: [] };
     group.rows.push({ channelA, channelB, delaySeconds: cellNumber(table, row, 'delay_s', 'seconds'), sigmaSeconds, lineNumber: row.lineNumber });
     events.set(event, group);

@@ -13,6 +13,11 @@ function escapeChar(char: string): string {
   return code <= 0xff ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u{${code.toString(16)}}`;
 }
 
+/** `text` with every control character escaped as in printableText(), at any length (nothing is cut). */
+export function escapeControlCharacters(text: string): string {
+  return text.replace(UNSAFE, escapeChar);
+}
+
 /**
  * `text` with every control character escaped (ESC becomes the four characters `\x1b`, a newline `\x0a`) and cut to
  * `maxChars` characters (then ending in '...'), so it can go on one terminal line or into a message without effect.
@@ -21,7 +26,7 @@ export function printableText(text: string, maxChars = PRINTABLE_DEFAULT_MAX_CHA
   const limit = Math.max(4, Math.floor(maxChars));
   // Escape at most what can be shown, so a huge input costs little.
   const head = text.length > limit * 2 ? text.slice(0, limit * 2) : text;
-  const escaped = head.replace(UNSAFE, escapeChar);
+  const escaped = escapeControlCharacters(head);
   if (escaped.length <= limit && head.length === text.length) return escaped;
   return `${escaped.slice(0, limit - 3).replace(/\\(x[0-9a-f]?|u\{[0-9a-f]*)?$/, '')}...`;
 }

@@ -1,4 +1,6 @@
-// Text formatting for the command line's human-readable output (aligned key/value lines, clock durations).
+// Text formatting for the command line's human-readable output (aligned key/value lines, clock durations), and the
+// guard that keeps text from files from reaching the terminal as control sequences.
+import { escapeControlCharacters } from '../../core/text';
 import { maxOf } from '../../core/units';
 
 export function formatDurationClock(durationSeconds: number): string {
@@ -15,4 +17,17 @@ export function formatDurationClock(durationSeconds: number): string {
 export function formatTable(rows: ReadonlyArray<readonly [string, string]>): string {
   const width = maxOf(rows.map(([key]) => key.length));
   return rows.map(([key, value]) => `${key.padEnd(width + 2)}${value}`).join('\n') + '\n';
+}
+
+/**
+ * Text for the terminal: line breaks and a progress line's leading carriage return kept, every other control character
+ * (ESC sequences that clear the screen, a bare CR that overwrites a line, bidi overrides) escaped as \x1b etc.
+ */
+export function terminalSafe(text: string): string {
+  return text.split('\n').map((line) => (line.startsWith('\r') ? `\r${escapeControlCharacters(line.slice(1))}` : escapeControlCharacters(line))).join('\n');
+}
+
+/** JSON text whose strings carry no raw DEL, C1, separator or bidi controls either (JSON.stringify escapes only C0). */
+export function jsonForTerminal(value: unknown): string {
+  return JSON.stringify(value, null, 2).replace(/[\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069\u200e\u200f\u061c\ufeff]/g, (char) => `\\u${char.charCodeAt(0).toString(16).padStart(4, '0')}`) + '\n';
 }

@@ -7,7 +7,12 @@ import { locateHelp, runLocate } from './commands/locate';
 import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
 import type { CliIo } from './io';
+import { terminalSafe } from './format';
+import { printableText } from '../../core/text';
 import { maxOf } from '../../core/units';
+
+/** Longest error message printed, in characters (a message quoting a whole binary file is cut). */
+const MAX_MESSAGE_CHARS = 2000;
 
 interface Command {
   summary: string;
@@ -63,15 +68,17 @@ export async function main(argv: string[], io: CliIo): Promise<number> {
     io.writeStdout(command.help);
     return 0;
   }
+  // Messages quote file names, labels, tags and cells from files: nothing reaches the terminal as a control sequence.
+  const guardedIo: CliIo = { ...io, writeStderr: (text) => io.writeStderr(terminalSafe(text)) };
   try {
-    return await command.run(rest, io);
+    return await command.run(rest, guardedIo);
   } catch (error) {
     if (isWhenceError(error)) {
-      io.writeStderr(`whence ${name}: ${error.message}\n`);
+      guardedIo.writeStderr(`whence ${name}: ${printableText(error.message, MAX_MESSAGE_CHARS)}\n`);
       return error.code === 'usage' ? 2 : 1;
     }
     const detail = error instanceof Error ? error.message : String(error);
-    io.writeStderr(`whence ${name}: unexpected internal error: ${detail}. Please report it with the command you ran (set WHENCE_DEBUG=1 for details).\n`);
+    guardedIo.writeStderr(`whence ${name}: unexpected internal error: ${printableText(detail, MAX_MESSAGE_CHARS)}. Please report it with the command you ran (set WHENCE_DEBUG=1 for details).\n`);
     if (process.env.WHENCE_DEBUG === '1' && error instanceof Error && error.stack !== undefined) io.writeStderr(`${error.stack}\n`);
     return 1;
   }

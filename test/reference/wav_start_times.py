@@ -12,6 +12,9 @@ CASES = [
     ("one frame after 01:00:00 at 96 kHz, plus 47999 frames", (2026, 7, 1), 96000, 3600 * 96000 + 1 + 47999),
     ("23:59:59 from OriginationTime at 48 kHz", (2025, 12, 31), 48000, (23 * 3600 + 59 * 60 + 59) * 48000),
     ("12:00:00 + 1234567 frames at 44.1 kHz", (2023, 3, 9), 44100, 12 * 3600 * 44100 + 1234567),
+    # TimeReference at or above 2^32: its high 32-bit word counts (EBU Tech 3285: a 64-bit count in two 32-bit words).
+    ("2^32 + 12345 frames at 48 kHz", (2026, 5, 17), 48000, 2**32 + 12345),
+    ("3 * 2^32 + 7 frames at 192 kHz", (2026, 5, 17), 192000, 3 * 2**32 + 7),
 ]
 
 for label, (year, month, day), rate, frames in CASES:

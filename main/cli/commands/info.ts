@@ -4,7 +4,8 @@ import { readWavInfo, type WavInfo } from '../../../core/audio';
 import { openFileByteSource } from '../../io';
 import type { CliIo } from '../io';
 import { parseCommandArgs, UsageError } from '../parse';
-import { formatDurationClock, formatTable } from '../format';
+import { formatDurationClock, formatTable, jsonForTerminal, terminalSafe } from '../format';
+import { printableText } from '../../../core/text';
 
 export const infoHelp = `whence info FILE [--json]
 
@@ -47,7 +48,7 @@ export function infoToJson(fileName: string, info: WavInfo): InfoJson {
 
 export function infoToText(fileName: string, info: WavInfo): string {
   const rows: Array<[string, string]> = [
-    ['File', fileName],
+    ['File', printableText(fileName, 300)],
     ['Format', `${info.formatDescription} (${info.container})`],
     ['Channels', String(info.channelCount)],
     ['Sample rate', `${info.sampleRateHz} Hz`],
@@ -56,10 +57,11 @@ export function infoToText(fileName: string, info: WavInfo): string {
     ['Duration', `${info.durationSeconds.toFixed(3)} s (${formatDurationClock(info.durationSeconds)})`],
     ['Start time', info.startTime?.isoLocal ?? 'not recorded in the file'],
   ];
-  for (const [tag, value] of Object.entries(info.infoTags)) rows.push([`Tag ${tag}`, value]);
+  // Tags are text from the file: control characters escaped (a tag cannot clear the screen or forge a line), long ones cut.
+  for (const [tag, value] of Object.entries(info.infoTags)) rows.push([`Tag ${printableText(tag, 8)}`, printableText(value, 200)]);
   if (info.warnings.length === 0) rows.push(['Warnings', 'none']);
   info.warnings.forEach((warning, index) => rows.push([index === 0 ? 'Warnings' : '', warning]));
-  return formatTable(rows);
+  return terminalSafe(formatTable(rows));
 }
 
 export async function runInfo(argv: string[], io: CliIo): Promise<number> {
@@ -71,7 +73,7 @@ export async function runInfo(argv: string[], io: CliIo): Promise<number> {
   const source = await openFileByteSource(path);
   try {
     const info = await readWavInfo(source);
-    io.writeStdout(values.json === true ? JSON.stringify(infoToJson(path, info), null, 2) + '\n' : infoToText(path, info));
+    io.writeStdout(values.json === true ? jsonForTerminal(infoToJson(path, info)) : infoToText(path, info));
     return 0;
   } finally {
     await source.close();

@@ -66,3 +66,40 @@ describe('BWF start time (bext OriginationDate, OriginationTime, TimeReference)'
     expect(info.startTime).toMatchObject({ isoLocal: '2026-05-17T06:00:00.000', basis: 'origination-time', timeReferenceFrames: 0 });
   });
 });
+
+describe('BWF start time from untrusted bext fields', () => {
+  // Expected times: test/reference/wav_start_times.py (Python datetime, exact fractions), computed. These need the high
+  // 32-bit word of TimeReference: dropping it gives 2026-05-17T00:00:00.257 and 2026-05-17T00:00:00.000 instead.
+  it.each([
+    ['2026-05-17', 48000, 2 ** 32 + 12345, '2026-05-18T00:51:18.743'],
+    ['2026-05-17', 192000, 3 * 2 ** 32 + 7, '2026-05-17T18:38:28.864'],
+  ])('readWavInfo() reads a %s TimeReference at or above 2^32 (%i Hz, %i frames) with its high word: %s', async (date, rate, timeReference, expected) => {
+    const info = await withBext({ originationDate: date, originationTime: '00:00:00', timeReferenceFrames: timeReference }, rate);
+    expect(info.startTime).toMatchObject({ isoLocal: expected, timeReferenceFrames: timeReference, framesSinceMidnight: timeReference });
+  });
+
+  // Expected: this project's rule (issue 11): a start past 9999-12-31 (ISO 8601 four-digit years) is dropped with a warning.
+  it.each([
+    ['2026-05-17', 2 ** 63],
+    ['2026-05-17', 2 ** 64 - 2 ** 12],
+    ['9999-12-31', 86_400 * 48_000],
+  ])('readWavInfo() drops the start time of a %s recording whose TimeReference is %d frames, with a warning, never NaN', async (date, timeReference) => {
+    const info = await withBext({ originationDate: date, originationTime: '00:00:00', timeReferenceFrames: timeReference });
+    expect(info.startTime).toBeUndefined();
+    expect(info.warnings.join(' ')).toMatch(/TimeReference .* puts the start of the recording beyond the year 9999, so the start time was dropped/);
+    expect(info.warnings.join(' ')).not.toMatch(/NaN/);
+  });
+
+  it('readWavInfo() keeps a start time on the last day of 9999', async () => {
+    const info = await withBext({ originationDate: '9999-12-31', originationTime: '00:00:00', timeReferenceFrames: 86_399 * 48_000 });
+    // 86399 s after midnight is 23:59:59 (common practice).
+    expect(info.startTime?.isoLocal).toBe('9999-12-31T23:59:59.000');
+  });
+
+  it('readWavInfo() quotes a bext date holding control characters escaped', async () => {
+    const info = await withBext({ originationDate: '\u001b[2J20-1', originationTime: '10:00:00' });
+    expect(info.startTime).toBeUndefined();
+    expect(info.warnings.join(' ')).toContain("OriginationDate '\\x1b[2J20-1' is not a date");
+    expect(info.warnings.join(' ')).not.toContain('\u001b');
+  });
+});

@@ -52,6 +52,13 @@ describe('parseArrayCsv() bad input', () => {
     expect(parseArrayCsv('channel,x_m,y_m\n1,0,0,,\n2,5,0\n3,0,5\n', 'trailing.csv').microphones).toHaveLength(3);
   });
 
+  it('parseArrayCsv() and parseDelaysCsv() keep labels and event names printable: control characters escaped, 200 characters at most', () => {
+    const geometry = parseArrayCsv(`channel,label,x_m,y_m\n1,"\u001b[2Jre\reds",0,0\n2,${'k'.repeat(500)},5,0\n3,plain,0,5\n`, 'labels.csv');
+    expect(geometry.microphones.map((m) => m.label)).toEqual(['\\x1b[2Jre\\x0deds', `${'k'.repeat(197)}...`, 'plain']);
+    const events = parseDelaysCsv('event,mic_a,mic_b,delay_s\n"frog\u0007\u009b1",2,1,0.001\n', 'd.csv', new Set([1, 2]));
+    expect(events[0]!.event).toBe('frog\\x07\\x9b1');
+  });
+
   it('parseArrayCsv() takes MAX_MICROPHONES microphones and refuses one more, saying the limit', () => {
     const rows = (count: number) => Array.from({ length: count }, (_, i) => `${i + 1},${i},${(i * i) % 97}`).join('\n');
     expect(MAX_MICROPHONES).toBe(256);
