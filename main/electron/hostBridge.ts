@@ -1,11 +1,13 @@
 // The object the preload exposes to the page: one method per IPC message (never a generic send), menu commands
-// through one subscription, dropped files' paths. Built from injected ipcRenderer/webUtils so it is unit-tested.
+// through one subscription, dropped files' paths (granted to main as they are asked for). Injected ipcRenderer/webUtils.
 import { IPC_CHANNELS, IPC_EVENTS, MENU_COMMANDS, type DroppedFile, type HostApi, type HostRequestMethod, type MenuCommand } from '../../core/contract';
+import { DROPPED_FILE_CHANNEL } from './droppedFileChannel';
 import { unwrapReply } from './ipcReply';
 
 /** The part of Electron's ipcRenderer used here. */
 export interface IpcRendererLike {
   invoke(channel: string, ...args: unknown[]): Promise<unknown>;
+  sendSync(channel: string, ...args: unknown[]): unknown;
   on(channel: string, listener: (event: unknown, ...args: unknown[]) => void): unknown;
   removeListener(channel: string, listener: (event: unknown, ...args: unknown[]) => void): unknown;
 }
@@ -50,7 +52,9 @@ export function createHostApi(ipc: IpcRendererLike, webUtils: WebUtilsLike, info
     getPathForFile(file: DroppedFile): string | null {
       try {
         const path = webUtils.getPathForFile(file as never);
-        return typeof path === 'string' && path !== '' ? path : null;
+        if (typeof path !== 'string' || path === '') return null;
+        // Main reads by path only files the user chose: a File with a path on disk is one the user dropped.
+        return ipc.sendSync(DROPPED_FILE_CHANNEL, path) === true ? path : null;
       } catch {
         return null;
       }

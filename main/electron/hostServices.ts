@@ -9,6 +9,7 @@ import { loadProjectFile, saveProjectFile, withProjectExtension, type RecentProj
 import { ARRAY_FILTERS, EXPORT_FILTERS, PROJECT_FILTERS, RECORDING_FILTERS, safeFileName, type DialogAdapter } from './dialogs';
 import { checkUserPath } from './pathPolicy';
 import type { RecordingHandles } from './recordingHandles';
+import { createUserFileGrants, type UserFileGrants } from './userFileGrants';
 
 export type HostServices = { [K in HostRequestMethod]: (...args: Parameters<HostApi[K]>) => ReturnType<HostApi[K]> };
 
@@ -23,6 +24,8 @@ export interface HostServiceDeps {
   recordings: RecordingHandles;
   recovery: RecoveryStore;
   recent: RecentProjectsStore;
+  /** Files the user chose; the page's open-by-path requests are limited to them (a fresh, empty set when not given). */
+  grants?: UserFileGrants;
   /** The folder holding the demo recording and array (assets/demo/out, or the packaged app's resources). */
   demoFolder: string;
   /** Told after the recent list changed (to rebuild the menu). */
@@ -48,6 +51,7 @@ function withExtension(path: string, extension: string): string {
 export function createHostServices(deps: HostServiceDeps): HostServices {
   const { dialogs, recordings, recovery, recent } = deps;
   const log = deps.log ?? (() => undefined);
+  const grants = deps.grants ?? createUserFileGrants();
   /** Paths the user chose or opened this session: only these are saved to without asking. */
   const writablePaths = new Set<string>();
 
@@ -60,8 +64,20 @@ export function createHostServices(deps: HostServiceDeps): HostServices {
     }
   }
 
+  /** A project may be opened by path when the user chose it or it is on the recent list (both made by the user). */
+  async function requireProjectPath(path: string): Promise<string> {
+    const checked = checkUserPath(path, 'project');
+    if (await grants.isGranted(checked)) return checked;
+    const recentProjects = await recent.list().catch(() => []);
+    if (recentProjects.some((project) => resolve(project.path) === resolve(checked))) return checked;
+    return grants.require(checked);
+  }
+
   async function openProject(path: string): Promise<OpenedProject> {
     const opened = await loadProjectFile(checkUserPath(path, 'project'));
+    // The user chose this project, and with it the recording it names.
+    await grants.grant(opened.path);
+    if (opened.document.recording?.path !== undefined) await grants.grant(opened.document.recording.path);
     if (opened.path.toLowerCase().endsWith('.whence')) writablePaths.add(resolve(opened.path));
     await remember(opened.path, opened.document.name);
     return opened;
@@ -70,23 +86,27 @@ export function createHostServices(deps: HostServiceDeps): HostServices {
   return {
     async openRecordingDialog() {
       const path = await dialogs.chooseFileToOpen({ title: 'Open recording', filters: RECORDING_FILTERS });
-      return path === null ? null : recordings.open(path);
+      if (path === null) return null;
+      await grants.grant(path);
+      return recordings.open(path);
     },
-    openRecordingPath: async (path) => recordings.open(checkUserPath(path, 'recording')),
+    openRecordingPath: async (path) => recordings.open(await grants.require(checkUserPath(path, 'recording'))),
     readRecordingBytes: (handleId, offsetBytes, lengthBytes) => recordings.read(handleId, offsetBytes, lengthBytes),
     closeRecording: (handleId) => recordings.close(handleId),
 
     async openArrayDialog() {
       const path = await dialogs.chooseFileToOpen({ title: 'Open array table', filters: ARRAY_FILTERS });
-      return path === null ? null : readTextFile(path, 'the array table');
+      if (path === null) return null;
+      await grants.grant(path);
+      return readTextFile(path, 'the array table');
     },
-    openArrayPath: async (path) => readTextFile(checkUserPath(path, 'array'), 'the array table'),
+    openArrayPath: async (path) => readTextFile(await grants.require(checkUserPath(path, 'array')), 'the array table'),
 
     async openProjectDialog() {
       const path = await dialogs.chooseFileToOpen({ title: 'Open project', filters: PROJECT_FILTERS });
       return path === null ? null : openProject(path);
     },
-    openProjectPath: async (path) => openProject(path),
+    openProjectPath: async (path) => openProject(await requireProjectPath(path)),
 
     async saveProject({ document, path, saveAs }) {
       const known = path !== undefined && !saveAs && writablePaths.has(resolve(path));
@@ -103,6 +123,7 @@ export function createHostServices(deps: HostServiceDeps): HostServices {
         throw error;
       }
       writablePaths.add(resolve(target));
+      await grants.grant(target);
       await remember(target, document.name);
       await recovery.discardIfSaved(document).catch((error: unknown) => log(`The recovery copy could not be cleared: ${String(error)}`));
       return result;

@@ -1,22 +1,28 @@
-// Electron main process: one hardened window on the bundled page, the host requests (ipcHandlers.ts), the menu.
-// Thin by design: every decision lives in the modules it wires (security, senderCheck, hostServices, menu), which are tested.
-import { app, BrowserWindow, dialog, ipcMain, Menu, session } from 'electron';
+// Electron main process: one hardened window on the bundled page (served as whence-app://app/), the host requests, the menu.
+// Thin by design: every decision lives in the modules it wires (security, appProtocol, senderCheck, hostServices, menu), which are tested.
+import { app, BrowserWindow, dialog, ipcMain, Menu, protocol, session } from 'electron';
+import { readFile, realpath, stat } from 'node:fs';
 import { join } from 'node:path';
+import { promisify } from 'node:util';
 import { IPC_EVENTS, type MenuCommand, type RecentProject } from '../../core/contract';
 import { createRecentProjectsStore, createRecoveryStore, RECENT_PROJECTS_FILE_NAME } from '../project';
 import { appPaths } from './appPaths';
+import { APP_SCHEME, APP_SCHEME_PRIVILEGES, createAppRequestHandler } from './appProtocol';
 import type { DialogAdapter } from './dialogs';
 import { createHostServices } from './hostServices';
 import { registerIpcHandlers } from './ipcHandlers';
 import { applicationMenuSpec, toElectronTemplate } from './menu';
+import { registerDroppedFileGrants } from './droppedFileGrants';
 import { createRecordingHandles } from './recordingHandles';
 import { denyPermissionCheck, denyPermissionRequest, isAllowedRequestUrl, navigationGuard, secureWebPreferences, withContentSecurityPolicy } from './security';
-import { isTrustedSender } from './senderCheck';
+import { isTrustedSender, type IpcSenderEvent } from './senderCheck';
+import { createUserFileGrants } from './userFileGrants';
 
 const paths = appPaths({ bundleFolder: __dirname, isPackaged: app.isPackaged, resourcesPath: process.resourcesPath, appPath: app.getAppPath() });
 
 let mainWindow: BrowserWindow | undefined;
 const recordings = createRecordingHandles();
+const grants = createUserFileGrants();
 const log = (message: string): void => {
   process.stderr.write(`${message}\n`);
 };
@@ -54,10 +60,12 @@ function createWindow(): void {
     if (mainWindow === window) mainWindow = undefined;
     void recordings.closeAll();
   });
-  void window.loadFile(paths.rendererIndexPath);
+  void window.loadURL(paths.rendererIndexUrl);
 }
 
 app.enableSandbox();
+// Before the app is ready: whence-app: is a standard, secure origin, so the page is not a file: page.
+protocol.registerSchemesAsPrivileged([{ scheme: APP_SCHEME_PRIVILEGES.scheme, privileges: { ...APP_SCHEME_PRIVILEGES.privileges } }]);
 
 function start(): void {
   app.on('second-instance', () => {
@@ -76,6 +84,14 @@ function start(): void {
   });
 
   app.whenReady().then(async () => {
+    // Electron's own fs (callback form), which reads inside app.asar when packaged.
+    protocol.handle(APP_SCHEME, createAppRequestHandler({
+      folder: paths.rendererFolder,
+      realpath: promisify(realpath),
+      stat: promisify(stat),
+      readFile: promisify(readFile),
+      log,
+    }));
     session.defaultSession.setPermissionRequestHandler(denyPermissionRequest);
     session.defaultSession.setPermissionCheckHandler(denyPermissionCheck);
     session.defaultSession.webRequest.onBeforeRequest((details, callback) => callback({ cancel: !isAllowedRequestUrl(details.url, paths.rendererFolderUrl) }));
@@ -88,14 +104,14 @@ function start(): void {
       recordings,
       recovery: createRecoveryStore(join(userData, 'recovery')),
       recent,
+      grants,
       demoFolder: paths.demoFolder,
       onRecentProjectsChanged: rebuildMenu,
       log,
     });
-    registerIpcHandlers(ipcMain, services, {
-      isTrustedSender: (event) => isTrustedSender(event, { webContentsId: () => mainWindow?.webContents.id, pageUrl: paths.rendererIndexUrl }),
-      log,
-    });
+    const trustedSender = (event: IpcSenderEvent): boolean => isTrustedSender(event, { webContentsId: () => mainWindow?.webContents.id, pageUrl: paths.rendererIndexUrl });
+    registerIpcHandlers(ipcMain, services, { isTrustedSender: trustedSender, log });
+    registerDroppedFileGrants(ipcMain, grants, { isTrustedSender: trustedSender, log });
     rebuildMenu(await recent.list());
     createWindow();
     app.on('activate', () => {

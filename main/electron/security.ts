@@ -1,5 +1,5 @@
 // The desktop window's security settings, kept pure so they are unit-tested (Electron security checklist):
-// context isolation and sandbox on, Node integration off, a strict CSP, only the app's own files load, nothing is granted.
+// context isolation and sandbox on, Node integration off, a strict CSP, only the app's own whence-app: files load, nothing is granted.
 
 export const CONTENT_SECURITY_POLICY =
   "default-src 'self'; script-src 'self'; style-src 'self' 'unsafe-inline'; img-src 'self' data: blob:; media-src 'self' blob:; worker-src 'self' blob:; connect-src 'self' blob:; frame-src 'none'; object-src 'none'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'";
@@ -44,25 +44,27 @@ function decodedPath(url: URL): string {
   }
 }
 
-/** Only the app's own page (a file: URL of the renderer's index.html) may be shown; everything else is refused. */
+/** Only the app's own page (whence-app://app/index.html, appProtocol.ts) may be shown; everything else, file: included, is refused. */
 export function isAllowedPageUrl(url: string, rendererIndexUrl: string): boolean {
   try {
     const candidate = new URL(url);
     const allowed = new URL(rendererIndexUrl);
-    return candidate.protocol === 'file:' && candidate.host === allowed.host && decodedPath(candidate) === decodedPath(allowed);
+    return candidate.protocol === allowed.protocol && candidate.host === allowed.host && decodedPath(candidate) === decodedPath(allowed);
   } catch {
     return false;
   }
 }
 
-/** Requests the page may make: its own files (under the renderer folder), blob: and data: URLs, DevTools. No remote content. */
+/** Requests the page may make: its own files (whence-app://app/...), blob: and data: URLs, DevTools. No file:, no remote content. */
 export function isAllowedRequestUrl(url: string, rendererFolderUrl: string): boolean {
   try {
     const candidate = new URL(url);
     if (candidate.protocol === 'blob:' || candidate.protocol === 'data:' || candidate.protocol === 'devtools:') return true;
-    if (candidate.protocol !== 'file:') return false;
-    const folder = decodedPath(new URL(rendererFolderUrl)).replace(/\/?$/, '/');
-    return candidate.host === new URL(rendererFolderUrl).host && decodedPath(candidate).startsWith(folder);
+    const folderUrl = new URL(rendererFolderUrl);
+    if (candidate.protocol !== folderUrl.protocol || candidate.host !== folderUrl.host) return false;
+    const folder = decodedPath(folderUrl).replace(/\/?$/, '/');
+    const path = decodedPath(candidate);
+    return path.startsWith(folder) && !path.split('/').includes('..');
   } catch {
     return false;
   }

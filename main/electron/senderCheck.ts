@@ -1,4 +1,4 @@
-// Every IPC message's sender is checked: it must come from our window's main frame showing our own file: page.
+// Every IPC message's sender is checked: it must come from our window's main frame showing our own whence-app: page.
 // Follows the Electron security checklist ("Validate the sender of all IPC messages").
 import { isAllowedPageUrl } from './security';
 
@@ -11,7 +11,7 @@ export interface IpcSenderEvent {
 export interface TrustedPage {
   /** The id of our window's web contents (undefined while there is no window). */
   webContentsId(): number | undefined;
-  /** The file: URL of the renderer's index.html. */
+  /** The whence-app: URL of the renderer's index.html (appProtocol.ts). */
   pageUrl: string;
 }
 

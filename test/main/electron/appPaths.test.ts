@@ -8,9 +8,11 @@ describe('appPaths()', () => {
   // Expected values: the folder layout this project specifies (package.json, scripts/build.mjs); file URLs percent-encode spaces (RFC 8089 / RFC 3986, common practice).
   it('finds the page beside dist/main and the demo in the source tree during development', () => {
     const paths = appPaths({ bundleFolder: '/repo/dist/main', isPackaged: false, resourcesPath: '/unused', appPath: '/repo' });
+    expect(paths.rendererFolder).toBe('/repo/dist-web');
     expect(paths.rendererIndexPath).toBe('/repo/dist-web/index.html');
-    expect(paths.rendererIndexUrl).toBe('file:///repo/dist-web/index.html');
-    expect(paths.rendererFolderUrl).toBe('file:///repo/dist-web/');
+    // The page is served from its folder as whence-app://app/ (appProtocol.ts), never as file:.
+    expect(paths.rendererIndexUrl).toBe('whence-app://app/index.html');
+    expect(paths.rendererFolderUrl).toBe('whence-app://app/');
     expect(paths.preloadPath).toBe('/repo/dist/main/preload.cjs');
     expect(paths.demoFolder).toBe('/repo/assets/demo/out');
   });
@@ -21,10 +23,12 @@ describe('appPaths()', () => {
     expect(paths.rendererIndexPath).toBe('/opt/Whence/resources/app.asar/dist-web/index.html');
   });
 
-  it('gives URLs that the security checks accept for the page and its files, even with spaces in the folder', () => {
+  it('gives URLs that the security checks accept for the page and its files, and no file: URL, even with spaces in the folder', () => {
     const paths = appPaths({ bundleFolder: '/home/field user/Whence app/dist/main', isPackaged: false, resourcesPath: '', appPath: '' });
+    expect(paths.rendererFolder).toBe('/home/field user/Whence app/dist-web');
     expect(isAllowedPageUrl(paths.rendererIndexUrl, paths.rendererIndexUrl)).toBe(true);
-    expect(isAllowedRequestUrl('file:///home/field%20user/Whence%20app/dist-web/assets/a.js', paths.rendererFolderUrl)).toBe(true);
+    expect(isAllowedRequestUrl('whence-app://app/assets/a.js', paths.rendererFolderUrl)).toBe(true);
+    expect(isAllowedRequestUrl('file:///home/field%20user/Whence%20app/dist-web/assets/a.js', paths.rendererFolderUrl)).toBe(false);
     expect(isAllowedRequestUrl('file:///home/field%20user/Whence%20app/dist/main/electron-main.cjs', paths.rendererFolderUrl)).toBe(false);
   });
 

@@ -16,6 +16,8 @@ interface BuilderConfig {
   files: string[];
   extraMetadata: { main: string };
   extraResources: { from: string; to: string; filter: string[] }[];
+  asar: boolean;
+  electronFuses: Record<string, boolean>;
 }
 
 const config = yaml.load(readFileSync(join(root, 'electron-builder.yml'), 'utf8')) as BuilderConfig;
@@ -36,6 +38,26 @@ describe('electron-builder.yml', () => {
     expect(config.files).toEqual(expect.arrayContaining(['dist/main/**', 'dist-web/**', 'package.json']));
     expect(config.extraMetadata.main).toBe(packageJson.main);
     expect(packageJson.scripts.dist).toContain('electron-builder --config electron-builder.yml');
+  });
+
+  it('sets the Electron fuses: no run-as-node, NODE_OPTIONS or inspector, encrypted cookies, the app only from a checked ASAR, no file: privileges', () => {
+    // Expected values: the Electron security checklist and the fuses tutorial (electron.org docs "Electron Fuses"), as
+    // described in app-builder-lib's scheme.json FuseOptionsV1; the page no longer needs file: (main/electron/appProtocol.ts).
+    expect(config.asar).toBe(true);
+    expect(config.electronFuses).toEqual({
+      runAsNode: false,
+      enableNodeOptionsEnvironmentVariable: false,
+      enableNodeCliInspectArguments: false,
+      enableCookieEncryption: true,
+      enableEmbeddedAsarIntegrityValidation: true,
+      onlyLoadAppFromAsar: true,
+      grantFileProtocolExtraPrivileges: false,
+    });
+  });
+
+  it('has its fuse names checked by the schema: a misspelt fuse or a non-boolean value is refused', async () => {
+    await expect(validateConfiguration({ ...config, electronFuses: { ...config.electronFuses, runAsnode: false } }, quietLogger)).rejects.toThrow(/configuration/);
+    await expect(validateConfiguration({ ...config, electronFuses: { ...config.electronFuses, runAsNode: 'no' } }, quietLogger)).rejects.toThrow(/configuration/);
   });
 
   it('ships the demo where the app looks for it when packaged', () => {

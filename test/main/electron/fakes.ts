@@ -2,11 +2,12 @@
 import { vi } from 'vitest';
 import type { HostRequestMethod } from '../../../core/contract';
 import { emptyProjectDocument } from '../../../core/project';
+import { APP_INDEX_URL } from '../../../main/electron/appProtocol';
 import type { HostServices } from '../../../main/electron/hostServices';
 import type { IpcHandleRegistry, IpcListener } from '../../../main/electron/ipcHandlers';
 import type { IpcSenderEvent } from '../../../main/electron/senderCheck';
 
-export const PAGE_URL = 'file:///opt/whence/dist-web/index.html';
+export const PAGE_URL = APP_INDEX_URL;
 export const WINDOW_ID = 3;
 
 export function senderEvent(overrides: { id?: number; url?: string; subFrame?: boolean } = {}): IpcSenderEvent {

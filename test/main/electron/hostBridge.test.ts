@@ -2,20 +2,23 @@ import { describe, expect, it, vi } from 'vitest';
 import { IPC_CHANNELS, IPC_EVENTS, MENU_COMMANDS, type HostApi, type MenuCommand } from '../../../core/contract';
 import { emptyProjectDocument } from '../../../core/project';
 import { createHostApi, parseMenuCommand, type IpcRendererLike } from '../../../main/electron/hostBridge';
+import { DROPPED_FILE_CHANNEL } from '../../../main/electron/droppedFileChannel';
 import { unwrapReply } from '../../../main/electron/ipcReply';
 
 type Listener = (event: unknown, ...args: unknown[]) => void;
 
-function fakeIpcRenderer(reply: (channel: string, args: unknown[]) => unknown = () => ({ ok: true, value: 'answer' })) {
+function fakeIpcRenderer(reply: (channel: string, args: unknown[]) => unknown = () => ({ ok: true, value: 'answer' }), grantAnswer: unknown = true) {
   const listeners = new Map<string, Set<Listener>>();
   const invoke = vi.fn(async (channel: string, ...args: unknown[]) => reply(channel, args));
+  const sendSync = vi.fn((_channel: string, ..._args: unknown[]) => grantAnswer);
   const ipc: IpcRendererLike = {
     invoke,
+    sendSync,
     on: (channel, listener) => listeners.set(channel, (listeners.get(channel) ?? new Set()).add(listener)),
     removeListener: (channel, listener) => listeners.get(channel)?.delete(listener),
   };
   const emit = (channel: string, payload: unknown) => listeners.get(channel)?.forEach((listener) => listener({ sender: 'the IPC event' }, payload));
-  return { ipc, invoke, emit, listeners };
+  return { ipc, invoke, sendSync, emit, listeners };
 }
 
 const info = { appVersion: '0.1.0', platform: 'linux' };
@@ -83,11 +86,20 @@ describe('createHostApi()', () => {
   });
 
   it('getPathForFile() gives the dropped file path, or null when the File has none', () => {
-    const api: HostApi = createHostApi(fakeIpcRenderer().ipc, webUtils, info);
+    const { ipc, sendSync } = fakeIpcRenderer();
+    const api: HostApi = createHostApi(ipc, webUtils, info);
     expect(api.getPathForFile({ name: 'a.wav', size: 1, path: '/data/a.wav' } as never)).toBe('/data/a.wav');
     expect(api.getPathForFile({ name: 'made.wav', size: 1, path: '' } as never)).toBeNull();
+    // The dropped file is granted to main (droppedFileGrants.ts) before the page can ask to open it; a File the page
+    // made itself has no path and grants nothing.
+    expect(sendSync.mock.calls).toEqual([[DROPPED_FILE_CHANNEL, '/data/a.wav']]);
     const throwing = createHostApi(fakeIpcRenderer().ipc, { getPathForFile: () => { throw new TypeError('not a File'); } }, info);
     expect(throwing.getPathForFile({ name: 'x', size: 0 })).toBeNull();
+  });
+
+  it('getPathForFile() gives null when main refuses the dropped-file grant, so the page never holds an ungranted path', () => {
+    const api: HostApi = createHostApi(fakeIpcRenderer(undefined, false).ipc, webUtils, info);
+    expect(api.getPathForFile({ name: 'a.wav', size: 1, path: '/data/a.wav' } as never)).toBeNull();
   });
 });
 

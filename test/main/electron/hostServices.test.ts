@@ -3,10 +3,11 @@ import { tmpdir } from 'node:os';
 import { isAbsolute, join } from 'node:path';
 import { describe, expect, it, vi } from 'vitest';
 import type { RecentProject } from '../../../core/contract';
-import { emptyProjectDocument, serializeProjectDocument } from '../../../core/project';
+import { CURRENT_PROJECT_SCHEMA_VERSION, emptyProjectDocument, serializeProjectDocument } from '../../../core/project';
 import type { DialogAdapter } from '../../../main/electron/dialogs';
 import { createHostServices, DEMO_ARRAY_FILE_NAME, DEMO_PROJECT_FILE_NAME, DEMO_RECORDING_FILE_NAME } from '../../../main/electron/hostServices';
 import { createRecordingHandles } from '../../../main/electron/recordingHandles';
+import { createUserFileGrants } from '../../../main/electron/userFileGrants';
 import { createRecentProjectsStore, createRecoveryStore, RECOVERY_FILE_NAME } from '../../../main/project';
 
 const wavPath = join(__dirname, '../../fixtures/audio/sox-2ch-16bit-plain.wav');
@@ -36,15 +37,19 @@ function setUp(open: (string | null)[] = [], save: (string | null)[] = []) {
   const { dialogs, asked } = fakeDialogs(open.map(inFolder), save.map(inFolder));
   const recentChanges: RecentProject[][] = [];
   let id = 0;
+  const grants = createUserFileGrants();
+  const recordings = createRecordingHandles({ newHandleId: () => `recording-${++id}` });
+  const recent = createRecentProjectsStore(join(userData, 'recent-projects.json'));
   const services = createHostServices({
     dialogs,
-    recordings: createRecordingHandles({ newHandleId: () => `recording-${++id}` }),
+    recordings,
     recovery: createRecoveryStore(join(userData, 'recovery'), () => new Date('2024-05-14T22:00:00Z')),
-    recent: createRecentProjectsStore(join(userData, 'recent-projects.json')),
+    recent,
+    grants,
     demoFolder,
     onRecentProjectsChanged: (projects) => recentChanges.push(projects),
   });
-  return { folder, userData, demoFolder, services, asked, recentChanges };
+  return { folder, userData, demoFolder, services, asked, recentChanges, grants, recordings, recent };
 }
 
 describe('createHostServices(): recordings and array tables', () => {
@@ -61,16 +66,19 @@ describe('createHostServices(): recordings and array tables', () => {
   });
 
   it('opens a dropped recording by path, but refuses a path that is not a recording', async () => {
-    const { services } = setUp();
+    const { services, grants } = setUp();
+    await grants.grant(wavPath); // what the preload's drop message does (droppedFileGrants.ts)
     await expect(services.openRecordingPath(wavPath)).resolves.toMatchObject({ path: wavPath });
     await expect(services.openRecordingPath('/etc/passwd')).rejects.toMatchObject({ code: 'path-refused' });
     await expect(services.openRecordingPath('relative/a.wav')).rejects.toMatchObject({ code: 'path-refused' });
   });
 
   it('reads an array table by dialog or by path, and says when it is not there', async () => {
-    const { services, folder } = setUp();
+    const { services, folder, grants } = setUp();
     const csv = join(folder, 'array.csv');
     writeFileSync(csv, 'channel,x_m,y_m\n1,0,0\n2,50,0\n');
+    await grants.grant(csv);
+    await grants.grant(join(folder, 'gone.csv'));
     expect(await services.openArrayPath(csv)).toEqual({ name: 'array.csv', path: csv, text: 'channel,x_m,y_m\n1,0,0\n2,50,0\n' });
     const withDialog = setUp([csv]);
     expect((await withDialog.services.openArrayDialog())?.text).toContain('50,0');
@@ -102,9 +110,10 @@ describe('createHostServices(): projects', () => {
   });
 
   it('Save as always asks, even for a known path', async () => {
-    const { services, folder, asked } = setUp([], [null, null]);
+    const { services, folder, asked, grants } = setUp([], [null, null]);
     const path = join(folder, 'known.whence');
     writeFileSync(path, serializeProjectDocument(emptyProjectDocument('known')));
+    await grants.grant(path);
     await services.openProjectPath(path);
     expect(await services.saveProject({ document: emptyProjectDocument('known'), path, saveAs: true })).toBeNull();
     expect(asked).toHaveLength(1);
@@ -119,19 +128,21 @@ describe('createHostServices(): projects', () => {
   });
 
   it('opens a project by path (a recent one) and lists it as recent', async () => {
-    const { services, folder } = setUp();
+    const { services, folder, recent } = setUp();
     const path = join(folder, 'hedge.whence');
     writeFileSync(path, serializeProjectDocument(emptyProjectDocument('Hedgerow')));
+    await recent.add(path, 'Hedgerow');
     const opened = await services.openProjectPath(path);
-    expect(opened).toMatchObject({ path, fromSchemaVersion: 1, migrationSteps: [], document: { name: 'Hedgerow' } });
+    expect(opened).toMatchObject({ path, fromSchemaVersion: CURRENT_PROJECT_SCHEMA_VERSION, migrationSteps: [], document: { name: 'Hedgerow' } });
     expect((await services.listRecentProjects()).map((project) => [project.path, project.name])).toEqual([[path, 'Hedgerow']]);
     await expect(services.openProjectPath(join(folder, 'a.wav'))).rejects.toMatchObject({ code: 'path-refused' });
   });
 
   it('refuses a corrupt project with its file name and does not list it as recent', async () => {
-    const { services, folder } = setUp();
+    const { services, folder, grants } = setUp();
     const path = join(folder, 'broken.whence');
     writeFileSync(path, '{"schemaVersion": 1, "name": "bro');
+    await grants.grant(path);
     await expect(services.openProjectPath(path)).rejects.toThrow(/broken\.whence could not be read/);
     expect(await services.listRecentProjects()).toEqual([]);
   });
@@ -196,5 +207,52 @@ describe('createHostServices(): exports and the demo', () => {
     });
     expect(await services.saveProject({ document: emptyProjectDocument('x') })).toEqual({ path: join(folder, 'p.whence') });
     expect(log).toHaveBeenCalledWith(expect.stringContaining('recent-projects list could not be updated'));
+  });
+});
+
+describe('createHostServices(): the page reads only files the user chose', () => {
+  // Expected behaviour: the Electron security checklist (limit what the renderer can reach through IPC); no outside values.
+  it('refuses a recording, array table or project the user never chose, without opening it, and says how to open it', async () => {
+    const { services, folder, recordings } = setUp();
+    const csv = join(folder, 'array.csv');
+    const project = join(folder, 'other.whence');
+    writeFileSync(csv, 'channel,x_m,y_m\n1,0,0\n');
+    writeFileSync(project, serializeProjectDocument(emptyProjectDocument('other')));
+    for (const call of [() => services.openRecordingPath(wavPath), () => services.openArrayPath(csv), () => services.openProjectPath(project)]) {
+      await expect(call()).rejects.toMatchObject({ code: 'path-not-chosen', message: expect.stringMatching(/reads only files you chose: .* File > Open, or drop it on the window/) });
+    }
+    expect(recordings.openCount()).toBe(0);
+    expect(await services.listRecentProjects()).toEqual([]);
+  });
+
+  it('lets the page open again by path a file chosen in an Open dialog (after a reload, say)', async () => {
+    const { services, folder } = setUp([wavPath, 'array.csv']);
+    writeFileSync(join(folder, 'array.csv'), 'channel,x_m,y_m\n1,0,0\n');
+    await services.openRecordingDialog();
+    await services.openArrayDialog();
+    await expect(services.openRecordingPath(wavPath)).resolves.toMatchObject({ path: wavPath });
+    await expect(services.openArrayPath(join(folder, 'array.csv'))).resolves.toMatchObject({ name: 'array.csv' });
+    await expect(services.openArrayPath(join(folder, 'sub', '..', 'array.csv'))).resolves.toMatchObject({ name: 'array.csv' });
+  });
+
+  it('grants the recording a project names when the user opens that project, and nothing else in its folder', async () => {
+    const { folder } = setUp();
+    const recordingPath = join(folder, 'night.wav');
+    copyFileSync(wavPath, recordingPath);
+    copyFileSync(wavPath, join(folder, 'other.wav'));
+    const document = { ...emptyProjectDocument('night'), recording: { path: recordingPath, name: 'night.wav', sizeBytes: 1, channelCount: 2, sampleRateHz: 8000, frameCount: 1 } };
+    const projectPath = join(folder, 'night.whence');
+    writeFileSync(projectPath, serializeProjectDocument(document));
+    const chooser = setUp([projectPath]);
+    await expect(chooser.services.openRecordingPath(recordingPath)).rejects.toMatchObject({ code: 'path-not-chosen' });
+    await chooser.services.openProjectDialog();
+    await expect(chooser.services.openRecordingPath(recordingPath)).resolves.toMatchObject({ name: 'night.wav' });
+    await expect(chooser.services.openRecordingPath(join(folder, 'other.wav'))).rejects.toMatchObject({ code: 'path-not-chosen' });
+  });
+
+  it('lets a saved project be opened again by path', async () => {
+    const { services, folder } = setUp([], ['kept']);
+    await services.saveProject({ document: emptyProjectDocument('kept') });
+    await expect(services.openProjectPath(join(folder, 'kept.whence'))).resolves.toMatchObject({ document: { name: 'kept' } });
   });
 });

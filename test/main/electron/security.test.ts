@@ -25,18 +25,20 @@ describe('desktop window security', () => {
     expect(CONTENT_SECURITY_POLICY).not.toContain('unsafe-eval');
   });
 
-  it('isAllowedPageUrl() admits only the bundled page', () => {
-    const index = 'file:///opt/whence/dist-web/index.html';
-    expect(isAllowedPageUrl('file:///opt/whence/dist-web/index.html', index)).toBe(true);
+  it('isAllowedPageUrl() admits only the bundled page, served as whence-app://app/ and never as file:', () => {
+    const index = 'whence-app://app/index.html';
+    expect(isAllowedPageUrl('whence-app://app/index.html', index)).toBe(true);
     expect(isAllowedPageUrl('https://example.org/', index)).toBe(false);
     expect(isAllowedPageUrl('file:///etc/passwd', index)).toBe(false);
+    expect(isAllowedPageUrl('file:///opt/whence/dist-web/index.html', index)).toBe(false);
+    expect(isAllowedPageUrl('file://app/index.html', index)).toBe(false);
     expect(isAllowedPageUrl('not a url', index)).toBe(false);
   });
 });
 
 describe('desktop window security, further checklist items', () => {
-  const folderUrl = 'file:///opt/whence/dist-web/';
-  const pageUrl = 'file:///opt/whence/dist-web/index.html';
+  const folderUrl = 'whence-app://app/';
+  const pageUrl = 'whence-app://app/index.html';
 
   it('secureWebPreferences() also refuses sub-frame Node, webviews, experimental features and drop navigation', () => {
     expect(secureWebPreferences('/p.cjs')).toMatchObject({ nodeIntegrationInWorker: false, nodeIntegrationInSubFrames: false, experimentalFeatures: false, navigateOnDragDrop: false });
@@ -49,24 +51,27 @@ describe('desktop window security, further checklist items', () => {
     expect(CONTENT_SECURITY_POLICY).not.toMatch(/https?:|\*/);
   });
 
-  it('isAllowedRequestUrl() lets the page load its own files and blobs but no remote content', () => {
-    expect(isAllowedRequestUrl('file:///opt/whence/dist-web/assets/index-abc.js', folderUrl)).toBe(true);
-    expect(isAllowedRequestUrl('blob:file:///0f6c-4a', folderUrl)).toBe(true);
+  it('isAllowedRequestUrl() lets the page load its own files and blobs but no file: URL and no remote content', () => {
+    expect(isAllowedRequestUrl('whence-app://app/assets/index-abc.js', folderUrl)).toBe(true);
+    expect(isAllowedRequestUrl('whence-app://app/index.html?x=1', folderUrl)).toBe(true);
+    expect(isAllowedRequestUrl('blob:whence-app://app/0f6c-4a', folderUrl)).toBe(true);
+    expect(isAllowedRequestUrl('file:///opt/whence/dist-web/assets/index-abc.js', folderUrl)).toBe(false);
+    expect(isAllowedRequestUrl('whence-app://other/assets/index-abc.js', folderUrl)).toBe(false);
+    expect(isAllowedRequestUrl('whence-app://app/a%2F..%2F..%2Fsecret.txt', folderUrl)).toBe(false);
     expect(isAllowedRequestUrl('data:image/png;base64,AAAA', folderUrl)).toBe(true);
     expect(isAllowedRequestUrl('https://example.org/tracker.js', folderUrl)).toBe(false);
     expect(isAllowedRequestUrl('http://127.0.0.1:5173/', folderUrl)).toBe(false);
     expect(isAllowedRequestUrl('wss://example.org/', folderUrl)).toBe(false);
     expect(isAllowedRequestUrl('file:///home/user/.ssh/id_rsa', folderUrl)).toBe(false);
     expect(isAllowedRequestUrl('file:///opt/whence/dist-web/../secret.txt', folderUrl)).toBe(false);
-    expect(isAllowedRequestUrl('file:///opt/whence/dist-web-other/x.js', folderUrl)).toBe(false);
     expect(isAllowedRequestUrl('::not a url', folderUrl)).toBe(false);
   });
 
   it('isAllowedPageUrl() ignores a query or fragment but not another host or an encoded other path', () => {
     expect(isAllowedPageUrl(`${pageUrl}#/map`, pageUrl)).toBe(true);
-    expect(isAllowedPageUrl('file://evil-host/opt/whence/dist-web/index.html', pageUrl)).toBe(false);
-    expect(isAllowedPageUrl('file:///opt/whence/dist-web/index%2Ehtml', pageUrl)).toBe(true);
-    expect(isAllowedPageUrl('file:///opt/whence/dist-web/other.html', pageUrl)).toBe(false);
+    expect(isAllowedPageUrl('whence-app://evil-host/index.html', pageUrl)).toBe(false);
+    expect(isAllowedPageUrl('whence-app://app/index%2Ehtml', pageUrl)).toBe(true);
+    expect(isAllowedPageUrl('whence-app://app/other.html', pageUrl)).toBe(false);
   });
 
   it('withContentSecurityPolicy() replaces any policy a response carried', () => {
@@ -91,6 +96,7 @@ describe('desktop window security, further checklist items', () => {
     };
     expect(attempt(guard.onWillNavigate, 'https://example.org/')).toBe(true);
     expect(attempt(guard.onWillNavigate, 'file:///tmp/dropped.html')).toBe(true);
+    expect(attempt(guard.onWillNavigate, 'whence-app://app/other.html')).toBe(true);
     expect(attempt(guard.onWillNavigate, pageUrl)).toBe(false);
     expect(attempt(guard.onWillRedirect, 'https://example.org/')).toBe(true);
     expect(attempt((event) => guard.onWillAttachWebview(event), 'about:blank')).toBe(true);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { isTrustedSender, type IpcSenderEvent } from '../../../main/electron/senderCheck';
 
-const pageUrl = 'file:///opt/whence/dist-web/index.html';
+const pageUrl = 'whence-app://app/index.html';
 const trusted = { webContentsId: () => 7, pageUrl };
 const event = (overrides: Partial<{ id: number; url: string; parent: unknown; frame: null }> = {}): IpcSenderEvent => ({
   sender: { id: overrides.id ?? 7 },
@@ -20,6 +20,9 @@ describe('isTrustedSender()', () => {
     expect(isTrustedSender(event({ parent: { url: pageUrl } }), trusted)).toBe(false);
     expect(isTrustedSender(event({ url: 'https://example.org/' }), trusted)).toBe(false);
     expect(isTrustedSender(event({ url: 'file:///tmp/evil/index.html' }), trusted)).toBe(false);
+    // The page is no longer a file: page (appProtocol.ts): the old address of the same page is not trusted either.
+    expect(isTrustedSender(event({ url: 'file:///opt/whence/dist-web/index.html' }), trusted)).toBe(false);
+    expect(isTrustedSender(event({ url: 'whence-app://other/index.html' }), trusted)).toBe(false);
     expect(isTrustedSender(event({ frame: null }), trusted)).toBe(false);
     expect(isTrustedSender(event(), { webContentsId: () => undefined, pageUrl })).toBe(false);
   });
