@@ -14,6 +14,11 @@ export function fixesToJson(records: readonly FixRecord[]): string {
 
 export interface EllipseOutline { eastMeters: number; northMeters: number; upMeters: number; semiMajorMeters: number; semiMinorMeters: number; majorAxisDegreesFromEast: number }
 
+/** Decimal places of ring positions: 1e-9 degree is about 0.1 mm, so small ellipses keep their shape after rounding. */
+const RING_DECIMALS = 9;
+/** Points tried for a ring, most first: a tiny ellipse that rounding would fold gets fewer, farther-apart points. */
+const RING_POINT_COUNTS = [72, 36, 18, 8];
+
 /** Closed ring of [lon, lat] around the ellipse, counter-clockwise as RFC 7946 asks for exterior rings. */
 export function ellipseRing(ellipse: EllipseOutline, origin: GeodeticPosition, pointCount = 72): Array<[number, number]> {
   const angle = (ellipse.majorAxisDegreesFromEast * Math.PI) / 180;
@@ -25,9 +30,50 @@ export function ellipseRing(ellipse: EllipseOutline, origin: GeodeticPosition, p
     const east = ellipse.eastMeters + u * Math.cos(angle) - v * Math.sin(angle);
     const north = ellipse.northMeters + u * Math.sin(angle) + v * Math.cos(angle);
     const geodetic = enuToGeodetic({ eastMeters: east, northMeters: north, upMeters: ellipse.upMeters }, origin);
-    ring.push([Number(geodetic.longitudeDegrees.toFixed(8)), Number(geodetic.latitudeDegrees.toFixed(8))]);
+    ring.push([Number(geodetic.longitudeDegrees.toFixed(RING_DECIMALS)), Number(geodetic.latitudeDegrees.toFixed(RING_DECIMALS))]);
   }
   return ring;
+}
+
+/**
+ * Why `ring` is not a valid exterior ring of an ellipse (RFC 7946 §3.1.6: closed, at least four positions,
+ * counterclockwise, not crossing itself), or undefined when it is. An ellipse's ring must be strictly convex: every turn
+ * to the left and one full turn in all, which also rules out any crossing.
+ */
+export function ellipseRingProblem(ring: ReadonlyArray<readonly [number, number]>): string | undefined {
+  const n = ring.length - 1;
+  if (n < 3) return 'it has fewer than four positions';
+  if (!ring.every(([x, y]) => Number.isFinite(x) && Number.isFinite(y))) return 'a position is not a finite number';
+  if (ring[0]![0] !== ring[n]![0] || ring[0]![1] !== ring[n]![1]) return 'it is not closed';
+  let turningRadians = 0;
+  for (let i = 0; i < n; i++) {
+    const [ax, ay] = ring[(i + n - 1) % n]!;
+    const [bx, by] = ring[i]!;
+    const [cx, cy] = ring[i + 1]!;
+    const ux = bx - ax, uy = by - ay, vx = cx - bx, vy = cy - by;
+    if ((ux === 0 && uy === 0) || (vx === 0 && vy === 0)) return 'two neighbouring positions are the same after rounding';
+    const cross = ux * vy - uy * vx;
+    if (!(cross > 0)) return 'after rounding it is not convex and counterclockwise (it folds or crosses itself)';
+    turningRadians += Math.atan2(cross, ux * vx + uy * vy);
+  }
+  if (Math.abs(turningRadians - 2 * Math.PI) > 1e-6) return 'it winds around more than once (it crosses itself)';
+  return undefined;
+}
+
+/** A valid ring for the ellipse (fewer points for a tiny one), or why none can be drawn at 1e-9 degree. */
+export function validEllipseRing(ellipse: EllipseOutline, origin: GeodeticPosition): { ring: Array<[number, number]> } | { problem: string } {
+  const { semiMajorMeters, semiMinorMeters } = ellipse;
+  if (!(semiMajorMeters > 0 && semiMinorMeters > 0 && Number.isFinite(semiMajorMeters) && Number.isFinite(semiMinorMeters))) {
+    return { problem: `the ellipse has no area (semi-axes ${semiMajorMeters} m and ${semiMinorMeters} m)` };
+  }
+  let problem = '';
+  for (const pointCount of RING_POINT_COUNTS) {
+    const ring = ellipseRing(ellipse, origin, pointCount);
+    const found = ellipseRingProblem(ring);
+    if (found === undefined) return { ring };
+    problem = found;
+  }
+  return { problem: `a ring of ${semiMinorMeters} m by ${semiMajorMeters} m cannot be drawn in positions rounded to 1e-${RING_DECIMALS} degree: ${problem}` };
 }
 
 /** A FeatureCollection: each fix a Point with its record as properties, and optionally its ellipse as a Polygon. */
@@ -47,11 +93,16 @@ export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPo
   for (const record of records) {
     const properties = presentFields(record);
     if (typeof record.lat !== 'number' || typeof record.lon !== 'number') continue;
-    features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [record.lon, record.lat] }, properties: { ...properties, feature: 'fix' } });
+    const fixProperties: Record<string, unknown> = { ...properties, feature: 'fix' };
+    features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [record.lon, record.lat] }, properties: fixProperties });
     const { x_m: east, y_m: north, z_m: up, semi_major_m: major, semi_minor_m: minor, major_axis_deg: axis } = record;
     if (includeEllipses && [east, north, up, major, minor, axis].every((value) => typeof value === 'number')) {
-      const ring = ellipseRing({ eastMeters: east as number, northMeters: north as number, upMeters: up as number, semiMajorMeters: major as number, semiMinorMeters: minor as number, majorAxisDegreesFromEast: axis as number }, origin);
-      features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [ring] }, properties: { event: record.event, feature: 'uncertainty-ellipse', confidence: record.confidence } });
+      const outline = validEllipseRing({ eastMeters: east as number, northMeters: north as number, upMeters: up as number, semiMajorMeters: major as number, semiMinorMeters: minor as number, majorAxisDegreesFromEast: axis as number }, origin);
+      if ('ring' in outline) {
+        features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [outline.ring] }, properties: { event: record.event, feature: 'uncertainty-ellipse', confidence: record.confidence } });
+      } else {
+        fixProperties.ellipse_warning = `The uncertainty ellipse is left out of this file: ${outline.problem}. Its size is in semi_major_m and semi_minor_m.`;
+      }
     }
   }
   const collection: Record<string, unknown> = { type: 'FeatureCollection', features };
