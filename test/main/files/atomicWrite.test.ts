@@ -33,3 +33,24 @@ describe('writeFileAtomic()', () => {
     expect(readdirSync(folder)).toEqual(['sub']);
   });
 });
+
+describe('writeFileAtomic() and leftovers of a killed write', () => {
+  // Expected: this project's rule (issue 11, DEVELOPERS.md): a leftover `.NAME.PID.TIME.tmp` is stale when its writer no
+  // longer runs on this machine or it is over an hour old; only leftovers of the target being written are touched.
+  it('writeFileAtomic() removes stale temporaries of its target and keeps a fresh one of a live writer and other files', async () => {
+    const { utimesSync } = await import('node:fs');
+    const folder = mkdtempSync(join(tmpdir(), 'whence-atomic-stale-'));
+    const target = join(folder, 'log.csv');
+    const deadWriter = '.log.csv.999999999.1700000000000.tmp';
+    const oldLiveWriter = `.log.csv.${process.ppid}.1700000000001.tmp`;
+    const freshLiveWriter = `.log.csv.${process.ppid}.${Date.now()}.tmp`;
+    const otherTarget = '.other.csv.999999999.1700000000000.tmp';
+    const unrelated = 'notes.tmp';
+    for (const name of [deadWriter, oldLiveWriter, freshLiveWriter, otherTarget, unrelated]) writeFileSync(join(folder, name), 'partial');
+    const twoHoursAgo = new Date(Date.now() - 2 * 3600 * 1000);
+    utimesSync(join(folder, oldLiveWriter), twoHoursAgo, twoHoursAgo);
+    await writeFileAtomic(target, 'new');
+    expect(readdirSync(folder).sort()).toEqual([freshLiveWriter, otherTarget, 'log.csv', unrelated].sort());
+    expect(readFileSync(target, 'utf8')).toBe('new');
+  });
+});
