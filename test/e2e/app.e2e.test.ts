@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readCsv } from '../../core/csv';
+import { speedOfSoundAirCramer } from '../../core/medium';
 import { buildCliOnce } from '../helpers/cli';
 import { chromiumAvailable, openPage, SCREENSHOT_FOLDER, startWebApp, type WebApp } from '../helpers/webApp';
 
@@ -19,6 +20,18 @@ const run = chromiumAvailable() || mustRun;
 async function demoLoaded(page: Page): Promise<number> {
   await page.waitForFunction(() => document.querySelectorAll('[data-testid^="event-row-"]').length >= 15, undefined, { timeout: 90_000 });
   return page.locator('[data-testid^="event-row-"]').count();
+}
+
+/** A checksum of every canvas the map draws into (Konva layers), to tell that a layer changed the picture. */
+async function mapCanvasChecksum(page: Page): Promise<number> {
+  return page.locator('[data-testid="map-stage"]').evaluate((stage) => {
+    let sum = 0;
+    for (const canvas of Array.from(stage.querySelectorAll('canvas'))) {
+      const pixels = canvas.getContext('2d')?.getImageData(0, 0, canvas.width, canvas.height).data ?? new Uint8ClampedArray();
+      for (let i = 0; i < pixels.length; i += 1) sum = (sum * 31 + pixels[i]!) % 2_147_483_647;
+    }
+    return sum;
+  });
 }
 
 async function firstFixX(page: Page): Promise<string> {
@@ -143,17 +156,53 @@ describe.runIf(run)('the app in a browser', () => {
     await page.locator('[data-testid="event-row-3"]').click();
     await page.locator('[data-testid="tab-correlations"]').click();
     await page.locator('[data-testid="correlations-view"]').waitFor({ state: 'visible', timeout: 15_000 });
-    for (const tab of ['correlations', 'safety', 'conditions']) {
-      await page.locator(`[data-testid="tab-${tab}"]`).click();
-      await page.waitForTimeout(1500);
-      await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-${tab}.png` });
-    }
+    // Six microphones make 15 pairs, each with its correlation card, and six autocorrelations (the demo's array).
+    await expect.poll(() => page.locator('[data-testid^="correlation-pair-"]').count(), { timeout: 15_000 }).toBe(15);
+    expect(await page.locator('[data-testid^="autocorrelation-"]').count()).toBe(6);
+    expect(await page.locator('[data-testid="correlations-view"] .cv-facts').textContent()).toMatch(/15 pairs, \d+ used in the fix/);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-correlations.png` });
+
+    // The cautions, as the README states them (DEVELOPERS.md, "Cautions").
+    await page.locator('[data-testid="tab-safety"]').click();
+    const safety = page.locator('[data-testid="safety-panel"]');
+    await safety.waitFor({ state: 'visible', timeout: 5_000 });
+    expect(await safety.locator('h2').textContent()).toBe('Before you act on a fix');
+    expect(await safety.locator('li').count()).toBe(4);
+    expect(await safety.textContent()).toMatch(/hearing protection/);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-safety.png` });
+
+    // The demo's air: 14 °C, 85 % RH, 100.9 kPa (assets/demo/scenario.ts), so Cramer's speed, to the 0.01 m/s shown.
+    await page.locator('[data-testid="tab-conditions"]').click();
+    const speed = page.locator('[data-testid="settings-speed"]');
+    await speed.waitFor({ state: 'visible', timeout: 5_000 });
+    const demoSpeed = speedOfSoundAirCramer({ temperatureCelsius: 14, relativeHumidityPercent: 85, pressureKilopascals: 100.9 }).speedMetersPerSecond;
+    expect(await speed.locator('strong').textContent()).toBe(`${demoSpeed.toFixed(2)} m/s`);
+    expect(await speed.getAttribute('data-stale')).toBe('false');
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-conditions.png` });
+
+    // Map layers: each draws a raster on the map's canvas and a legend of its own values.
     await page.locator('[data-testid="event-row-3"]').click();
+    const withoutLayer = await mapCanvasChecksum(page);
     await page.locator('[data-testid="map-layer"]').selectOption('srp');
-    await page.waitForTimeout(2000);
+    const legend = page.locator('[data-testid="map-legend-overlay"]');
+    await expect.poll(() => legend.count(), { timeout: 15_000 }).toBe(1);
+    expect(await legend.locator('.map-legend-title').textContent()).toBe('relative SRP-PHAT of the selected sound');
+    const srpRange = [Number(await legend.getAttribute('data-min-value')), Number(await legend.getAttribute('data-max-value'))];
+    expect(srpRange.every(Number.isFinite) && srpRange[0]! < srpRange[1]!).toBe(true);
+    await expect.poll(() => mapCanvasChecksum(page), { timeout: 10_000 }).not.toBe(withoutLayer);
+    const withSrp = await mapCanvasChecksum(page);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/08-layer-srp.png` });
+
     await page.locator('[data-testid="map-layer"]').selectOption('precision');
-    await page.waitForTimeout(1000);
+    await expect.poll(() => legend.locator('.map-legend-title').textContent(), { timeout: 15_000 }).toMatch(/^expected 1-σ error, m \(arrival σ 50 µs\) \(log scale\)$/);
+    const [smallest, largest] = [Number(await legend.getAttribute('data-min-value')), Number(await legend.getAttribute('data-max-value'))];
+    // c·σ = 343 m/s × 50 µs ≈ 1.7 cm sets the scale (common practice): near the middle of six microphones the error is about
+    // that (measured 1.4 cm); the colours span at most three decades (renderer/map/overlayRaster.ts).
+    expect(smallest).toBeGreaterThan(0.005);
+    expect(smallest).toBeLessThan(0.03);
+    expect(largest / smallest).toBeGreaterThan(2);
+    expect(largest / smallest).toBeLessThanOrEqual(1000 * (1 + 1e-9));
+    await expect.poll(() => mapCanvasChecksum(page), { timeout: 10_000 }).not.toBe(withSrp);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/09-layer-precision.png` });
-  }, 60_000);
+  }, 90_000);
 });
