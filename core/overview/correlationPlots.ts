@@ -117,7 +117,8 @@ export function correlationPlots(
   };
   let largestLagSeconds = 0;
   for (let a = 0; a < count; a++) for (let b = a + 1; b < count; b++) largestLagSeconds = Math.max(largestLagSeconds, spacing(a, b) / speedMetersPerSecond + marginSeconds);
-  const engine = createGccEngine(windowFrames, { sampleRateHz, weighting, bandHz, maxLagSeconds: plotRangeFactor * largestLagSeconds });
+  // Lags past the window cannot be measured: the FFT is sized by the window, however far apart the microphones are.
+  const engine = createGccEngine(windowFrames, { sampleRateHz, weighting, bandHz, maxLagSeconds: Math.min(plotRangeFactor * largestLagSeconds, Math.max(0, windowFrames - 1) / sampleRateHz) });
   channels.forEach((samples, index) => engine.setChannel(index, samples));
   const engineLagFrames = Math.min(windowFrames - 1, Math.floor(plotRangeFactor * largestLagSeconds * sampleRateHz + 1e-9));
 

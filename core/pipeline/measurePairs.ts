@@ -59,7 +59,9 @@ export function measurePairs(channels: readonly Float32Array[], microphones: rea
       pairLagsSeconds.push({ a, b, lagSeconds: pairSpacingMeters(microphones[a]!, microphones[b]!) / settings.speedMetersPerSecond + settings.lagMarginSeconds });
     }
   }
-  const engine = engineFor(windowFrames, settings, Math.max(0, maxOf(pairLagsSeconds.map((pair) => pair.lagSeconds))));
+  // No lag reaches past the window (the windows would not overlap), so the FFT is sized by the window, not the aperture.
+  const windowLagSeconds = Math.max(0, windowFrames - 1) / settings.sampleRateHz;
+  const engine = engineFor(windowFrames, settings, Math.min(windowLagSeconds, Math.max(0, maxOf(pairLagsSeconds.map((pair) => pair.lagSeconds)))));
   channels.forEach((samples, index) => engine.setChannel(index, samples));
   return pairLagsSeconds.map(({ a, b, lagSeconds }) => {
     const maxLagSeconds = Math.min(engine.maxLagSeconds, lagSeconds);
