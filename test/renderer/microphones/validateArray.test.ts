@@ -28,6 +28,16 @@ describe('validateArray()', () => {
     expect(result.rows.every((check) => check.messages.length === 0)).toBe(true);
   });
 
+  it('validateArray() marks each row past MAX_MICROPHONES (256) as an error saying the limit', () => {
+    // Expected: this project's limit (core/project MAX_MICROPHONES), as parseArrayCsv() and the project schema apply it.
+    const rows = Array.from({ length: 258 }, (_, i) => row(String(i + 1), '', String(i), String((i * i) % 97)));
+    const result = validateArray(rows);
+    expect(result.errorRowCount).toBe(2);
+    expect(result.rows[256]!.messages.map((m) => m.text)).toContain('Whence takes at most 256 microphones per array; remove this row or split the array.');
+    expect(result.rows[255]!.messages.filter((m) => m.severity === 'error')).toEqual([]);
+    expect(result.microphones).toHaveLength(256);
+  });
+
   it('validateArray() marks text in a number cell on that cell and leaves the row out, keeping the others', () => {
     const rows = [...square];
     rows[1] = row('2', 'B', 'fifty', '0');
