@@ -2,6 +2,7 @@
 // the middle, the sounds found and the survey log on the right. Heavy work runs in the pipeline worker.
 import { useMemo, useState, type DragEvent } from 'react';
 import { WHENCE_VERSION } from '../core/version';
+import { locatedVerdict } from '../core/pipeline';
 import { CorrelationsView } from './correlations';
 import { FixLogPanel, fixLogFileName } from './fixlog';
 import { detectHost } from './host';
@@ -34,7 +35,8 @@ export function App() {
   const settingsValue = useMemo(() => ({ medium: state.document.medium, settings: state.document.settings }), [state.document.medium, state.document.settings]);
   const meanUp = useMemo(() => meanUpMeters(state.document.array.microphones), [state.document.array.microphones]);
   const hyperbolae = useMemo(() => mapHyperbolae(selected), [selected]);
-  const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex), [state.events, state.selectedEventIndex]);
+  const verdicts = useMemo(() => state.events.map((located) => locatedVerdict(located, state.document.array)), [state.events, state.document.array]);
+  const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex, state.document.array), [state.events, state.selectedEventIndex, state.document.array]);
   const planeUp = planeHeightMeters(state.document, selected);
   const overlay = useMemo(() => {
     if (overlayKind === 'precision') return precisionOverlay(state.document, speedMetersPerSecond);
@@ -149,7 +151,7 @@ export function App() {
           </section>
         </main>
         <aside className="side right">
-          <EventsPanel events={state.events} selectedIndex={state.selectedEventIndex} loggedEventIndices={logged} onSelect={workspace.selectEvent} onLog={workspace.logEvents} />
+          <EventsPanel events={state.events} verdicts={verdicts} selectedIndex={state.selectedEventIndex} loggedEventIndices={logged} onSelect={workspace.selectEvent} onLog={workspace.logEvents} />
           <FixLogPanel
             entries={state.document.fixes}
             {...(state.selectedFixId !== undefined ? { selectedId: state.selectedFixId } : {})}

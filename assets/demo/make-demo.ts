@@ -76,7 +76,7 @@ export function demoDelaysCsv(): string {
  */
 export function demoProject(recording: { sizeBytes: number; frameCount: number }): ProjectDocument {
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     name: 'Quillmere Pond dawn survey (invented demo)',
     array: {
       microphones: DEMO_MICROPHONES.map((m) => ({ channel: m.channel, label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: DEMO_SITE.surveySigmaMeters })),

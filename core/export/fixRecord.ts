@@ -1,13 +1,13 @@
 // One flat record per located event, with units in every key, as the command line and the app export it.
 // Angles of the ellipse are counter-clockwise from east (+x), in degrees; positions in local metres and WGS84.
 import { enuToGeodetic, type GeodeticPosition } from '../geo';
-import type { SolveResult } from '../locate';
+import type { SolveResult, Verdict } from '../locate';
 
 export type FixRecordValue = string | number | undefined;
 export type FixRecord = Record<string, FixRecordValue>;
 
-export const FIX_COLUMNS_2D = ['event', 'status', 'x_m', 'y_m', 'z_m', 'lat', 'lon', 'alt_m', 'cov_xx_m2', 'cov_xy_m2', 'cov_yy_m2', 'semi_major_m', 'semi_minor_m', 'major_axis_deg', 'confidence', 'residual_rms_s', 'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_used', 'pairs_dropped', 'alternative_x_m', 'alternative_y_m', 'warnings'] as const;
-export const FIX_COLUMNS_3D = [...FIX_COLUMNS_2D.slice(0, 11), 'cov_zz_m2', 'cov_xz_m2', 'cov_yz_m2', ...FIX_COLUMNS_2D.slice(11), 'alternative_z_m'] as const;
+export const FIX_COLUMNS_2D = ['event', 'status', 'verdict', 'verdict_reason', 'x_m', 'y_m', 'z_m', 'lat', 'lon', 'alt_m', 'cov_xx_m2', 'cov_xy_m2', 'cov_yy_m2', 'semi_major_m', 'semi_minor_m', 'major_axis_deg', 'confidence', 'residual_rms_s', 'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_used', 'pairs_dropped', 'alternative_x_m', 'alternative_y_m', 'warnings'] as const;
+export const FIX_COLUMNS_3D = [...FIX_COLUMNS_2D.slice(0, 13), 'cov_zz_m2', 'cov_xz_m2', 'cov_yz_m2', ...FIX_COLUMNS_2D.slice(13), 'alternative_z_m'] as const;
 
 function finiteOrUndefined(value: number | undefined): number | undefined {
   return value !== undefined && Number.isFinite(value) ? value : undefined;
@@ -30,8 +30,10 @@ export function presentFields(record: FixRecord): FixRecord {
   return Object.fromEntries(Object.entries(record).filter(([, value]) => value !== undefined && value !== ''));
 }
 
-export function fixRecord(event: string, result: SolveResult, dimensions: 2 | 3, origin: GeodeticPosition | undefined): FixRecord {
+/** `verdict`: the plain-words verdict (core/locate fixVerdict), written as `verdict` and `verdict_reason` beside the status. */
+export function fixRecord(event: string, result: SolveResult, dimensions: 2 | 3, origin: GeodeticPosition | undefined, verdict?: Pick<Verdict, 'grade' | 'reason'>): FixRecord {
   const record: FixRecord = { event, status: result.status, warnings: result.warnings.join(' | ') };
+  if (verdict !== undefined) Object.assign(record, { verdict: verdict.grade, verdict_reason: verdict.reason });
   const fix = result.fix;
   if (fix === undefined) return record;
   const covariance = fix.covarianceMeters2;

@@ -5,7 +5,7 @@ import { formatCsv, type CsvValue } from '../csv';
 import type { GeodeticPosition } from '../geo';
 import type { ArrayGeometry } from '../project';
 import { median } from '../locate';
-import type { LocatedEvent } from '../pipeline';
+import { locatedVerdict, type LocatedEvent } from '../pipeline';
 import { fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, presentFields, roundDecimals, type FixRecord } from './fixRecord';
 import { minOf } from '../units';
 
@@ -24,12 +24,12 @@ const LOCATE_COLUMNS = ['time_s', 'arrival_s', 'local_time', 'band_low_hz', 'ban
 
 export function surveyLogColumns(dimensions: 2 | 3): string[] {
   const base = dimensions === 3 ? [...FIX_COLUMNS_3D] : [...FIX_COLUMNS_2D];
-  return [base[0]!, base[1]!, ...LOCATE_COLUMNS, ...base.slice(2)];
+  return [...base.slice(0, 4), ...LOCATE_COLUMNS, ...base.slice(4)];
 }
 
 export function locatedEventRecord(located: LocatedEvent, context: SurveyLogContext): FixRecord {
   const eventName = String(located.event.index + 1);
-  const record = fixRecord(eventName, { ...located.solve, warnings: [...located.warnings, ...located.solve.warnings] }, context.dimensions, context.geometry.origin);
+  const record = fixRecord(eventName, { ...located.solve, warnings: [...located.warnings, ...located.solve.warnings] }, context.dimensions, context.geometry.origin, locatedVerdict(located, context.geometry));
   const arrivalSeconds = located.firstArrivalSeconds;
   Object.assign(record, {
     time_s: roundDecimals(located.emissionTimeSeconds, 4),

@@ -1,5 +1,6 @@
 // Consistency checks of pair delays before a fit: the physical limit |tau_ab| <= d_ab / c + tolerance, and triplet
 // closure tau_ab + tau_bc + tau_ca = 0 within the combined sigma (both follow from the definition of a TDOA). Seconds.
+import { chiSquareQuantile } from './chiSquare';
 import type { DelayMeasurement, Microphone } from './types';
 
 export interface LimitViolation {
@@ -82,4 +83,49 @@ export function closureFailures(
     }
   }
   return out;
+}
+
+/** Number of closed triplets among the usable delays (every pair of the three measured). */
+export function closedTripletCount(micCount: number, delays: readonly DelayMeasurement[], usable: ArrayLike<boolean>): number {
+  const n = micCount;
+  const measured = new Uint8Array(n * n);
+  delays.forEach((delay, k) => {
+    if (!usable[k]) return;
+    measured[delay.indexA * n + delay.indexB] = 1;
+    measured[delay.indexB * n + delay.indexA] = 1;
+  });
+  let count = 0;
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      if (!measured[a * n + b]) continue;
+      for (let c = b + 1; c < n; c++) if (measured[b * n + c] && measured[a * n + c]) count++;
+    }
+  }
+  return count;
+}
+
+export interface ClosureTest {
+  /** Closed triplets tested. */
+  tested: number;
+  /** Misclosure limit in combined sigmas: two-sided normal at `level`, Bonferroni over the triplets tested. */
+  sigmaLimit: number;
+  failures: ClosureFailure[];
+}
+
+/**
+ * Triplet closure as a test at significance `level` for the whole set: each triplet's misclosure against
+ * z(1 - level / (2 T)) combined sigmas, T the number of triplets (Bonferroni), so a consistent set fails with probability <= level.
+ */
+export function closureTest(
+  micCount: number,
+  delays: readonly DelayMeasurement[],
+  usable: ArrayLike<boolean>,
+  sigmaSeconds: (delayIndex: number) => number,
+  level: number,
+): ClosureTest {
+  const tested = closedTripletCount(micCount, delays, usable);
+  if (tested === 0) return { tested, sigmaLimit: Number.POSITIVE_INFINITY, failures: [] };
+  // z(1 - a/2)^2 is the chi-square (1 dof) quantile at 1 - a.
+  const sigmaLimit = Math.sqrt(chiSquareQuantile(1 - level / tested, 1));
+  return { tested, sigmaLimit, failures: closureFailures(micCount, delays, usable, sigmaSeconds, sigmaLimit) };
 }

@@ -5,7 +5,7 @@ import { arrayShape, reflectAcrossAxis } from './arrayShape';
 import { buildProblem, relativeTimesForClosedForm } from './buildProblem';
 import { chiSquareQuantile, chiSquareUpperTail } from './chiSquare';
 import { closedFormStarts } from './closedForm';
-import { closureFailures, physicalLimitViolations } from './delayChecks';
+import { closureFailures, closureTest, physicalLimitViolations } from './delayChecks';
 import { connectedComponents, graphRank } from './delayGraph';
 import { errorEllipse, errorEllipsoid } from './errorEllipse';
 import { median } from './median';
@@ -130,6 +130,15 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
     }
     return [...seen].sort((a, b) => a - b);
   };
+  const groups = connectedComponents(microphones.length, { a: delays.map((d) => d.indexA), b: delays.map((d) => d.indexB), active: usable.map((u) => (u ? 1 : 0)) });
+  if (groups.length > 1 && graphRank(groups.slice(0, 1)) < dims && graphRank(groups) >= dims) {
+    const named = groups.map((group) => group.map(label).join('-')).join('; ');
+    return insufficient(
+      `The pairs form ${groups.length} separate groups of microphones with no microphone in common (${named}): no group alone fixes a point ` +
+        `(two microphones give a hyperbola) and one group's delays cannot be checked against another's; ${needed} within one group. ` +
+        'Measure pairs that link the groups.',
+    );
+  }
   const rank = rankOf(problem);
   if (rank < dims) {
     if (usedMics().length === 2) return insufficient(`Two microphones give one delay: the source lies somewhere on a hyperbola, not at a point; ${needed}.`);
@@ -266,7 +275,6 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
         'so the position is poorly determined along the ellipse major axis.',
     );
   }
-  const status = alternative ? 'ambiguous' : illConditioned ? 'ill-conditioned' : 'ok';
 
   // Residuals per input delay at the fix.
   updateGeometry(problem, p);
@@ -290,6 +298,28 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
     return residual;
   });
   const used = residuals.filter((r) => r.used);
+
+  // Consistency at the final sigma: the chi-square test, and the closure of the delays still used (in the arrival-time
+  // model the pairs' closure is not part of the chi-square).
+  const finalPairSigma = (k: number): number => pairSigma[k] / Math.sqrt(weightScale);
+  const closure = closureTest(microphones.length, delays, residuals.map((r) => r.used), finalPairSigma, level);
+  if (closure.failures.length > 0) {
+    const worst = closure.failures.reduce((a, b) => (Math.abs(a.misclosureSeconds) / a.sigmaSeconds >= Math.abs(b.misclosureSeconds) / b.sigmaSeconds ? a : b));
+    const [a, b, c] = worst.microphones.map(label);
+    warnings.push(
+      `${closure.failures.length} of ${closure.tested} triplet(s) of the delays used still do not close at the test level (limit ${closure.sigmaLimit.toFixed(2)} sigma); ` +
+        `worst ${a}-${b} + ${b}-${c} + ${c}-${a} = ${formatMs(worst.misclosureSeconds)} (${(Math.abs(worst.misclosureSeconds) / worst.sigmaSeconds).toFixed(1)} sigma).`,
+    );
+  }
+  const inconsistent = (dof > 0 && !consistent) || closure.failures.length > 0;
+  if (inconsistent) {
+    warnings.push(
+      'Status inconsistent: the delays contradict each other beyond their sigmas' +
+        (mode === 'default' ? ` (the assumed ${formatMs(defaultSigma)}; state sigma_s or --timing-sigma if yours is larger)` : '') +
+        ', so the position and its ellipse cannot be trusted. Check the channel order, the peaks chosen (echoes) and the survey.',
+    );
+  }
+  const status = inconsistent ? 'inconsistent' : alternative ? 'ambiguous' : illConditioned ? 'ill-conditioned' : 'ok';
   const residualRmsSeconds = used.length > 0 ? Math.sqrt(used.reduce((s, r) => s + r.residualSeconds ** 2, 0) / used.length) : 0;
 
   const covarianceNested = toNested(covariance, dims);
@@ -320,6 +350,7 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
     },
     conditionNumber,
   };
+  if (problem.mode === 'arrival-times' && droppedRowReasons.size > 0) fix.droppedArrivals = [...droppedRowReasons.keys()].map((row) => problem.rowA[row]);
   if (dims === 3) fix.ellipsoid = errorEllipsoid(covarianceNested, confidence);
   if (alternative) fix.alternative = alternative;
 
@@ -351,3 +382,4 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
   }
   return { status, fix, warnings };
 }
+

@@ -19,7 +19,11 @@ export interface DelayMeasurement {
   sigmaSeconds?: number;
 }
 
-export type FixStatus = 'ok' | 'ambiguous' | 'ill-conditioned' | 'insufficient' | 'invalid-input';
+/**
+ * `ok`: consistent delays (closure and chi-square pass at the test level) and a determined geometry. `inconsistent`: a
+ * position exists but the delays contradict each other beyond their sigmas. The others say what else is wrong.
+ */
+export type FixStatus = 'ok' | 'ambiguous' | 'ill-conditioned' | 'inconsistent' | 'insufficient' | 'invalid-input';
 
 /**
  * How the delay errors are correlated.
@@ -123,6 +127,8 @@ export interface Fix {
   timingSigmaSeconds: number;
   pairsUsed: number;
   droppedPairs: PairResidual[];
+  /** Arrival-time model: microphones whose arrival time was dropped as an outlier. */
+  droppedArrivals?: number[];
   budget: UncertaintyBudget;
   monteCarloCovarianceMeters2?: number[][];
   emissionTimeSeconds?: number;

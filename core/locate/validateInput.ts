@@ -12,6 +12,10 @@ function finite(value: unknown): value is number {
 
 /** Distance below which two microphones count as the same position, metres. */
 export const DUPLICATE_DISTANCE_METERS = 1e-9;
+/** Largest distance between two microphones: one flat local frame and one speed of sound are meant for arrays up to this, metres. */
+export const MAX_APERTURE_METERS = 50_000;
+/** Largest local coordinate: beyond this a microphone is off the Earth's local tangent plane (or not in metres), metres. */
+export const MAX_LOCAL_COORDINATE_METERS = 1_000_000;
 
 export function validateInput(microphones: readonly Microphone[], delays: readonly DelayMeasurement[], options: SolveOptions): string[] {
   const problems: string[] = [];
@@ -86,6 +90,32 @@ export function validateInput(microphones: readonly Microphone[], delays: readon
     }
   });
   if (problems.length > 0) return problems;
+
+  microphones.forEach((mic, i) => {
+    const largest = Math.max(Math.abs(mic.eastMeters), Math.abs(mic.northMeters), Math.abs(mic.upMeters));
+    if (largest > MAX_LOCAL_COORDINATE_METERS) {
+      problems.push(
+        `microphones[${i}] ('${mic.label}') is ${largest.toExponential(2)} m from the origin of the local frame, beyond ${MAX_LOCAL_COORDINATE_METERS / 1000} km: ` +
+          'local east/north/up metres only hold near one tangent plane of the Earth. Check the units (metres) and the coordinates, or put the origin at the array.',
+      );
+    }
+  });
+  if (problems.length > 0) return problems;
+  let apertureMeters = 0;
+  for (let i = 0; i < microphones.length; i++) {
+    for (let j = i + 1; j < microphones.length; j++) {
+      const a = microphones[i];
+      const b = microphones[j];
+      apertureMeters = Math.max(apertureMeters, Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters));
+    }
+  }
+  if (apertureMeters > MAX_APERTURE_METERS) {
+    problems.push(
+      `The microphones span ${(apertureMeters / 1000).toPrecision(3)} km, more than ${MAX_APERTURE_METERS / 1000} km: one flat local frame and one speed of sound ` +
+        'do not hold over such a distance. Check the units (metres) and the coordinates, or split the array.',
+    );
+    return problems;
+  }
 
   for (let i = 0; i < microphones.length; i++) {
     for (let j = i + 1; j < microphones.length; j++) {

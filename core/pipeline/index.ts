@@ -3,6 +3,8 @@ export { recordingAccess, type RecordingAccess } from './recording';
 export { mapArrayToRecording, type ChannelMapping } from './channelMap';
 export { measurePairs, type PairMeasurement, type PairSettings } from './measurePairs';
 export { reducePairsToReference, type ReducedDelays } from './reducePairs';
+export { locatedVerdict } from './locatedVerdict';
+export { applyReductionCheck, reductionCheck, REDUCTION_TEST_LEVEL, type ReductionCheck } from './reductionCheck';
 export { DEFAULT_LOCATE_SETTINGS, type LocateSettings } from './settings';
 export { lagMarginSeconds, locateEvent, solveOptions, solveWithHonestSigma, toSolverMicrophones, type LocateContext, type LocatedEvent } from './locateEvent';
 export { runPipeline, type CancelSignal, type PipelineOptions, type PipelineProgress, type PipelineResult } from './runPipeline';

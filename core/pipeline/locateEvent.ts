@@ -8,6 +8,7 @@ import { maxArrayDelaySeconds } from './channelMap';
 import { measurePairs, type PairMeasurement } from './measurePairs';
 import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
+import { applyReductionCheck } from './reductionCheck';
 import { MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
 import { maxOf, minOf } from '../units';
 
@@ -178,7 +179,7 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
   const solve: SolveResult = reduced.delays.length > 0
-    ? solveWithHonestSigma(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds), warnings)
+    ? applyReductionCheck(solveWithHonestSigma(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds), warnings), reduced)
     : { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
   let emissionTimeSeconds: number | undefined;
   let firstArrivalSeconds = onset?.seconds ?? event.startSeconds;

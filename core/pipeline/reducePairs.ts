@@ -13,6 +13,11 @@ export interface ReducedDelays {
   droppedPairs: Array<{ indexA: number; indexB: number; normalisedResidual: number }>;
   /** Residual scatter over the stated sigmas (>= 1 inflates the sigma). */
   scatterFactor: number;
+  /**
+   * Closure of the pairs kept: cost = sum of (residual / pair sigma)² at the pairs' own sigmas, its degrees of freedom
+   * (pairs kept minus microphones plus one), and the arrival sigma those pair sigmas correspond to (sqrt(median sigma²) / sqrt 2).
+   */
+  closure: { cost: number; degreesOfFreedom: number; unitArrivalSigmaSeconds: number };
   warnings: string[];
 }
 
@@ -84,7 +89,7 @@ export function reducePairsToReference(microphoneCount: number, pairs: readonly 
     offsets = candidateOffsets;
   }
   if (offsets === undefined) {
-    return { delays: [], referenceIndex, arrivalSigmaSeconds: Number.NaN, droppedPairs, scatterFactor: Number.NaN, warnings: ['The measured pairs do not connect every microphone, so no arrival times could be formed.'] };
+    return { delays: [], referenceIndex, arrivalSigmaSeconds: Number.NaN, droppedPairs, scatterFactor: Number.NaN, closure: { cost: Number.NaN, degreesOfFreedom: 0, unitArrivalSigmaSeconds: Number.NaN }, warnings: ['The measured pairs do not connect every microphone, so no arrival times could be formed.'] };
   }
   const residuals = normalisedResiduals(offsets, active);
   const redundancy = active.length - (microphoneCount - 1);
@@ -100,5 +105,10 @@ export function reducePairsToReference(microphoneCount: number, pairs: readonly 
     if (index === referenceIndex) continue;
     delays.push({ indexA: index, indexB: referenceIndex, delaySeconds: offsets[index]!, sigmaSeconds: arrivalSigmaSeconds * Math.SQRT2 });
   }
-  return { delays, referenceIndex, arrivalSigmaSeconds, droppedPairs, scatterFactor, warnings };
+  const closure = {
+    cost: residuals.reduce((sum, r) => sum + r * r, 0),
+    degreesOfFreedom: redundancy,
+    unitArrivalSigmaSeconds: Math.sqrt(median(active.map(({ pair }) => pair.sigmaSeconds * pair.sigmaSeconds))) / Math.SQRT2,
+  };
+  return { delays, referenceIndex, arrivalSigmaSeconds, droppedPairs, scatterFactor, closure, warnings };
 }

@@ -3,6 +3,7 @@
 import { cellNumber, cellText, CsvError, hasColumn, readCsv, requireColumns, type CsvTable } from '../csv';
 import { ecefToGeodetic, geodeticToEcef, geodeticToEnu, type GeodeticPosition } from '../geo';
 import { MAX_MICROPHONES, type ArrayGeometry, type ArrayMicrophone } from './arrayGeometry';
+import { arrayExtentProblems } from './arrayExtent';
 import { maxOf } from '../units';
 import { printableText } from '../text';
 
@@ -69,7 +70,7 @@ export function parseArrayCsv(text: string, fileName: string, givenOrigin?: Geod
 
   const warnings: string[] = [];
   if (!hasColumn(table, 'sigma_m')) warnings.push("The array table has no sigma_m column, so microphone positions are treated as exact. Add sigma_m (each position's survey standard deviation in metres) to include survey error in the uncertainty.");
-  if (local) return { microphones, origin: givenOrigin, warnings };
+  if (local) return checkedExtent({ microphones, origin: givenOrigin, warnings }, fileName);
   const origin = givenOrigin ?? centroidOrigin(geodetic);
   geodetic.forEach((position, index) => {
     const enu = geodeticToEnu(position, origin);
@@ -80,5 +81,12 @@ export function parseArrayCsv(text: string, fileName: string, givenOrigin?: Geod
   });
   const spanMeters = maxOf(microphones.map((m) => Math.hypot(m.eastMeters, m.northMeters)));
   if (spanMeters > 20_000) warnings.push(`The microphones lie up to ${(spanMeters / 1000).toFixed(1)} km from the origin; check the coordinates (a swapped or mistyped lat/lon?).`);
-  return { microphones, origin, warnings };
+  return checkedExtent({ microphones, origin, warnings }, fileName);
+}
+
+/** Refuses an array that does not fit one local frame (see arrayExtent.ts), naming the first problem. */
+function checkedExtent(geometry: ArrayGeometry, fileName: string): ArrayGeometry {
+  const problems = arrayExtentProblems(geometry.microphones, geometry.origin);
+  if (problems.length > 0) throw new CsvError({ fileName }, problems.join(' Also, '));
+  return geometry;
 }

@@ -4,9 +4,9 @@ import { z } from 'zod';
 import { WhenceError } from '../errors';
 import { WHENCE_VERSION } from '../version';
 import { CURRENT_PROJECT_SCHEMA_VERSION, migrateProjectData } from './migrations';
-import { projectDocumentSchemaV1 } from './schema';
+import { projectDocumentSchemaV2 } from './schema';
 
-export type ProjectDocument = z.infer<typeof projectDocumentSchemaV1>;
+export type ProjectDocument = z.infer<typeof projectDocumentSchemaV2>;
 export type ProjectMedium = ProjectDocument['medium'];
 export type ProjectSettings = ProjectDocument['settings'];
 export type ProjectArray = ProjectDocument['array'];
@@ -15,7 +15,7 @@ export type FixLogEntry = ProjectDocument['fixes'][number];
 export type MapView = NonNullable<ProjectDocument['view']>;
 
 /** The schema of the version this Whence writes. */
-export const projectDocumentSchema = projectDocumentSchemaV1;
+export const projectDocumentSchema = projectDocumentSchemaV2;
 
 export interface ReadProjectResult {
   document: ProjectDocument;

@@ -1,5 +1,6 @@
 // The user's documents: the microphone array and tables of measured delays.
 export { MAX_MICROPHONES, type ArrayGeometry, type ArrayMicrophone } from './arrayGeometry';
+export { arrayExtentProblems, MAX_ARRAY_APERTURE_METERS, MAX_ORIGIN_DISTANCE_METERS, ORIGIN_HEIGHT_RANGE_METERS } from './arrayExtent';
 export { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, parseArrayCsv } from './arrayCsv';
 export { parseDelaysCsv, type DelayEvent, type DelayRow } from './delaysCsv';
 export {
@@ -33,4 +34,4 @@ export {
   type ProjectData,
   type ProjectMigration,
 } from './migrations';
-export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV1 } from './schema';
+export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV2 } from './schema';

@@ -22,10 +22,37 @@ export interface MigrationRegistry {
   migrations: readonly ProjectMigration[];
 }
 
-export const CURRENT_PROJECT_SCHEMA_VERSION = 1;
+export const CURRENT_PROJECT_SCHEMA_VERSION = 2;
 
-/** Version 1 is the first: there is nothing to migrate yet. Add a step here with each new version (and a frozen fixture). */
-export const PROJECT_MIGRATIONS: readonly ProjectMigration[] = [];
+/** Verdicts of fixes logged before verdicts existed: judged from their status alone (what version 1 kept). */
+const VERDICT_FROM_V1_STATUS: Record<string, { grade: string; reason: string }> = {
+  ok: { grade: 'doubtful', reason: 'Logged before verdicts: locate it again to judge it.' },
+  ambiguous: { grade: 'doubtful', reason: 'Two spots fit equally: check the other one.' },
+  'ill-conditioned': { grade: 'doubtful', reason: 'Poor geometry: long ellipse.' },
+  insufficient: { grade: 'unusable', reason: 'Too few usable time differences to place it.' },
+  'invalid-input': { grade: 'unusable', reason: 'The input has errors: see the warnings.' },
+};
+
+/** Add a step here with each new version (and a frozen fixture under test/fixtures/projects). */
+export const PROJECT_MIGRATIONS: readonly ProjectMigration[] = [
+  {
+    fromVersion: 1,
+    summary: 'each logged fix gets a verdict (firm, doubtful or unusable) with its main reason; fixes logged before are judged from their status alone, an ok fix as doubtful until it is located again',
+    migrate: (data) => {
+      const fixes = data.fixes;
+      if (!Array.isArray(fixes)) return data;
+      return {
+        ...data,
+        fixes: fixes.map((entry: unknown) => {
+          if (typeof entry !== 'object' || entry === null || Array.isArray(entry)) return entry;
+          const status = (entry as Record<string, unknown>).status;
+          const verdict = typeof status === 'string' ? VERDICT_FROM_V1_STATUS[status] : undefined;
+          return verdict === undefined ? entry : { ...entry, verdict: { ...verdict } };
+        }),
+      };
+    },
+  },
+];
 
 export const PROJECT_MIGRATION_REGISTRY: MigrationRegistry = Object.freeze({
   firstVersion: 1,

@@ -1,8 +1,8 @@
-// The zod schema of the project document, schema version 1: array, medium, settings, recording reference, fix log, map view.
+// The zod schema of the project document, schema version 2: array, medium, settings, recording reference, fix log, map view.
 // Positions in local east/north/up metres, times in seconds (from the start of the recording), frequencies in Hz.
 import { z } from 'zod';
 import { gccWeightings, type GccWeighting } from '../dsp';
-import type { FixStatus } from '../locate';
+import { VERDICT_GRADES, type FixStatus, type VerdictGrade } from '../locate';
 import { MAX_MICROPHONES } from './arrayGeometry';
 
 const MAX_LABEL_CHARS = 200;
@@ -11,7 +11,7 @@ const MAX_NOTE_CHARS = 10_000;
 /** Bounds that keep a document (and an IPC message carrying one) a sensible size. */
 export const PROJECT_LIMITS = Object.freeze({ microphones: MAX_MICROPHONES, fixes: 100_000, warningsPerFix: 100 });
 
-export const FIX_STATUSES = ['ok', 'ambiguous', 'ill-conditioned', 'insufficient', 'invalid-input'] as const satisfies readonly FixStatus[];
+export const FIX_STATUSES = ['ok', 'ambiguous', 'ill-conditioned', 'inconsistent', 'insufficient', 'invalid-input'] as const satisfies readonly FixStatus[];
 
 const label = z.string().max(MAX_LABEL_CHARS);
 const filePath = z.string().min(1).max(MAX_PATH_CHARS);
@@ -121,6 +121,8 @@ export const fixLogEntrySchema = z
     /** Wall-clock time of the first arrival when the recording carries a start time (ISO 8601 text). */
     localTime: z.string().max(MAX_LABEL_CHARS).optional(),
     status: z.enum(FIX_STATUSES),
+    /** The plain-words verdict (core/locate fixVerdict): grade and main reason (version 2 on). */
+    verdict: z.object({ grade: z.enum(VERDICT_GRADES as readonly VerdictGrade[] as [VerdictGrade, ...VerdictGrade[]]), reason: z.string().max(MAX_LABEL_CHARS) }),
     eastMeters: z.number().optional(),
     northMeters: z.number().optional(),
     upMeters: z.number().optional(),
@@ -154,9 +156,9 @@ export const mapViewSchema = z.object({
   metersPerPixel: z.number().positive(),
 });
 
-export const projectDocumentSchemaV1 = z
+export const projectDocumentSchemaV2 = z
   .object({
-    schemaVersion: z.literal(1),
+    schemaVersion: z.literal(2),
     name: z.string().max(MAX_LABEL_CHARS),
     /** The Whence that last saved the file (e.g. "Whence 0.1.0"); set when the document is serialized. */
     writtenBy: z.string().max(MAX_LABEL_CHARS).optional(),

@@ -72,7 +72,7 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
                 <th colSpan={2} className="fl-group">Time</th>
                 <th colSpan={(showUp ? 3 : 2) + (geo ? 1 : 0)} className="fl-group">Position</th>
                 <th colSpan={3} className="fl-group">Ellipse</th>
-                <th colSpan={4} className="fl-group">Quality</th>
+                <th colSpan={5} className="fl-group">Quality</th>
                 <th colSpan={2} />
               </tr>
               <tr>
@@ -87,6 +87,7 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
                 <th scope="col" className="fl-num" title="Semi-major × semi-minor axis">a × b (m)</th>
                 <th scope="col" className="fl-num" title="Major axis, counter-clockwise from east">Axis (°)</th>
                 <th scope="col" className="fl-num">Conf.</th>
+                <th scope="col" title="Plain-words verdict: firm (act on it), doubtful (check it first), unusable (do not act on it), with its main reason">Verdict</th>
                 <th scope="col">Status</th>
                 <th scope="col" className="fl-num" title="Root-mean-square residual of the time differences">RMS resid.</th>
                 <th scope="col" className="fl-num" title="Microphone pairs used in the fix">Pairs</th>
@@ -140,6 +141,10 @@ function FixRow({ row, entry, selected, showUp, geo, onSelect, onUpdate }: FixRo
       <td className="fl-num">{row.axesText}</td>
       <td className="fl-num">{row.angleText}</td>
       <td className="fl-num">{row.confidenceText}</td>
+      <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict}>
+        <span className="fl-verdict-grade"><span className="fl-verdict-symbol" style={{ color: row.verdictColour }} aria-hidden="true">{row.verdictText.slice(0, 1)}</span> {row.verdict}</span>
+        <span className="fl-verdict-reason">{row.verdictReason}</span>
+      </td>
       <td>
         <span className={`fl-status fl-tone-${row.statusTone}`}>{row.statusText}</span>
         {row.warnings.length > 0 && (

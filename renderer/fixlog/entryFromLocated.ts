@@ -1,12 +1,15 @@
 // A fix log entry from a located event of the pipeline: what the project file keeps of it (position, covariance, ellipse, quality).
 // Units: seconds from the start of the recording, local east/north/up metres, square metres.
 import { formatStartTime, type WavStartTime } from '../../core/audio';
+import type { Verdict } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry } from '../../core/project';
 import { minOf } from '../../core/units';
 
 export interface EntryOptions {
   id: string;
+  /** The fix's verdict (core/pipeline locatedVerdict against the array in use), kept with the entry. */
+  verdict: Pick<Verdict, 'grade' | 'reason'>;
   /** The recording's start time, for the local clock time of the first arrival. */
   recordingStartTime?: WavStartTime;
   sampleRateHz?: number;
@@ -25,6 +28,7 @@ export function fixLogEntryFromLocated(located: LocatedEvent, options: EntryOpti
     eventIndex: located.event.index,
     firstArrivalSeconds: located.firstArrivalSeconds,
     status: located.solve.status,
+    verdict: { grade: options.verdict.grade, reason: options.verdict.reason },
     pairsUsed: fix?.pairsUsed ?? 0,
     label: options.label ?? '',
     note: options.note ?? '',

@@ -66,7 +66,7 @@ function entryRecord(entry: FixLogEntry, context: FixLogContext): FixRecord {
   if (located !== undefined) {
     record = locatedEventRecord(located, context);
   } else {
-    record = fixRecord(String(entry.eventIndex + 1), entrySolve(entry), context.dimensions, context.geometry.origin);
+    record = fixRecord(String(entry.eventIndex + 1), entrySolve(entry), context.dimensions, context.geometry.origin, entry.verdict);
     for (const column of COLUMNS_NEEDING_LOCATED_EVENT) record[column] = undefined;
     if (record.x_m !== undefined) record.confidence = entry.ellipse?.confidence;
     const arrivalSeconds = entry.firstArrivalSeconds;

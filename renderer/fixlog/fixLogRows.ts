@@ -4,6 +4,8 @@ import { enuToGeodetic, type GeodeticPosition } from '../../core/geo';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry } from '../../core/project';
 import { minPeakRatio } from './entryFromLocated';
+import type { VerdictGrade } from '../../core/locate';
+import { VERDICT_STYLES, verdictLabel } from '../verdict';
 
 export type StatusTone = 'good' | 'doubtful' | 'failed';
 
@@ -25,6 +27,12 @@ export interface FixLogRow {
   confidenceText: string;
   statusText: string;
   statusTone: StatusTone;
+  verdict: VerdictGrade;
+  /** "△ doubtful" */
+  verdictText: string;
+  verdictColour: string;
+  /** The main reason, one short sentence. */
+  verdictReason: string;
   residualText: string;
   pairsText: string;
   peakRatioText: string;
@@ -64,6 +72,7 @@ const STATUS_TEXT: Record<FixLogEntry['status'], { text: string; tone: StatusTon
   ok: { text: 'ok', tone: 'good' },
   ambiguous: { text: 'ambiguous', tone: 'doubtful' },
   'ill-conditioned': { text: 'ill-conditioned', tone: 'doubtful' },
+  inconsistent: { text: 'inconsistent', tone: 'failed' },
   insufficient: { text: 'insufficient', tone: 'failed' },
   'invalid-input': { text: 'invalid input', tone: 'failed' },
 };
@@ -97,6 +106,10 @@ export function fixLogRows(entries: readonly FixLogEntry[], origin: GeodeticPosi
       confidenceText: ellipse !== undefined ? `${Number((ellipse.confidence * 100).toPrecision(3))} %` : DASH,
       statusText: status.text,
       statusTone: status.tone,
+      verdict: entry.verdict.grade,
+      verdictText: verdictLabel(entry.verdict.grade),
+      verdictColour: VERDICT_STYLES[entry.verdict.grade].colour,
+      verdictReason: entry.verdict.reason,
       residualText: entry.residualRmsSeconds !== undefined ? formatResidual(entry.residualRmsSeconds) : DASH,
       pairsText: String(entry.pairsUsed),
       peakRatioText: ratio !== undefined && Number.isFinite(ratio) ? ratio.toFixed(2) : DASH,

@@ -2,17 +2,33 @@
 import { cssGradient } from './colourScale';
 import type { OverlayLegend } from './overlayRaster';
 import { QUALITY_SCALE } from './qualityColour';
+import { VERDICT_ORDER, VERDICT_STYLES } from '../verdict';
 
 export interface MapLegendProps {
   showHyperbolae: boolean;
+  /** Explain the fix markers (colour and shape by verdict). */
+  showFixes?: boolean;
   overlay: OverlayLegend | null;
   overlayError: string | null;
 }
 
-export function MapLegend({ showHyperbolae, overlay, overlayError }: MapLegendProps) {
-  if (!showHyperbolae && overlay === null && overlayError === null) return null;
+export function MapLegend({ showHyperbolae, showFixes = false, overlay, overlayError }: MapLegendProps) {
+  if (!showHyperbolae && !showFixes && overlay === null && overlayError === null) return null;
   return (
     <div className="map-legend" data-testid="map-legend">
+      {showFixes && (
+        <div className="map-legend-row" data-testid="map-legend-fixes">
+          <div className="map-legend-title">fixes: verdict</div>
+          <ul className="map-legend-verdicts">
+            {VERDICT_ORDER.map((grade) => (
+              <li key={grade} data-testid={`map-legend-verdict-${grade}`}>
+                <span className="map-legend-symbol" style={{ color: VERDICT_STYLES[grade].colour }} aria-hidden="true">{VERDICT_STYLES[grade].symbol}</span>
+                <strong>{grade}</strong>: {VERDICT_STYLES[grade].advice}
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
       {showHyperbolae && (
         <div className="map-legend-row" data-testid="map-legend-hyperbolae">
           <div className="map-legend-title">hyperbolae: delay quality</div>

@@ -4,7 +4,7 @@
 
 import type Konva from 'konva';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ComponentProps, type KeyboardEvent } from 'react';
-import { Circle, Group, Image as KonvaImage, Layer, Line, Rect, Stage, Text } from 'react-konva';
+import { Circle, Group, Image as KonvaImage, Layer, Line, Rect, RegularPolygon, Stage, Text } from 'react-konva';
 import { WhenceError } from '../../core/errors';
 import type { LabelBox } from './curveLabels';
 import { fixShapes, type FixShape } from './fixShapes';
@@ -20,6 +20,7 @@ import { microphoneMarkers } from './microphoneMarkers';
 import { overlayRaster, type OverlayRaster } from './overlayRaster';
 import type { MapViewProps } from './types';
 import { useElementSize } from './useElementSize';
+import { verdictLabel, type VerdictMarker } from '../verdict';
 import './mapView.css';
 
 /** One wheel notch (100 px of deltaY) zooms by about 1.2×. */
@@ -493,10 +494,11 @@ export function MapView(props: MapViewProps) {
           <MapCursorReadout sinkRef={cursorSink} scale={scale} origin={origin} planeUpMeters={planeUpMeters} />
         </div>
       )}
-      <MapLegend showHyperbolae={hyperbolae.length > 0} overlay={rasterResult.raster?.legend ?? null} overlayError={rasterResult.error} />
+      <MapLegend showHyperbolae={hyperbolae.length > 0} showFixes={fixList.length > 0} overlay={rasterResult.raster?.legend ?? null} overlayError={rasterResult.error} />
       {hoveredFix !== null && (
         <div className="map-tooltip" data-testid="map-fix-tooltip" style={{ left: hoveredFix.xPixels + 14, top: hoveredFix.yPixels + 14 }}>
           <strong>{hoveredFix.label}</strong> <span className={`map-status map-status-${hoveredFix.status}`}>{hoveredFix.status}</span>
+          {hoveredFix.verdict !== undefined && <div data-testid="map-fix-tooltip-verdict"><strong style={{ color: hoveredFix.colour }}>{verdictLabel(hoveredFix.verdict)}</strong>{hoveredFix.verdictReason !== undefined ? `: ${hoveredFix.verdictReason}` : ''}</div>}
           {hoveredFix.ellipseLabel !== undefined && <div>{hoveredFix.ellipseLabel}</div>}
           {hoveredFix.alternative !== undefined && <div>other solution marked ○</div>}
           <div className="muted">click to select</div>
@@ -530,6 +532,9 @@ export function MapView(props: MapViewProps) {
             key={fix.id}
             data-testid={`map-fix-${fix.id}`}
             data-status={fix.status}
+            data-verdict={fix.verdict}
+            data-marker={fix.marker}
+            data-colour={fix.colour}
             data-selected={fix.selected}
             data-x-pixels={fix.xPixels}
             data-y-pixels={fix.yPixels}
@@ -588,19 +593,49 @@ function FixMark({ fix, hovered, onEnter, onLeave, onSelect }: FixMarkProps) {
         </>
       )}
       <Circle x={fix.xPixels} y={fix.yPixels} radius={12} fill="rgba(0,0,0,0.001)" />
-      <Line points={[fix.xPixels - arm, fix.yPixels, fix.xPixels + arm, fix.yPixels]} stroke="#fffdf8" strokeWidth={5 + emphasis} lineCap="round" />
-      <Line points={[fix.xPixels, fix.yPixels - arm, fix.xPixels, fix.yPixels + arm]} stroke="#fffdf8" strokeWidth={5 + emphasis} lineCap="round" />
-      <Line points={[fix.xPixels - arm, fix.yPixels, fix.xPixels + arm, fix.yPixels]} stroke={fix.colour} strokeWidth={2 + emphasis} lineCap="round" />
-      <Line points={[fix.xPixels, fix.yPixels - arm, fix.xPixels, fix.yPixels + arm]} stroke={fix.colour} strokeWidth={2 + emphasis} lineCap="round" />
+      <FixMarker marker={fix.marker} x={fix.xPixels} y={fix.yPixels} arm={arm} colour={fix.colour} widthPixels={2 + emphasis} />
       <HaloText
         x={fix.xPixels + 10}
         y={fix.yPixels - 20}
-        text={fix.status === 'ok' ? fix.label : `${fix.label} (${fix.status})`}
+        text={fix.text}
         fontSize={12}
         fontStyle={fix.selected ? 'bold' : 'normal'}
         fill={fix.colour}
       />
     </Group>
+  );
+}
+
+interface FixMarkerProps {
+  marker: VerdictMarker;
+  x: number;
+  y: number;
+  arm: number;
+  colour: string;
+  widthPixels: number;
+}
+
+/** The verdict's marker on a light halo: a plus (firm), a triangle with a centre dot (doubtful), a diagonal cross (unusable). */
+function FixMarker({ marker, x, y, arm, colour, widthPixels }: FixMarkerProps) {
+  if (marker === 'triangle') {
+    const r = arm + 1;
+    return (
+      <>
+        <RegularPolygon x={x} y={y} sides={3} radius={r} stroke="#fffdf8" strokeWidth={widthPixels + 3} />
+        <RegularPolygon x={x} y={y} sides={3} radius={r} stroke={colour} strokeWidth={widthPixels} />
+        <Circle x={x} y={y} radius={1.8} fill={colour} />
+      </>
+    );
+  }
+  const d = marker === 'cross' ? arm * Math.SQRT1_2 : 0;
+  const strokes = marker === 'cross'
+    ? [[x - d, y - d, x + d, y + d], [x - d, y + d, x + d, y - d]]
+    : [[x - arm, y, x + arm, y], [x, y - arm, x, y + arm]];
+  return (
+    <>
+      {strokes.map((points, k) => <Line key={`halo-${k}`} points={points} stroke="#fffdf8" strokeWidth={widthPixels + 3} lineCap="round" />)}
+      {strokes.map((points, k) => <Line key={`mark-${k}`} points={points} stroke={colour} strokeWidth={widthPixels} lineCap="round" />)}
+    </>
   );
 }
 

@@ -5,7 +5,10 @@ import { ellipseOutlineMeters, ellipseSegmentsFor } from './ellipseOutline';
 import type { MapScale } from './mapScale';
 import { formatLength, signedFixed } from './formatNumbers';
 import type { MapFix } from './types';
+import type { VerdictGrade } from '../../core/locate';
+import { VERDICT_STYLES, type VerdictMarker } from '../verdict';
 
+/** Colours of fixes without a verdict, by status (a fix with a verdict takes the verdict's colour, renderer/verdict). */
 export const FIX_COLOURS = {
   ok: '#1d2a2f',
   ambiguous: '#9a4b12',
@@ -27,6 +30,12 @@ export interface FixShape {
   alternative?: { xPixels: number; yPixels: number };
   selected: boolean;
   colour: string;
+  /** Marker at the position: the verdict's shape (a plus without a verdict). */
+  marker: VerdictMarker;
+  verdict?: VerdictGrade;
+  verdictReason?: string;
+  /** The text beside the marker: the label, and the verdict when it is not firm. */
+  text: string;
   title: string;
 }
 
@@ -44,9 +53,16 @@ export function fixShapes(fixes: readonly MapFix[], scale: MapScale): FixShape[]
       xPixels: scale.xPixels(fix.eastMeters),
       yPixels: scale.yPixels(fix.northMeters),
       selected: fix.selected,
-      colour: fix.selected ? FIX_COLOURS.selected : statusColour(fix.status),
+      colour: fix.verdict !== undefined ? VERDICT_STYLES[fix.verdict].colour : fix.selected ? FIX_COLOURS.selected : statusColour(fix.status),
+      marker: fix.verdict !== undefined ? VERDICT_STYLES[fix.verdict].marker : 'plus',
+      text: fix.verdict !== undefined ? (fix.verdict === 'firm' ? fix.label : `${fix.label} (${fix.verdict})`) : fix.status === 'ok' ? fix.label : `${fix.label} (${fix.status})`,
       title: `${fix.label} (${fix.status}) · E ${signedFixed(fix.eastMeters, 2)} m, N ${signedFixed(fix.northMeters, 2)} m`,
     };
+    if (fix.verdict !== undefined) {
+      shape.verdict = fix.verdict;
+      if (fix.verdictReason !== undefined) shape.verdictReason = fix.verdictReason;
+      shape.title = `${fix.label}: ${fix.verdict}${fix.verdictReason ? ` (${fix.verdictReason.replace(/\.$/, '')})` : ''} · status ${fix.status} · E ${signedFixed(fix.eastMeters, 2)} m, N ${signedFixed(fix.northMeters, 2)} m`;
+    }
     const e = fix.ellipse;
     if (e !== undefined && e.semiMajorMeters > 0 && Number.isFinite(e.semiMajorMeters) && e.semiMinorMeters >= 0) {
       const outline = ellipseOutlineMeters(

@@ -1,5 +1,6 @@
 // The plain data the map view is drawn from: microphones, pair delays as hyperbolae, fixes and a raster overlay.
 // Units: local east/north/up metres about the array origin, seconds, m/s; WGS84 degrees for the optional origin.
+import type { VerdictGrade } from '../../core/locate';
 
 export interface MapMicrophone {
   label: string;
@@ -27,6 +28,9 @@ export interface MapFix {
   upMeters: number;
   ellipse?: { semiMajorMeters: number; semiMinorMeters: number; majorAxisDegreesFromEast: number; confidence: number };
   alternative?: { eastMeters: number; northMeters: number };
+  /** The plain-words verdict and its main reason (core/locate fixVerdict). */
+  verdict?: VerdictGrade;
+  verdictReason?: string;
   selected: boolean;
 }
 

@@ -2,7 +2,7 @@
 // (open recording, located events, selection, running work, notices). Pure; tested in test/renderer/state.
 import type { WavInfo } from '../../core/audio';
 import type { EnvelopePyramid } from '../../core/overview';
-import type { LocatedEvent } from '../../core/pipeline';
+import { locatedVerdict, type LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry, ProjectArray, ProjectDocument, ProjectMedium, ProjectSettings } from '../../core/project';
 import type { SolveResult } from '../../core/locate';
 import { fixLogEntryFromLocated } from '../fixlog';
@@ -108,7 +108,7 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
         if (located === undefined) continue;
         const id = fixIdFor({ ...working, document: { ...working.document, fixes: [...working.document.fixes, ...added] } }, located.event.index);
         const info = state.recording?.info;
-        const entry = fixLogEntryFromLocated(located, { id, label: `sound ${located.event.index + 1}`, ...(info?.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
+        const entry = fixLogEntryFromLocated(located, { id, verdict: locatedVerdict(located, state.document.array), label: `sound ${located.event.index + 1}`, ...(info?.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
         added.push(entry);
       }
       working = editDocument(state, { ...state.document, fixes: [...state.document.fixes, ...added] });

@@ -1,7 +1,7 @@
 // `whence solve`: position fixes from measured time differences (a delay table) and the array, one record per event,
 // with covariance, uncertainty ellipse, residuals and warnings; CSV to stdout, or JSON/GeoJSON.
 import { fixesToCsv, fixesToGeoJson, fixesToJson, fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from '../../../core/export';
-import { solveFix, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
+import { fixVerdict, solveFix, VERDICT_GRADES, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
 import { parseArrayCsv, parseDelaysCsv, type ArrayGeometry, type DelayEvent } from '../../../core/project';
 import { writeFileAtomic } from '../../files';
 import type { CliIo } from '../io';
@@ -35,7 +35,7 @@ export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [op
   --json                JSON array on standard output instead of CSV
   --out FILE            write FILE.csv, FILE.json or FILE.geojson instead (atomically)
 
-  Output columns: event, status, x_m, y_m, z_m, lat, lon, alt_m, covariance (m²),
+  Output columns: event, status, verdict (firm, doubtful or unusable), verdict_reason, x_m, y_m, z_m, lat, lon, alt_m, covariance (m²),
   semi_major_m, semi_minor_m, major_axis_deg (counter-clockwise from east),
   residual_rms_s, pairs_used, warnings, and more.
 `;
@@ -50,7 +50,8 @@ export function solveEvents(geometry: ArrayGeometry, events: readonly DelayEvent
       return measurement;
     });
     const result = solveFix(microphones, delays, options);
-    return fixRecord(event.event, result, options.dimensions, geometry.origin);
+    const verdict = fixVerdict({ status: result.status, ...(result.fix !== undefined ? { fix: result.fix } : {}), microphones });
+    return fixRecord(event.event, result, options.dimensions, geometry.origin, verdict);
   });
 }
 
@@ -91,6 +92,11 @@ export async function runSolve(argv: string[], io: CliIo): Promise<number> {
     io.writeStderr(`wrote ${records.length} fix${records.length === 1 ? '' : 'es'} to ${output.outPath}\n`);
   } else {
     io.writeStdout(text);
+  }
+  const notFirm = records.filter((record) => record.verdict !== 'firm').length;
+  if (notFirm > 0) {
+    const grades = VERDICT_GRADES.map((grade) => `${records.filter((record) => record.verdict === grade).length} ${grade}`);
+    io.writeStderr(`verdicts: ${grades.join(', ')}; see the verdict and verdict_reason columns before acting on a fix.\n`);
   }
   const failed = records.filter((record) => record.status !== 'ok').length;
   if (failed > 0) io.writeStderr(`${failed} of ${records.length} event${records.length === 1 ? '' : 's'} gave no unambiguous fix; see the status and warnings columns.\n`);

@@ -5,7 +5,7 @@ import { createRoot } from 'react-dom/client';
 import type { WavStartTime } from '../../../core/audio';
 import type { GeodeticPosition } from '../../../core/geo';
 import { seededRandom, solveFix, type DelayMeasurement, type SolveResult } from '../../../core/locate';
-import type { LocatedEvent, PairMeasurement } from '../../../core/pipeline';
+import { locatedVerdict, type LocatedEvent, type PairMeasurement } from '../../../core/pipeline';
 import type { ArrayMicrophone, FixLogEntry, ProjectMedium, ProjectSettings } from '../../../core/project';
 import { FixLogPanel, fixLogContextFor, fixLogEntryFromLocated } from '../../../renderer/fixlog';
 import { MicrophonesPanel, type ArrayImportText } from '../../../renderer/microphones';
@@ -56,7 +56,7 @@ function locate(event: InventedEvent, index: number, c: number): LocatedEvent {
     event: { index, startSeconds: firstArrivalSeconds - 0.05, endSeconds: firstArrivalSeconds + 0.4, onsetSeconds: inventedArray.map(() => firstArrivalSeconds), peakSnrDb: 20, channelsTriggered: 6, flags: [] },
     windowStartSeconds: firstArrivalSeconds - 0.05, windowEndSeconds: firstArrivalSeconds + 0.4,
     bandHz: { lowHz: 1800 + 100 * index, highHz: 7400 }, bandSnrDb: 18.4, pairs,
-    reduced: { delays, referenceIndex: 0, arrivalSigmaSeconds: event.timingSigmaSeconds, droppedPairs: [], scatterFactor: 1, warnings: [] },
+    reduced: { delays, referenceIndex: 0, arrivalSigmaSeconds: event.timingSigmaSeconds, droppedPairs: [], scatterFactor: 1, closure: { cost: 0, degreesOfFreedom: 0, unitArrivalSigmaSeconds: event.timingSigmaSeconds }, warnings: [] },
     solve, emissionTimeSeconds: solve.fix !== undefined ? event.emittedSeconds : undefined, firstArrivalSeconds, warnings: [],
   };
 }
@@ -79,7 +79,7 @@ function Harness() {
     return new Map(inventedEvents.map((event, index) => [`fix-${index + 1}`, locate(event, index, c)] as const));
   }, [speed]);
   const [entries, setEntries] = useState<FixLogEntry[]>(() => inventedEvents.map((event, index) => {
-    const entry = fixLogEntryFromLocated(located.get(`fix-${index + 1}`)!, { id: `fix-${index + 1}`, recordingStartTime: startTime, sampleRateHz, label: event.label, note: event.note });
+    const entry = fixLogEntryFromLocated(located.get(`fix-${index + 1}`)!, { id: `fix-${index + 1}`, verdict: locatedVerdict(located.get(`fix-${index + 1}`)!, { microphones: inventedArray }), recordingStartTime: startTime, sampleRateHz, label: event.label, note: event.note });
     return event.accepted === undefined ? entry : { ...entry, accepted: event.accepted };
   }));
   const [selectedId, setSelectedId] = useState<string | undefined>('fix-1');

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { locatedVerdict } from '../../../core/pipeline';
 import { emptyProjectDocument, validateProjectDocument } from '../../../core/project';
 import { fixLogEntryFromLocated, minPeakRatio } from '../../../renderer/fixlog/entryFromLocated';
 import { locatedEvent, squareArray, startTime } from './locatedFixtures';
@@ -6,8 +7,9 @@ import { locatedEvent, squareArray, startTime } from './locatedFixtures';
 describe('fixLogEntryFromLocated()', () => {
   // Expected values: the fixes of invented events (./locatedFixtures, delays from geometry r/c, common practice) copied through; the entry layout is this project's schema.
   it('fixLogEntryFromLocated() keeps the fix, its clock time and the warnings in an entry the project schema accepts', () => {
-    const event = locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2);
-    const entry = fixLogEntryFromLocated(event, { id: 'a', recordingStartTime: startTime, sampleRateHz: 48_000, label: 'wren' });
+    // Seed 4: residuals that pass the chi-square test (seed 2 draws p = 0.008, one of the 1 % an honest test flags 'inconsistent').
+    const event = locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 4);
+    const entry = fixLogEntryFromLocated(event, { id: 'a', verdict: locatedVerdict(event, { microphones: squareArray }), recordingStartTime: startTime, sampleRateHz: 48_000, label: 'wren' });
     expect(entry).toMatchObject({ id: 'a', eventIndex: 1, status: 'ok', accepted: true, label: 'wren', note: '' });
     expect(entry.eastMeters).toBeCloseTo(event.solve.fix!.eastMeters, 12);
     expect(entry.ellipse).toEqual(event.solve.fix!.ellipse);
@@ -22,7 +24,7 @@ describe('fixLogEntryFromLocated()', () => {
     const event = locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2);
     const fix = event.solve.fix!;
     const unbounded = { ...event, solve: { status: 'ill-conditioned' as const, warnings: [], fix: { ...fix, ellipse: { ...fix.ellipse, semiMajorMeters: Number.POSITIVE_INFINITY } } } };
-    const entry = fixLogEntryFromLocated(unbounded, { id: 'b' });
+    const entry = fixLogEntryFromLocated(unbounded, { id: 'b', verdict: locatedVerdict(unbounded, { microphones: squareArray }) });
     expect(entry.ellipse).toBeUndefined();
     expect(entry.accepted).toBe(false);
     expect(entry.localTime).toBeUndefined();

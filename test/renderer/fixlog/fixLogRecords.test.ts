@@ -1,14 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { readCsv } from '../../../core/csv';
 import { locatedEventRecord, surveyLogColumns } from '../../../core/export';
-import type { LocatedEvent } from '../../../core/pipeline';
-import type { FixLogEntry } from '../../../core/project';
+import { locatedVerdict, type LocatedEvent } from '../../../core/pipeline';
+import type { ArrayMicrophone, FixLogEntry } from '../../../core/project';
 import { fixLogEntryFromLocated } from '../../../renderer/fixlog/entryFromLocated';
 import { COLUMNS_NEEDING_LOCATED_EVENT, fixLogExportText, fixLogToRecords, type FixLogContext } from '../../../renderer/fixlog/fixLogRecords';
 import { locatedEvent, squareArray, startTime, surveyContext, tallArray } from './locatedFixtures';
 
-function entriesOf(events: LocatedEvent[]): FixLogEntry[] {
-  return events.map((event, i) => fixLogEntryFromLocated(event, { id: `fix-${i + 1}`, recordingStartTime: startTime, sampleRateHz: 48_000 }));
+function entriesOf(events: LocatedEvent[], microphones: ArrayMicrophone[] = squareArray): FixLogEntry[] {
+  return events.map((event, i) => fixLogEntryFromLocated(event, { id: `fix-${i + 1}`, verdict: locatedVerdict(event, { microphones }), recordingStartTime: startTime, sampleRateHz: 48_000 }));
 }
 
 const events2d = [locatedEvent(squareArray, [100, 150, 1.5], 0, 2, 1), locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2), locatedEvent(squareArray, [-30, 10, 1.5], 2, 2, 3)];
@@ -30,7 +30,7 @@ describe('fixLogToRecords()', () => {
   for (const [dimensions, array, events] of [[2, squareArray, events2d], [3, tallArray, events3d]] as const) {
     it(`fixLogToRecords() rebuilds a saved ${dimensions}-D entry's columns with the same values as locatedEventRecord, leaving unkept columns empty`, () => {
       const context = surveyContext(array, dimensions, true);
-      const records = fixLogToRecords(entriesOf(events), context);
+      const records = fixLogToRecords(entriesOf(events, array), context);
       records.forEach((record, i) => {
         const expected = locatedEventRecord(events[i]!, context);
         expect(events[i]!.solve.fix).toBeDefined();

@@ -9,6 +9,7 @@ const entry: FixLogEntry = {
   eastMeters: -189013.869, northMeters: -128642.04, upMeters: -4220.171,
   ellipse: { semiMajorMeters: 5.261984, semiMinorMeters: 1.506269, majorAxisDegreesFromEast: 22.5, confidence: 0.95 },
   residualRmsSeconds: 8.52e-5, pairsUsed: 6, label: '', note: '', accepted: false, warnings: ['mirror solution'],
+  verdict: { grade: 'doubtful', reason: 'Two spots fit equally: check the other one.' },
 };
 
 describe('fixLogRows()', () => {
@@ -18,14 +19,16 @@ describe('fixLogRows()', () => {
       eventNumber: 5, emissionText: '12.418', clockText: '04:12:12.460', eastText: '−189013.87', northText: '−128642.04',
       latLonText: '53.809394, 2.129550', axesText: '5.26 × 1.51', angleText: '23', confidenceText: '95 %',
       statusText: 'ambiguous', statusTone: 'doubtful', residualText: '85.2 µs', pairsText: '6', peakRatioText: '—', accepted: false,
+      // The verdict kept with the entry, its symbol and Okabe-Ito colour (renderer/verdict).
+      verdict: 'doubtful', verdictText: '△ doubtful', verdictColour: '#e69f00', verdictReason: 'Two spots fit equally: check the other one.',
     });
     expect(row!.warnings).toEqual(['mirror solution']);
   });
 
   it('fixLogRows() shows dashes for what a failed fix lacks, and no latitude/longitude without an origin', () => {
-    const failed: FixLogEntry = { id: 'y', eventIndex: 0, firstArrivalSeconds: 3.25, status: 'insufficient', pairsUsed: 0, label: '', note: '', accepted: false };
+    const failed: FixLogEntry = { id: 'y', eventIndex: 0, firstArrivalSeconds: 3.25, status: 'insufficient', verdict: { grade: 'unusable', reason: 'Too few usable time differences to place it.' }, pairsUsed: 0, label: '', note: '', accepted: false };
     const [row] = fixLogRows([failed], undefined);
-    expect(row).toMatchObject({ emissionText: '—', arrivalText: '3.250', clockText: '—', eastText: '—', latLonText: '—', axesText: '—', residualText: '—', statusTone: 'failed' });
+    expect(row).toMatchObject({ emissionText: '—', arrivalText: '3.250', clockText: '—', eastText: '—', latLonText: '—', axesText: '—', residualText: '—', statusTone: 'failed', verdictText: '× unusable' });
   });
 });
 

@@ -47,6 +47,23 @@ describe('fixShapes()', () => {
     expect(selected.colour).toBe(FIX_COLOURS.selected);
   });
 
+  it('fixShapes() colours and shapes a fix by its verdict (Okabe-Ito colours, a marker per grade) and names a doubtful one', () => {
+    const [firm, doubtful, unusable] = fixShapes(
+      [
+        { ...okFix, verdict: 'firm', verdictReason: 'All microphones agree; small ellipse.' },
+        { ...okFix, id: 'd', status: 'ambiguous', verdict: 'doubtful', verdictReason: 'Two spots fit equally: check the other one.', selected: true },
+        { ...okFix, id: 'u', status: 'inconsistent', verdict: 'unusable', verdictReason: 'The microphones disagree: no single spot fits.' },
+      ],
+      scale,
+    );
+    // Okabe & Ito (2008) blue, orange and vermilion; the verdict keeps its colour when selected (selection thickens the marker).
+    expect([firm!.colour, doubtful!.colour, unusable!.colour]).toEqual(['#0072b2', '#e69f00', '#d55e00']);
+    expect([firm!.marker, doubtful!.marker, unusable!.marker]).toEqual(['plus', 'triangle', 'cross']);
+    expect([firm!.text, doubtful!.text, unusable!.text]).toEqual(['call 1', 'call 1 (doubtful)', 'call 1 (unusable)']);
+    expect(doubtful!.title).toContain('call 1: doubtful (Two spots fit equally: check the other one)');
+    expect(unusable!.verdictReason).toBe('The microphones disagree: no single spot fits.');
+  });
+
   it('fixShapes() leaves out an ellipse without a usable size', () => {
     const shapes = fixShapes(
       [

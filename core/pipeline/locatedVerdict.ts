@@ -1,0 +1,19 @@
+// The plain-words verdict of a located event (core/locate fixVerdict) from its final solve, the correlation peaks of
+// the pairs kept and the pairs the closure reduction dropped. Pure; cheap enough to compute wherever it is shown.
+import { fixVerdict, type Verdict } from '../locate';
+import type { ArrayGeometry } from '../project';
+import type { LocatedEvent } from './locateEvent';
+
+export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | 'reduced'>, geometry: Pick<ArrayGeometry, 'microphones'>): Verdict {
+  const { solve, pairs, reduced } = located;
+  const dropped = new Set(reduced.droppedPairs.map((pair) => `${pair.indexA}-${pair.indexB}`));
+  const kept = pairs.filter((pair) => !dropped.has(`${pair.indexA}-${pair.indexB}`));
+  return fixVerdict({
+    status: solve.status,
+    ...(solve.fix !== undefined ? { fix: solve.fix } : {}),
+    microphones: geometry.microphones,
+    peakToSecondRatios: kept.map((pair) => pair.peakToSecondRatio),
+    pairsDroppedBefore: reduced.droppedPairs,
+    pairsMeasured: pairs.length,
+  });
+}

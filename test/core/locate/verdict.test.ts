@@ -1,0 +1,99 @@
+import { describe, expect, it } from 'vitest';
+import { fixVerdict, horizontalHull, insideHull, solveFix, VERDICT_LIMITS, type Fix, type SolveResult } from '../../../core/locate';
+import { allPairs, makeRng, microphonesAt, pairDelays, type Point3 } from '../../helpers/geometry';
+
+// A 40 m square of microphones with a fifth in the middle, c = 343 m/s; the grades, reasons and limits are the behaviour
+// this project specifies (DEVELOPERS.md, "Verdicts"); the fixes come from solveFix on exact or seeded noisy delays.
+const C = 343;
+const points: Point3[] = [[0, 0, 0], [40, 0, 0], [40, 40, 0], [0, 40, 0], [20, 20, 0]];
+const microphones = microphonesAt(points);
+
+function solvedAt(source: number[], sigmaSeconds = 2e-5, seed = 5): SolveResult {
+  const delays = pairDelays(points, source, allPairs(points.length), C, makeRng(seed), sigmaSeconds, true);
+  return solveFix(microphones, delays, { speedMetersPerSecond: C, dimensions: 2 });
+}
+
+function verdictOf(result: SolveResult, extra: Partial<Parameters<typeof fixVerdict>[0]> = {}) {
+  return fixVerdict({ status: result.status, ...(result.fix ? { fix: result.fix } : {}), microphones, ...extra });
+}
+
+function withFix(result: SolveResult, patch: Partial<Fix>): SolveResult {
+  return { ...result, fix: { ...result.fix!, ...patch } };
+}
+
+describe('fixVerdict()', () => {
+  const inside = solvedAt([12, 27, 0]);
+
+  it("grades a consistent fix inside the array with a small ellipse 'firm'", () => {
+    expect(inside.status).toBe('ok');
+    expect(verdictOf(inside)).toEqual({ grade: 'firm', reason: 'All microphones agree; small ellipse inside the array.', reasons: ['All microphones agree; small ellipse inside the array.'] });
+    expect(verdictOf(inside, { peakToSecondRatios: [3, 4, 2.5, 6, 8, 3, 2, 9, 5, 4] }).grade).toBe('firm');
+  });
+
+  it("grades a fix with no position, bad input or inconsistent delays 'unusable', each with its reason", () => {
+    expect(verdictOf({ status: 'insufficient', warnings: [] })).toMatchObject({ grade: 'unusable', reason: 'Too few usable time differences to place it.' });
+    expect(verdictOf({ status: 'invalid-input', warnings: [] })).toMatchObject({ grade: 'unusable', reason: 'The input has errors: see the warnings.' });
+    expect(verdictOf({ ...inside, status: 'inconsistent' })).toMatchObject({ grade: 'unusable', reason: 'The microphones disagree: no single spot fits.' });
+  });
+
+  it("grades ambiguous and ill-conditioned fixes 'doubtful'", () => {
+    expect(verdictOf({ ...inside, status: 'ambiguous' })).toMatchObject({ grade: 'doubtful', reason: 'Two spots fit equally: check the other one.' });
+    expect(verdictOf({ ...inside, status: 'ill-conditioned' })).toMatchObject({ grade: 'doubtful', reason: 'Poor geometry: long ellipse.' });
+    const far = solvedAt([900, 1400, 0]);
+    expect(verdictOf({ ...far, status: 'ill-conditioned' }).reason).toBe('Far outside the array: long ellipse.');
+  });
+
+  it("says 'outside the array: long ellipse' for a source beyond the hull with an elongated ellipse", () => {
+    const far = solvedAt([150, 210, 0]);
+    const e = far.fix!.ellipse;
+    expect(e.semiMajorMeters / e.semiMinorMeters).toBeGreaterThan(VERDICT_LIMITS.longEllipseRatio);
+    expect(verdictOf(far)).toMatchObject({ grade: 'doubtful', reason: 'Outside the array: long ellipse.' });
+  });
+
+  it('says the ellipse is large for a fix inside the array whose semi-major axis exceeds a quarter of the aperture', () => {
+    const rough = withFix(inside, { ellipse: { ...inside.fix!.ellipse, semiMajorMeters: 15, semiMinorMeters: 12 } });
+    expect(verdictOf(rough)).toMatchObject({ grade: 'doubtful', reason: 'Large ellipse for the size of the array.' });
+  });
+
+  it('names the microphone whose pairs were dropped, or counts the microphones', () => {
+    const dropped = (pairs: [number, number][]) => pairs.map(([a, b]) => ({ indexA: a, indexB: b, residualSeconds: 1e-3, used: false, reason: 'outlier: ...' }));
+    // Two of ten pairs dropped, both with M3: microphone M3.
+    expect(verdictOf(withFix(inside, { droppedPairs: dropped([[2, 0], [2, 4]]) }))).toMatchObject({ grade: 'doubtful', reason: 'Microphone M3 disagrees with the rest.' });
+    // Two disjoint pairs dropped: four microphones.
+    expect(verdictOf(withFix(inside, { droppedPairs: dropped([[2, 0], [3, 4]]) })).reason).toBe('Four microphones disagree with the rest.');
+    // One pair of ten (10 %, not above the limit) dropped before the solver leaves a firm fix.
+    expect(verdictOf(inside, { pairsDroppedBefore: [{ indexA: 1, indexB: 2 }], pairsMeasured: 10 }).grade).toBe('firm');
+    // One pair of six dropped: two microphones.
+    expect(verdictOf(inside, { pairsDroppedBefore: [{ indexA: 1, indexB: 2 }], pairsMeasured: 6 }).reason).toBe('Two microphones disagree with the rest.');
+    // An arrival time dropped by the solver: that microphone.
+    expect(verdictOf(withFix(inside, { droppedArrivals: [3] })).reason).toBe('Microphone M4 disagrees with the rest.');
+  });
+
+  it("says 'echoes: peaks close in height' when a quarter of the pairs have a second peak within 1.5 times the first", () => {
+    const ratios = [1.2, 1.3, 1.1, 4, 5, 6, 3, 7, 8, 9];
+    expect(verdictOf(inside, { peakToSecondRatios: ratios })).toMatchObject({ grade: 'doubtful', reason: 'Echoes: peaks close in height.' });
+    expect(verdictOf(inside, { peakToSecondRatios: [1.2, 4, 5, 6, 3, 7, 8, 9, 5, 5] }).grade).toBe('firm');
+  });
+
+  it('flags a large GDOP, no redundancy and an assumed timing sigma', () => {
+    expect(verdictOf(withFix(inside, { gdop: 25 })).reason).toBe('Poor geometry here: small timing errors move it far.');
+    expect(verdictOf(withFix(inside, { chiSquare: { ...inside.fix!.chiSquare, degreesOfFreedom: 0 } })).reason).toBe('No spare microphone to cross-check it.');
+    expect(verdictOf(withFix(inside, { sigmaSource: 'default' })).reason).toBe('Timing error assumed, not measured.');
+  });
+
+  it('lists every reason, the most important first', () => {
+    const v = verdictOf(withFix({ ...inside, status: 'ambiguous' }, { gdop: 25, sigmaSource: 'default' }), { peakToSecondRatios: [1, 1, 1] });
+    expect(v.reasons).toEqual(['Two spots fit equally: check the other one.', 'Echoes: peaks close in height.', 'Poor geometry here: small timing errors move it far.', 'Timing error assumed, not measured.']);
+  });
+});
+
+describe('horizontalHull() and insideHull()', () => {
+  it('keeps the corners of the square, drops the middle microphone, and tells inside from outside', () => {
+    const hull = horizontalHull(microphones);
+    expect(hull).toEqual([[0, 0], [40, 0], [40, 40], [0, 40]]);
+    expect(insideHull(hull, 20, 39.9)).toBe(true);
+    expect(insideHull(hull, 40, 20)).toBe(true);
+    expect(insideHull(hull, 40.1, 20)).toBe(false);
+    expect(insideHull(horizontalHull(microphonesAt([[0, 0, 0], [10, 0, 0], [20, 0, 0]])), 10, 0)).toBe(false);
+  });
+});
