@@ -59,6 +59,16 @@ export default tseslint.config(
     },
   },
   {
+    // Math.max(...list) passes every element as an argument and overflows the call stack on long lists.
+    files: ['core/**/*.ts', 'main/**/*.ts', 'renderer/**/*.{ts,tsx}'],
+    rules: {
+      'no-restricted-syntax': ['error', {
+        selector: "CallExpression[callee.object.name='Math'][callee.property.name=/^(max|min)$/] > SpreadElement",
+        message: 'Math.max/Math.min(...list) overflows the call stack on long lists; use maxOf/minOf from core/units.',
+      }],
+    },
+  },
+  {
     files: ['test/**/*.{ts,tsx}', 'bench/**/*.ts', 'scripts/**/*.{js,mjs}', 'assets/**/*.{mjs,ts}', '*.{js,ts,mjs}'],
     languageOptions: { globals: { ...globals.node } },
   },
