@@ -43,12 +43,15 @@ describe('whence speed', () => {
     const result = JSON.parse(run.stdout) as SpeedJson;
     expect(result.sensitivityMetersPerSecondPerKelvin).toBeGreaterThan(0.55);
     expect(result.sensitivityMetersPerSecondPerKelvin).toBeLessThan(0.65);
+    // Exactly, for the assumed 20 °C dry air at 101.325 kPa and 400 ppm CO2: 0.584436 m/s per K (Cramer 1993, computed by
+    // test/reference/speed_of_sound.py).
+    expect(result.sensitivityMetersPerSecondPerKelvin).toBeCloseTo(0.584436, 5);
   });
 
   it('refuses a temperature outside the model’s range with the range in the message, exit 1', async () => {
     const run = await runCliInProcess(['speed', '--medium', 'seawater', '--temperature', '45']);
     expect(run.exitCode).toBe(1);
-    expect(run.stderr).toMatch(/30/);
+    expect(run.stderr).toMatch(/temperatureCelsius.*45.*-2\.\.30 °C/);
     expect(run.stdout).toBe('');
   });
 
