@@ -1,6 +1,7 @@
 // A verdict in plain words on every fix: three grades (firm, doubtful, unusable) and the main reason in one short
 // sentence, from the status, the residual tests, peak ratios, dropped pairs, GDOP and the ellipse against the array. Metres.
 import type { FixStatus, Fix, Microphone } from './types';
+import { maxOf } from '../units';
 
 /** `firm`: act on it with its ellipse. `doubtful`: a position, but check it first. `unusable`: do not act on it. */
 export type VerdictGrade = 'firm' | 'doubtful' | 'unusable';
@@ -108,7 +109,7 @@ function disagreement(droppedArrivals: readonly number[], dropped: ReadonlyArray
   if (droppedArrivals.length > 1) return `${capitalised(countWord(droppedArrivals.length))} microphones disagree with the rest.`;
   const counts = new Map<number, number>();
   for (const pair of dropped) for (const index of [pair.indexA, pair.indexB]) counts.set(index, (counts.get(index) ?? 0) + 1);
-  const most = Math.max(...counts.values());
+  const most = maxOf([...counts.values()]);
   const named = [...counts.entries()].filter(([, count]) => count === most).map(([index]) => index);
   if (dropped.length > 1 && named.length === 1) return `Microphone ${labelOf(named[0])} disagrees with the rest.`;
   return `${capitalised(countWord(named.length))} microphones disagree with the rest.`;
