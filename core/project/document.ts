@@ -2,6 +2,7 @@
 // Units as in schema.ts; the file is UTF-8 JSON with a schemaVersion, validated with zod on every load and save.
 import { z } from 'zod';
 import { WhenceError } from '../errors';
+import { printableText } from '../text';
 import { WHENCE_VERSION } from '../version';
 import { CURRENT_PROJECT_SCHEMA_VERSION, migrateProjectData } from './migrations';
 import { projectDocumentSchemaV2 } from './schema';
@@ -49,7 +50,8 @@ export function readProjectText(text: string, fileName: string): ReadProjectResu
   try {
     parsed = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
   } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
+    // JSON.parse quotes the file's bytes: escaped and short.
+    const reason = printableText(error instanceof Error ? error.message : String(error), 120);
     throw new WhenceError('project-corrupt', `${fileName} could not be read as a Whence project: its JSON text is broken (${reason}). The file may be truncated or damaged; open its backup (${fileName}.bak) or the recovery copy if there is one.`);
   }
   if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) {
