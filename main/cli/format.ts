@@ -27,6 +27,18 @@ export function terminalSafe(text: string): string {
   return text.split('\n').map((line) => (line.startsWith('\r') ? `\r${escapeControlCharacters(line.slice(1))}` : escapeControlCharacters(line))).join('\n');
 }
 
+/** Characters that drive a terminal or reorder text, other than tab and line breaks: C0, DEL, C1, separators, bidi controls. */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const TERMINAL_CONTROLS = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069\u200e\u200f\u061c\ufeff]/g;
+
+/**
+ * Results for standard output (CSV, JSON, tables): tabs and line breaks kept, every other control character written as
+ * \u001b etc. (a valid escape inside JSON strings, readable in a table), so a file name cannot act on the screen.
+ */
+export function terminalDataSafe(text: string): string {
+  return text.replace(TERMINAL_CONTROLS, (char) => `\\u${char.charCodeAt(0).toString(16).padStart(4, '0')}`);
+}
+
 /** JSON text whose strings carry no raw DEL, C1, separator or bidi controls either (JSON.stringify escapes only C0). */
 export function jsonForTerminal(value: unknown): string {
   return JSON.stringify(value, null, 2).replace(/[\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069\u200e\u200f\u061c\ufeff]/g, (char) => `\\u${char.charCodeAt(0).toString(16).padStart(4, '0')}`) + '\n';

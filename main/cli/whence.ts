@@ -7,7 +7,7 @@ import { locateHelp, runLocate } from './commands/locate';
 import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
 import type { CliIo } from './io';
-import { terminalSafe } from './format';
+import { terminalDataSafe, terminalSafe } from './format';
 import { printableText } from '../../core/text';
 import { maxOf } from '../../core/units';
 
@@ -69,7 +69,7 @@ export async function main(argv: string[], io: CliIo): Promise<number> {
     return 0;
   }
   // Messages quote file names, labels, tags and cells from files: nothing reaches the terminal as a control sequence.
-  const guardedIo: CliIo = { ...io, writeStderr: (text) => io.writeStderr(terminalSafe(text)) };
+  const guardedIo: CliIo = { ...io, writeStdout: (text) => io.writeStdout(terminalDataSafe(text)), writeStderr: (text) => io.writeStderr(terminalSafe(text)) };
   try {
     return await command.run(rest, guardedIo);
   } catch (error) {
