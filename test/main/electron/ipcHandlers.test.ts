@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import { IPC_CHANNELS, MAX_RECORDING_READ_BYTES, type HostRequestMethod } from '../../../core/contract';
 import { WhenceError } from '../../../core/errors';
-import { emptyProjectDocument } from '../../../core/project';
+import { CURRENT_PROJECT_SCHEMA_VERSION, emptyProjectDocument } from '../../../core/project';
 import { registerIpcHandlers } from '../../../main/electron/ipcHandlers';
 import { isTrustedSender } from '../../../main/electron/senderCheck';
 import { fakeRegistry, fakeServices, PAGE_URL, senderEvent, WINDOW_ID } from './fakes';
@@ -60,7 +60,7 @@ describe('registerIpcHandlers()', () => {
       ['readRecordingBytes', ['recording-1', -1, 10], /argument 2/],
       ['readRecordingBytes', ['recording-1', 0, MAX_RECORDING_READ_BYTES + 1], /argument 3.*256 MiB/],
       ['readRecordingBytes', ['recording-1', 0.5, 10], /argument 2/],
-      ['saveProject', [{ document: { ...emptyProjectDocument('x'), schemaVersion: 2 } }], /argument 1 \(document\.schemaVersion\)/],
+      ['saveProject', [{ document: { ...emptyProjectDocument('x'), schemaVersion: CURRENT_PROJECT_SCHEMA_VERSION + 1 } }], /argument 1 \(document\.schemaVersion\)/],
       ['saveProject', [{ document: emptyProjectDocument('x'), sneaky: true }], /argument 1: Unrecognized key: "sneaky"/],
       ['exportText', [{ suggestedName: 'f.csv', text: 'a', kind: 'exe' }], /argument 1 \(kind\)/],
       ['openDemo', ['please'], /openDemo.*the arguments/],
