@@ -5,7 +5,7 @@ import { formatCsv, type CsvValue } from '../csv';
 import type { GeodeticPosition } from '../geo';
 import type { ArrayGeometry } from '../project';
 import { median } from '../locate';
-import { locatedVerdict, type LocatedEvent } from '../pipeline';
+import { describeEllipseTerms, ellipseTerms, locatedVerdict, type LocatedEvent } from '../pipeline';
 import { fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, presentFields, roundDecimals, type FixRecord } from './fixRecord';
 import { minOf } from '../units';
 
@@ -20,7 +20,7 @@ export interface SurveyLogContext {
   dimensions: 2 | 3;
 }
 
-const LOCATE_COLUMNS = ['time_s', 'arrival_s', 'local_time', 'band_low_hz', 'band_high_hz', 'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags'] as const;
+const LOCATE_COLUMNS = ['time_s', 'arrival_s', 'local_time', 'band_low_hz', 'band_high_hz', 'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags', 'ellipse_terms'] as const;
 
 export function surveyLogColumns(dimensions: 2 | 3): string[] {
   const base = dimensions === 3 ? [...FIX_COLUMNS_3D] : [...FIX_COLUMNS_2D];
@@ -43,6 +43,14 @@ export function locatedEventRecord(located: LocatedEvent, context: SurveyLogCont
     channels_triggered: located.event.channelsTriggered,
     event_flags: located.event.flags.join(' '),
   });
+  // What the ellipse is made of: shares in the CSV, each term's horizontal variance (m²) in JSON/GeoJSON.
+  const terms = ellipseTerms(located);
+  record.ellipse_terms = describeEllipseTerms(terms);
+  for (const term of terms) record[`var_${term.term.replace(/ /g, '_')}_m2`] = Number(term.varianceMeters2.toPrecision(4));
+  if (located.timing !== undefined) {
+    record.arrival_sigma_s = Number(located.timing.parts.arrivalSigmaSeconds.toPrecision(4));
+    record.timing_model = located.timing.model.source;
+  }
   return record;
 }
 

@@ -10,6 +10,7 @@ import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { applyReductionCheck } from './reductionCheck';
 import { MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
+import { eventTiming, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 import { maxOf, minOf } from '../units';
 
 export interface LocatedEvent {
@@ -21,6 +22,8 @@ export interface LocatedEvent {
   pairs: PairMeasurement[];
   reduced: ReducedDelays;
   solve: SolveResult;
+  /** The timing-noise model the fix was solved with (the prior until the pipeline pools the recording's events). */
+  timing?: LocatedTiming;
   /** Estimated emission time (fix and first onset), seconds from the start of the recording. */
   emissionTimeSeconds: number | undefined;
   /** First arrival at any microphone, seconds from the start of the recording. */
@@ -80,21 +83,40 @@ function earliestOnset(event: DetectedEvent, context: LocateContext): { micropho
 /** Smallest per-microphone arrival sigma the pipeline states: a tenth of a sample (model errors the GCC bound leaves out). */
 const MIN_ARRIVAL_SIGMA_SAMPLES = 0.1;
 
+/** The event's timing under the recording's noise model: what it was solved with and the parts its arrival variance is made of. */
+export interface LocatedTiming {
+  evidence: TimingEvidence;
+  model: TimingNoiseModel;
+  parts: EventTiming;
+}
+
 /**
- * Solves once with the correlation's sigmas and no outlier rejection; when the residuals are larger than those sigmas
- * allow (chi-square test), scales the sigmas by the a-posteriori factor sqrt(chi²/dof) and solves again with outlier
- * rejection, so the ellipse reflects the scatter actually seen (echoes, ground reflection, source directivity).
+ * What the event's residuals say about its arrival-time noise: one solve at the correlation's sigmas (with their floor and
+ * the closure scatter of reducePairs), no outlier rejection; its residual sum in seconds² and degrees of freedom. Closure
+ * residuals are not used: an arrival biased at one microphone (a merged reflection) closes every triplet.
  */
-export function solveWithHonestSigma(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions, warnings: string[]): SolveResult {
-  const first = solveFix(microphones, reduced.delays, { ...options, rejectOutliers: false });
+export function timingEvidenceOf(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions): TimingEvidence {
+  const { monteCarlo: _skipped, ...plain } = options;
+  const first = solveFix(microphones, reduced.delays, { ...plain, rejectOutliers: false });
   const chi = first.fix?.chiSquare;
-  if (first.fix === undefined || chi === undefined || chi.degreesOfFreedom < 1 || chi.consistent) {
-    return solveFix(microphones, reduced.delays, options);
+  const sigma = reduced.arrivalSigmaSeconds;
+  if (chi === undefined || !Number.isFinite(chi.statistic)) return { priorArrivalSigmaSeconds: sigma, residualSumSeconds2: Number.NaN, degreesOfFreedom: 0 };
+  return { priorArrivalSigmaSeconds: sigma, residualSumSeconds2: chi.statistic * sigma * sigma, degreesOfFreedom: chi.degreesOfFreedom };
+}
+
+/**
+ * Solves with the arrival sigma of the recording's timing-noise model (./timingNoise: pooled scale and reflection floor,
+ * moderated by the event's own residuals), with outlier rejection. `model` is PRIOR_TIMING_NOISE until events are pooled.
+ */
+export function solveWithTimingModel(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions, model: TimingNoiseModel): { solve: SolveResult; timing: LocatedTiming } {
+  const evidence = timingEvidenceOf(microphones, reduced, options);
+  const parts = eventTiming(model, evidence);
+  const delays = reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: parts.arrivalSigmaSeconds * Math.SQRT2 }));
+  const solve = solveFix(microphones, delays, options);
+  if (parts.eventFactor > 4) {
+    solve.warnings.unshift(`This sound's time differences scatter ${Math.sqrt(parts.eventFactor).toFixed(1)} times more than the timing-noise model expects (echoes, a second source, directivity?); its ellipse was widened to match.`);
   }
-  const factor = Math.sqrt(chi.statistic / chi.degreesOfFreedom);
-  const scaled = reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: (delay.sigmaSeconds ?? 0) * factor }));
-  warnings.push(`The time differences scatter ${factor.toFixed(1)} times more than the correlation peaks alone suggest; the timing sigma was scaled up to match (a-posteriori variance factor on ${chi.degreesOfFreedom} degree${chi.degreesOfFreedom === 1 ? '' : 's'} of freedom).`);
-  return solveFix(microphones, scaled, options);
+  return { solve, timing: { evidence, model, parts } };
 }
 
 /** Lag margin beyond d/c: two samples, plus what survey error (4 sigma per microphone, two microphones) can add. */
@@ -113,6 +135,7 @@ export function solveOptions(settings: LocateSettings, marginSeconds: number): S
     lagToleranceSeconds: marginSeconds,
   };
   if (settings.sourceUpMeters !== undefined) options.sourceUpMeters = settings.sourceUpMeters;
+  if (settings.dimensions === 2 && settings.sourceUpSigmaMeters !== undefined) options.sourceUpSigmaMeters = settings.sourceUpSigmaMeters;
   return options;
 }
 
@@ -135,6 +158,18 @@ function correlationSpan(event: DetectedEvent, context: LocateContext): { startS
 
 /** Lead-in before the first onset in a correlation window (onsets are found to a frame or two). */
 const CORRELATION_MARGIN_SECONDS = 0.03;
+
+/** Emission time and first arrival of an event's fix (seconds from the start of the recording): from the earliest onset and the ranges. */
+export function eventTimes(event: DetectedEvent, context: LocateContext, solve: SolveResult): { emissionTimeSeconds: number | undefined; firstArrivalSeconds: number } {
+  const onset = earliestOnset(event, context);
+  const fix = solve.fix;
+  if (fix === undefined || onset === undefined) return { emissionTimeSeconds: undefined, firstArrivalSeconds: onset?.seconds ?? event.startSeconds };
+  const microphones = context.geometry.microphones;
+  const rangeMeters = (m: Microphone) => Math.hypot(fix.eastMeters - m.eastMeters, fix.northMeters - m.northMeters, fix.upMeters - m.upMeters);
+  const c = context.settings.speedMetersPerSecond;
+  const emissionTimeSeconds = onset.seconds - rangeMeters(microphones[onset.microphoneIndex]!) / c;
+  return { emissionTimeSeconds, firstArrivalSeconds: emissionTimeSeconds + minOf(microphones.map((m) => rangeMeters(m))) / c };
+}
 
 /** Events are located one after another in a thread (they share the scratch buffers; the work is CPU-bound anyway). */
 let queueTail: Promise<unknown> = Promise.resolve();
@@ -178,18 +213,14 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
-  const solve: SolveResult = reduced.delays.length > 0
-    ? applyReductionCheck(solveWithHonestSigma(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds), warnings), reduced)
-    : { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
-  let emissionTimeSeconds: number | undefined;
-  let firstArrivalSeconds = onset?.seconds ?? event.startSeconds;
-  if (solve.fix !== undefined && onset !== undefined) {
-    const fix = solve.fix;
-    const rangeMeters = (m: Microphone) => Math.hypot(fix.eastMeters - m.eastMeters, fix.northMeters - m.northMeters, fix.upMeters - m.upMeters);
-    const c = context.settings.speedMetersPerSecond;
-    const reference = microphones[referenceIndex]!;
-    emissionTimeSeconds = onset.seconds - rangeMeters(reference) / c;
-    firstArrivalSeconds = emissionTimeSeconds + minOf(microphones.map((m) => rangeMeters(m))) / c;
+  let solve: SolveResult = { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
+  let timing: LocatedTiming | undefined;
+  if (reduced.delays.length > 0) {
+    ({ solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds), PRIOR_TIMING_NOISE));
+    solve = applyReductionCheck(solve, reduced);
   }
-  return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, solve, emissionTimeSeconds, firstArrivalSeconds, warnings };
+  const { emissionTimeSeconds, firstArrivalSeconds } = eventTimes(event, context, solve);
+  const located: LocatedEvent = { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, solve, emissionTimeSeconds, firstArrivalSeconds, warnings };
+  if (timing !== undefined) located.timing = timing;
+  return located;
 }

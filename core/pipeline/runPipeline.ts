@@ -4,7 +4,9 @@ import { createDetector, manualEvent, type DetectedEvent, type DetectorConfig } 
 import { WhenceError } from '../errors';
 import { locateEvent, type LocateContext, type LocatedEvent } from './locateEvent';
 import { maxArrayDelaySeconds } from './channelMap';
+import { poolTimingNoise } from './pooledTiming';
 import type { RecordingAccess } from './recording';
+import type { TimingNoiseModel } from './timingNoise';
 
 export interface PipelineProgress {
   /** 0..1 of the recording span scanned. */
@@ -36,6 +38,9 @@ export interface PipelineResult {
   scannedToSeconds: number;
   cancelled: boolean;
   warnings: string[];
+  /** The timing-noise model every fix was solved with (second pass), and one sentence on it for the log's notes. */
+  timingModel?: TimingNoiseModel;
+  timingNote?: string;
 }
 
 /** Energy frame of the pipeline's detector. */
@@ -119,9 +124,11 @@ export async function runPipeline(recording: RecordingAccess, context: LocateCon
     }
     if (!cancelled) emit(detector.finish());
   }
-  const located = await Promise.all(pending);
+  // Second pass: the timing noise of the whole recording from every event's residuals, then each event solved again with it.
+  const pooled = poolTimingNoise(await Promise.all(pending), context, sampleRateHz);
+  const located = pooled.located;
   progress(endFrame);
   const warnings: string[] = [];
   if (eventsFound === 0 && !cancelled) warnings.push('No events were found in the scanned span. Lower the detection threshold, give a band, or select the sound by hand (--from/--to).');
-  return { located, eventsFound, scannedFromSeconds: startFrame / sampleRateHz, scannedToSeconds: endFrame / sampleRateHz, cancelled, warnings };
+  return { located, eventsFound, scannedFromSeconds: startFrame / sampleRateHz, scannedToSeconds: endFrame / sampleRateHz, cancelled, warnings, timingModel: pooled.model, timingNote: pooled.note };
 }

@@ -7,6 +7,8 @@ export interface LocateSettings {
   dimensions: 2 | 3;
   /** 2-D: the source height (default: the microphones' mean height). */
   sourceUpMeters?: number;
+  /** 2-D: one-sigma uncertainty of that height (a range LOW..HIGH gives (HIGH - LOW) / sqrt(12), uniform), propagated into the ellipse. */
+  sourceUpSigmaMeters?: number;
   confidence: number;
   /** Correlation band; chosen per event from its spectrum when absent. */
   bandHz?: FrequencyBand;

@@ -84,6 +84,8 @@ export const settingsSchema = z.object({
   dimensions: z.union([z.literal(2), z.literal(3)]),
   /** 2-D: the source height; absent means the microphones' mean height. */
   sourceUpMeters: z.number().optional(),
+  /** 2-D: one-sigma uncertainty of that height, metres (a range LOW..HIGH: (HIGH - LOW) / sqrt(12)); absent means 0. */
+  sourceUpSigmaMeters: z.number().nonnegative().optional(),
   confidence: z.number().gt(0).lt(1),
   weighting: z.enum(gccWeightings as readonly GccWeighting[] as [GccWeighting, ...GccWeighting[]]),
   /** Correlation band, or 'automatic' to choose it per event from its spectrum. */

@@ -25,7 +25,7 @@ export function fixLogFileName(kind: FixLogExportKind): string {
 /** Columns a fix log entry does not keep: written only when the located event is at hand. */
 export const COLUMNS_NEEDING_LOCATED_EVENT = [
   'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_dropped', 'alternative_x_m', 'alternative_y_m', 'alternative_z_m',
-  'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags',
+  'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags', 'ellipse_terms',
 ] as const;
 
 function rounded(value: number | undefined, decimals: number): number | undefined {

@@ -32,6 +32,7 @@ export function settingsForLog(settings: ProjectSettings): Record<string, string
     band_hz: band === 'automatic' ? 'per event' : `${band.lowHz}-${band.highHz}`,
   };
   if (settings.sourceUpMeters !== undefined && settings.dimensions === 2) logged.height_m = settings.sourceUpMeters;
+  if (settings.sourceUpSigmaMeters !== undefined && settings.dimensions === 2) logged.height_sigma_m = settings.sourceUpSigmaMeters;
   if (settings.detectionThresholdDb !== undefined) logged.threshold_db = settings.detectionThresholdDb;
   if (settings.minChannels !== undefined) logged.min_channels = settings.minChannels;
   return logged;

@@ -172,6 +172,12 @@ export function SettingsPanel({ value, onChange, meanMicrophoneUpMeters }: Setti
             placeholder: form.dimensions === 3 ? 'solved' : meanMicrophoneUpMeters !== undefined ? `${meanMicrophoneUpMeters.toFixed(2)} (mics' mean)` : 'mics\' mean',
             title: form.dimensions === 3 ? 'A 3-D fix finds the height itself' : 'Height of the source in the local frame (metres up); blank: the microphones\' mean height',
           })}
+          {field('heightSigma', 'Height ± (1σ)', 'm', {
+            testId: 'settings-height-sigma',
+            disabled: form.dimensions === 3,
+            placeholder: form.dimensions === 3 ? 'solved' : '0',
+            title: form.dimensions === 3 ? 'A 3-D fix finds the height itself' : 'How uncertain the source height is (one sigma, metres); it widens the ellipses. A source anywhere between LOW and HIGH: (HIGH - LOW) / 3.46',
+          })}
           <div className="set-row set-span">
             <span className="set-label">Confidence</span>
             <span className="set-input">

@@ -26,6 +26,7 @@ export interface SettingsForm {
   speedSigma: string;
   dimensions: 2 | 3;
   height: string;
+  heightSigma: string;
   confidence: string;
   weighting: GccWeighting;
   bandMode: 'automatic' | 'fixed';
@@ -78,6 +79,7 @@ export function formFromValue(value: SettingsValue): SettingsForm {
     speedSigma: m.medium === 'fixed-speed' ? text(m.speedSigmaMetersPerSecond) : '',
     dimensions: s.dimensions,
     height: text(s.sourceUpMeters),
+    heightSigma: text(s.sourceUpSigmaMeters),
     confidence: text(s.confidence),
     weighting: s.weighting,
     bandMode: band === undefined ? 'automatic' : 'fixed',
@@ -182,7 +184,13 @@ function readSettings(form: SettingsForm, base: ProjectSettings, messages: Setti
 
   if (form.dimensions === 3) {
     delete settings.sourceUpMeters;
+    delete settings.sourceUpSigmaMeters;
   } else {
+    const sigma = readNumber(form.heightSigma, 'metres');
+    if ('message' in sigma) messages.heightSigma = sigma.message;
+    else if ('value' in sigma && !(sigma.value >= 0)) messages.heightSigma = 'the height sigma cannot be negative';
+    else if ('value' in sigma) settings.sourceUpSigmaMeters = sigma.value;
+    else delete settings.sourceUpSigmaMeters;
     const height = readNumber(form.height, 'metres up');
     if ('message' in height) messages.height = height.message;
     else if ('value' in height) settings.sourceUpMeters = height.value;

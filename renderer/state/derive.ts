@@ -24,6 +24,7 @@ export function locateSettings(document: ProjectDocument, speed: SpeedInUse): Lo
   const s = document.settings;
   const settings: LocateSettings = { speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, dimensions: s.dimensions, confidence: s.confidence, weighting: s.weighting };
   if (s.sourceUpMeters !== undefined) settings.sourceUpMeters = s.sourceUpMeters;
+  if (s.sourceUpSigmaMeters !== undefined && s.dimensions === 2) settings.sourceUpSigmaMeters = s.sourceUpSigmaMeters;
   if (s.bandHz !== 'automatic') settings.bandHz = s.bandHz;
   if (s.detectionThresholdDb !== undefined) settings.detectionThresholdDb = s.detectionThresholdDb;
   if (s.minChannels !== undefined) settings.minChannels = s.minChannels;

@@ -1,6 +1,6 @@
 // Re-solving located events when the array, the medium or the settings change: the measured delays stay, the
 // geometry and speed of sound change. Fast (about a millisecond per fix), so it runs on the UI thread.
-import { lagMarginSeconds, solveOptions, solveWithHonestSigma, toSolverMicrophones, type LocateContext, type LocatedEvent } from '../../core/pipeline';
+import { PRIOR_TIMING_NOISE, solveLocatedEvent, type LocateContext, type LocatedEvent } from '../../core/pipeline';
 import type { SolveResult } from '../../core/locate';
 
 export function resolveEvent(located: LocatedEvent, context: LocateContext, sampleRateHz: number): SolveResult {
@@ -9,8 +9,6 @@ export function resolveEvent(located: LocatedEvent, context: LocateContext, samp
   if (microphones.length !== located.reduced.delays.length + 1) {
     return { status: 'invalid-input', warnings: ['The array changed its number of microphones since this event was located; locate it again.'] };
   }
-  const marginSeconds = lagMarginSeconds(context.geometry, sampleRateHz, context.settings.speedMetersPerSecond);
-  const warnings: string[] = [];
-  const solve = solveWithHonestSigma(toSolverMicrophones(context.geometry), located.reduced, solveOptions(context.settings, marginSeconds), warnings);
-  return { ...solve, warnings: [...warnings, ...solve.warnings] };
+  // The recording's timing-noise model (pooled when the events were located) stays; the event's own residuals are re-read.
+  return solveLocatedEvent(located, context, sampleRateHz, located.timing?.model ?? PRIOR_TIMING_NOISE).solve;
 }

@@ -33,6 +33,9 @@ export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
   --sound-speed M_S     speed of sound in m/s instead of a medium
   --dims 2|3            2 (default): source on a known height; 3: full 3-D fix
   --height M            source height for 2-D (default: microphones' mean height)
+  --height-range LO,HI  2-D: the source is somewhere between LO and HI metres up; its
+                        sigma, (HI - LO) / sqrt(12), widens the ellipse (height: the middle)
+  --height-sigma M      2-D: one-sigma uncertainty of the source height instead
   --band LO-HI          correlation band in Hz, e.g. 1500-6000 (default: chosen per event)
   --weighting W         phat (default), phat-beta, scot, roth, ml or plain
   --threshold DB        detection threshold above the noise floor (default 10 dB)
@@ -81,6 +84,7 @@ function settingsFromOptions(values: ParsedCommand['values'], speed: { speedMete
 function settingsForLog(settings: LocateSettings, values: ParsedCommand['values']): Record<string, string | number | boolean> {
   const logged: Record<string, string | number | boolean> = { dims: settings.dimensions, confidence: settings.confidence, weighting: settings.weighting, band_hz: settings.bandHz ? `${settings.bandHz.lowHz}-${settings.bandHz.highHz}` : 'per event' };
   if (settings.sourceUpMeters !== undefined) logged.height_m = settings.sourceUpMeters;
+  if (settings.sourceUpSigmaMeters !== undefined) logged.height_sigma_m = Number(settings.sourceUpSigmaMeters.toPrecision(4));
   if (settings.detectionThresholdDb !== undefined) logged.threshold_db = settings.detectionThresholdDb;
   if (settings.minChannels !== undefined) logged.min_channels = settings.minChannels;
   for (const name of ['from', 'to']) if (typeof values[name] === 'string') logged[`${name}_s`] = Number(values[name]);
@@ -132,7 +136,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
       softwareVersion: WHENCE_VERSION, settings: settingsForLog(settings, values), dimensions: settings.dimensions,
     };
     const records = result.located.map((located) => locatedEventRecord(located, logContext));
-    const notes = [...result.warnings, `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
+    const notes = [...result.warnings, ...(result.timingNote !== undefined ? [result.timingNote] : []), `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
     let text: string;
     if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
     else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);

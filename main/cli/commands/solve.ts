@@ -25,6 +25,9 @@ export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [op
   --temperature-sigma K uncertainty of the temperature (default 1 K; 5 K when assumed)
   --dims 2|3            2 (default): source on a known height; 3: full 3-D fix
   --height M            source height for 2-D, metres up (default: microphones' mean)
+  --height-range LO,HI  2-D: the source is somewhere between LO and HI metres up; its
+                        sigma, (HI - LO) / sqrt(12), widens the ellipse (height: the middle)
+  --height-sigma M      2-D: one-sigma uncertainty of the source height instead
   --confidence P        confidence of the ellipse, 0..1 (default 0.95)
   --timing-sigma S      standard deviation for delays without sigma_s (default: estimated
                         from the residuals when there are enough pairs, else 0.0001 s)

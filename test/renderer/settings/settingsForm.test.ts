@@ -78,3 +78,14 @@ describe('plainMediumMessage()', () => {
       .toBe("Salinity = 10 ppt is outside the model's valid range 25..40 ppt. For fresh water use the freshwater medium.");
   });
 });
+
+describe('readSettingsForm() source height sigma', () => {
+  it('readSettingsForm() reads the 2-D height sigma, refuses a negative one and drops it in 3-D', () => {
+    const value: SettingsValue = { medium: base.medium, settings: { ...base.settings, dimensions: 2, sourceUpMeters: 1, sourceUpSigmaMeters: 0.5 } };
+    expect(readSettingsForm(formFromValue(value), value).settings.sourceUpSigmaMeters).toBe(0.5);
+    const negative = readSettingsForm({ ...formFromValue(value), heightSigma: '-1' }, value);
+    expect(negative.messages.heightSigma).toBe('the height sigma cannot be negative');
+    expect(readSettingsForm({ ...formFromValue(value), heightSigma: '' }, value).settings.sourceUpSigmaMeters).toBeUndefined();
+    expect(readSettingsForm({ ...formFromValue(value), dimensions: 3 }, value).settings.sourceUpSigmaMeters).toBeUndefined();
+  });
+});
