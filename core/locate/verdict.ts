@@ -26,13 +26,15 @@ export interface VerdictInput {
   pairsDroppedBefore?: ReadonlyArray<{ indexA: number; indexB: number }>;
   /** Pairs measured in all; default: the pairs the solver saw plus those dropped before. */
   pairsMeasured?: number;
+  /** Redundant pairs the closure check had (e.g. the pipeline's reduction); default: the fix's chi-square degrees of freedom. */
+  closureRedundancy?: number;
 }
 
 /** The limits the rules use; DEVELOPERS.md ("Verdicts") says why each. */
 export const VERDICT_LIMITS = Object.freeze({
   /** A pair's correlation peak is echo-prone when the second peak is closer than this ratio (common practice: 1.5). */
   echoPeakRatio: 1.5,
-  /** Share of pairs with echo-prone peaks that makes a fix doubtful. */
+  /** Share of pairs with echo-prone peaks that makes a fix doubtful, unless closure had enough redundancy to choose among them. */
   echoPairShare: 0.25,
   /** Share of pairs dropped as disagreeing that makes a fix doubtful. */
   droppedPairShare: 0.1,
@@ -112,7 +114,8 @@ function disagreement(droppedArrivals: readonly number[], dropped: ReadonlyArray
   const most = maxOf([...counts.values()]);
   const named = [...counts.entries()].filter(([, count]) => count === most).map(([index]) => index);
   if (dropped.length > 1 && named.length === 1) return `Microphone ${labelOf(named[0])} disagrees with the rest.`;
-  return `${capitalised(countWord(named.length))} microphones disagree with the rest.`;
+  if (dropped.length === 1) return 'Two microphones disagree with the rest.';
+  return `${capitalised(countWord(dropped.length))} microphone pairs disagree with the rest.`;
 }
 
 /** The verdict on one fix; pure. */
@@ -145,7 +148,10 @@ export function fixVerdict(input: VerdictInput): Verdict {
 
   const ratios = input.peakToSecondRatios ?? [];
   const echoPairs = ratios.filter((ratio) => !(ratio >= VERDICT_LIMITS.echoPeakRatio)).length;
-  if (echoPairs > 0 && echoPairs >= VERDICT_LIMITS.echoPairShare * ratios.length) reasons.push('Echoes: peaks close in height.');
+  // Closure with at least one redundant pair per microphone picks among close peaks (tonal calls, echoes) and was passed.
+  const redundancy = input.closureRedundancy ?? fix.chiSquare.degreesOfFreedom;
+  const closureDecides = redundancy >= microphones.length;
+  if (echoPairs > 0 && echoPairs >= VERDICT_LIMITS.echoPairShare * ratios.length && !closureDecides) reasons.push('Echoes: peaks close in height.');
 
   if (!inside && (long || large)) reasons.push('Outside the array: long ellipse.');
   else if (large) reasons.push('Large ellipse for the size of the array.');

@@ -15,5 +15,6 @@ export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | '
     peakToSecondRatios: kept.map((pair) => pair.peakToSecondRatio),
     pairsDroppedBefore: reduced.droppedPairs,
     pairsMeasured: pairs.length,
+    closureRedundancy: reduced.closure.degreesOfFreedom,
   });
 }

@@ -68,16 +68,17 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
           <table className="fl-table">
             <thead>
               <tr className="fl-groups">
-                <th colSpan={2} />
+                <th colSpan={3} />
                 <th colSpan={2} className="fl-group">Time</th>
                 <th colSpan={(showUp ? 3 : 2) + (geo ? 1 : 0)} className="fl-group">Position</th>
                 <th colSpan={3} className="fl-group">Ellipse</th>
-                <th colSpan={5} className="fl-group">Quality</th>
+                <th colSpan={4} className="fl-group">Quality</th>
                 <th colSpan={2} />
               </tr>
               <tr>
                 <th scope="col" title="Accepted fixes are exported">Keep</th>
                 <th scope="col" className="fl-num" title="Event number, as in the survey log">#</th>
+                <th scope="col" title="Plain-words verdict: firm (act on it), doubtful (check it first), unusable (do not act on it), with its main reason">Verdict</th>
                 <th scope="col" className="fl-num" title="Emission time, seconds from the start of the recording">Emitted (s)</th>
                 <th scope="col" className="fl-num" title="Local clock time of the first arrival, when the recording carries a start time">Clock</th>
                 <th scope="col" className="fl-num">E (m)</th>
@@ -87,7 +88,6 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
                 <th scope="col" className="fl-num" title="Semi-major × semi-minor axis">a × b (m)</th>
                 <th scope="col" className="fl-num" title="Major axis, counter-clockwise from east">Axis (°)</th>
                 <th scope="col" className="fl-num">Conf.</th>
-                <th scope="col" title="Plain-words verdict: firm (act on it), doubtful (check it first), unusable (do not act on it), with its main reason">Verdict</th>
                 <th scope="col">Status</th>
                 <th scope="col" className="fl-num" title="Root-mean-square residual of the time differences">RMS resid.</th>
                 <th scope="col" className="fl-num" title="Microphone pairs used in the fix">Pairs</th>
@@ -130,6 +130,10 @@ function FixRow({ row, entry, selected, showUp, geo, onSelect, onUpdate }: FixRo
       <td className="fl-num fl-event">
         <button type="button" className="fl-link" onClick={select} aria-label={`Show event ${row.eventNumber}`}>{row.eventNumber}</button>
       </td>
+      <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict}>
+        <span className="fl-verdict-grade"><span className="fl-verdict-symbol" style={{ color: row.verdictColour }} aria-hidden="true">{row.verdictText.slice(0, 1)}</span> {row.verdict}</span>
+        <span className="fl-verdict-reason">{row.verdictReason}</span>
+      </td>
       <td className="fl-num" title={row.emissionText === '—' ? `First arrival ${row.arrivalText} s (no emission time: the fix has no position)` : `First arrival ${row.arrivalText} s`}>
         {row.emissionText === '—' ? <span className="fl-muted">arr. {row.arrivalText}</span> : row.emissionText}
       </td>
@@ -141,10 +145,6 @@ function FixRow({ row, entry, selected, showUp, geo, onSelect, onUpdate }: FixRo
       <td className="fl-num">{row.axesText}</td>
       <td className="fl-num">{row.angleText}</td>
       <td className="fl-num">{row.confidenceText}</td>
-      <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict}>
-        <span className="fl-verdict-grade"><span className="fl-verdict-symbol" style={{ color: row.verdictColour }} aria-hidden="true">{row.verdictText.slice(0, 1)}</span> {row.verdict}</span>
-        <span className="fl-verdict-reason">{row.verdictReason}</span>
-      </td>
       <td>
         <span className={`fl-status fl-tone-${row.statusTone}`}>{row.statusText}</span>
         {row.warnings.length > 0 && (

@@ -35,7 +35,8 @@ async function mapCanvasChecksum(page: Page): Promise<number> {
 }
 
 async function firstFixX(page: Page): Promise<string> {
-  return (await page.locator('[data-testid="event-row-1"] td').nth(3).textContent()) ?? '';
+  // Columns: #, time, verdict, status, x (m), ...
+  return (await page.locator('[data-testid="event-row-1"] td').nth(4).textContent()) ?? '';
 }
 
 describe.runIf(run)('the app in a browser', () => {
@@ -57,6 +58,33 @@ describe.runIf(run)('the app in a browser', () => {
     expect(await page.locator('[data-testid^="map-fix-"]').count()).toBeGreaterThanOrEqual(15);
     await expect.poll(() => page.locator('[data-testid="event-row-1"] .status').textContent()).toBe('fixed');
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/01-demo-opened.png` });
+  }, 120_000);
+
+  it('gives every fix of the demo a verdict in plain words, in the sounds table and on the map, with a legend for the fix colours', async () => {
+    await demoLoaded(page);
+    const cells = page.locator('[data-testid^="event-verdict-"]');
+    const count = await cells.count();
+    expect(count).toBe(await page.locator('[data-testid^="event-row-"]').count());
+    for (let i = 0; i < count; i++) {
+      const cell = cells.nth(i);
+      expect(['firm', 'doubtful', 'unusable']).toContain(await cell.getAttribute('data-verdict'));
+      // The grade and its one-sentence reason, e.g. "+ firm All microphones agree; small ellipse inside the array."
+      expect(await cell.locator('.verdict-grade').textContent()).toMatch(/^[+△×] (firm|doubtful|unusable)$/);
+      expect(await cell.locator('.verdict-reason').textContent()).toMatch(/^[A-Z].{8,80}\.$/);
+    }
+    // The demo's callers inside the array come out firm; those placed far outside it (assets/demo/scenario.ts) doubtful.
+    expect(await page.locator('[data-testid^="event-verdict-"][data-verdict="firm"]').count()).toBeGreaterThanOrEqual(count / 3);
+    expect(await page.locator('[data-testid^="event-verdict-"][data-verdict="doubtful"] .verdict-reason').allTextContents()).toContain('Outside the array: long ellipse.');
+    // Map fixes carry their verdict's colour and marker, and the legend explains them.
+    const fixes = page.locator('[data-testid^="map-fix-"]');
+    for (let i = 0; i < (await fixes.count()); i++) {
+      expect(['firm', 'doubtful', 'unusable']).toContain(await fixes.nth(i).getAttribute('data-verdict'));
+      expect(['plus', 'triangle', 'cross']).toContain(await fixes.nth(i).getAttribute('data-marker'));
+    }
+    const legend = page.locator('[data-testid="map-legend-fixes"]');
+    await legend.waitFor({ state: 'visible', timeout: 5_000 });
+    expect(await legend.textContent()).toMatch(/firm.*act on it.*doubtful.*check it.*unusable.*do not act on it/);
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/01b-demo-verdicts.png` });
   }, 120_000);
 
   it('moves the fix when a microphone is typed in by hand, and again when one is dragged on the map', async () => {
@@ -97,6 +125,10 @@ describe.runIf(run)('the app in a browser', () => {
     const logRowsBefore = await page.locator('[data-testid^="fixlog-row-"]').count();
     await page.locator('[data-testid="locate-selection"]').click();
     await expect.poll(() => page.locator('[data-testid^="fixlog-row-"]').count(), { timeout: 30_000 }).toBe(logRowsBefore + 1);
+    // The logged fix keeps its verdict: grade and reason in the fix log.
+    const verdict = page.locator('[data-testid^="fixlog-verdict-"]').last();
+    expect(['firm', 'doubtful', 'unusable']).toContain(await verdict.getAttribute('data-verdict'));
+    expect(await verdict.locator('.fl-verdict-reason').textContent()).toMatch(/^[A-Z].{8,80}\.$/);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/04-selection-located.png` });
   }, 60_000);
 
@@ -167,7 +199,8 @@ describe.runIf(run)('the app in a browser', () => {
     const safety = page.locator('[data-testid="safety-panel"]');
     await safety.waitFor({ state: 'visible', timeout: 5_000 });
     expect(await safety.locator('h2').textContent()).toBe('Before you act on a fix');
-    expect(await safety.locator('li').count()).toBe(4);
+    expect(await safety.locator('li').count()).toBe(5);
+    expect(await safety.textContent()).toMatch(/firm, doubtful or unusable/);
     expect(await safety.textContent()).toMatch(/hearing protection/);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-safety.png` });
 
