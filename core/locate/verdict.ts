@@ -36,8 +36,10 @@ export const VERDICT_LIMITS = Object.freeze({
   echoPeakRatio: 1.5,
   /** Share of pairs with echo-prone peaks that makes a fix doubtful, unless closure had enough redundancy to choose among them. */
   echoPairShare: 0.25,
-  /** Share of pairs dropped as disagreeing that makes a fix doubtful. */
-  droppedPairShare: 0.1,
+  /** Share of pairs dropped as disagreeing that makes a fix doubtful whatever is left. */
+  droppedPairShare: 1 / 3,
+  /** After pairs were dropped, spare pairs per microphone still needed to trust the rest. */
+  sparePairsPerMicrophone: 2,
   /** Outside the array's hull, an ellipse longer than this many times its width is a range-only fix. */
   longEllipseRatio: 4,
   /** Semi-major axis beyond this fraction of the array's aperture is a large ellipse. */
@@ -144,13 +146,17 @@ export function fixVerdict(input: VerdictInput): Verdict {
   const dropped = [...(input.pairsDroppedBefore ?? []), ...droppedInSolver];
   const measured = input.pairsMeasured ?? fix.residuals.length + (input.pairsDroppedBefore?.length ?? 0);
   const arrivals = fix.droppedArrivals ?? [];
-  if (arrivals.length > 0 || (dropped.length > 0 && dropped.length > VERDICT_LIMITS.droppedPairShare * measured)) reasons.push(disagreement(arrivals, dropped, microphones));
+  const redundancy = input.closureRedundancy ?? fix.chiSquare.degreesOfFreedom;
+  const fewSpareLeft = redundancy < VERDICT_LIMITS.sparePairsPerMicrophone * microphones.length;
+  if (arrivals.length > 0 || (dropped.length > 0 && (fewSpareLeft || dropped.length > VERDICT_LIMITS.droppedPairShare * measured))) {
+    reasons.push(disagreement(arrivals, dropped, microphones));
+  }
 
   const ratios = input.peakToSecondRatios ?? [];
   const echoPairs = ratios.filter((ratio) => !(ratio >= VERDICT_LIMITS.echoPeakRatio)).length;
-  // Closure with at least one redundant pair per microphone picks among close peaks (tonal calls, echoes) and was passed.
-  const redundancy = input.closureRedundancy ?? fix.chiSquare.degreesOfFreedom;
-  const closureDecides = redundancy >= microphones.length;
+  // Inside the array, closure with at least one spare pair per microphone picks among close peaks (tonal calls) and was
+  // passed; outside it, or with fewer spare pairs, a consistent echo (a mirror source) can pass it too.
+  const closureDecides = inside && redundancy >= microphones.length;
   if (echoPairs > 0 && echoPairs >= VERDICT_LIMITS.echoPairShare * ratios.length && !closureDecides) reasons.push('Echoes: peaks close in height.');
 
   if (!inside && (long || large)) reasons.push('Outside the array: long ellipse.');

@@ -36,7 +36,9 @@ export function solveLocatedEvent(located: LocatedEvent, context: LocateContext,
   if (located.reduced.delays.length === 0) return located;
   const marginSeconds = lagMarginSeconds(context.geometry, sampleRateHz, context.settings.speedMetersPerSecond);
   const { solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), located.reduced, solveOptions(context.settings, marginSeconds), model);
-  const checked = applyReductionCheck(solve, located.reduced);
+  // A pooled model also judges the event: scatter it cannot explain at the test level makes the fix inconsistent (./reductionCheck).
+  const modelSigmaSeconds = model.source === 'prior' ? undefined : timing.parts.arrivalSigmaSeconds / Math.sqrt(timing.parts.eventFactor);
+  const checked = applyReductionCheck(solve, located.reduced, undefined, modelSigmaSeconds);
   return { ...located, solve: checked, timing, ...eventTimes(located.event, context, checked) };
 }
 

@@ -61,15 +61,18 @@ describe('fixVerdict()', () => {
     expect(verdictOf(withFix(inside, { droppedPairs: dropped([[2, 0], [2, 4]]) }))).toMatchObject({ grade: 'doubtful', reason: 'Microphone M3 disagrees with the rest.' });
     // Two disjoint pairs dropped: no one microphone to blame.
     expect(verdictOf(withFix(inside, { droppedPairs: dropped([[2, 0], [3, 4]]) })).reason).toBe('Two microphone pairs disagree with the rest.');
-    // One pair of ten (10 %, not above the limit) dropped before the solver leaves a firm fix.
-    expect(verdictOf(inside, { pairsDroppedBefore: [{ indexA: 1, indexB: 2 }], pairsMeasured: 10 }).grade).toBe('firm');
-    // One pair of six dropped: two microphones.
-    expect(verdictOf(inside, { pairsDroppedBefore: [{ indexA: 1, indexB: 2 }], pairsMeasured: 6 }).reason).toBe('Two microphones disagree with the rest.');
+    // One pair of ten dropped before the solver, with two spare pairs per microphone left (10 for 5 microphones): firm.
+    expect(verdictOf(inside, { pairsDroppedBefore: [{ indexA: 1, indexB: 2 }], pairsMeasured: 10, closureRedundancy: 10 }).grade).toBe('firm');
+    // The same with fewer spare pairs left (the fix's own 8 degrees of freedom): the two microphones of that pair.
+    expect(verdictOf(inside, { pairsDroppedBefore: [{ indexA: 1, indexB: 2 }], pairsMeasured: 10 }).reason).toBe('Two microphones disagree with the rest.');
+    // More than a third of the pairs dropped is doubtful whatever is left.
+    const four = [{ indexA: 0, indexB: 1 }, { indexA: 2, indexB: 3 }, { indexA: 0, indexB: 4 }, { indexA: 1, indexB: 3 }];
+    expect(verdictOf(inside, { pairsDroppedBefore: four, pairsMeasured: 10, closureRedundancy: 10 }).reason).toBe('Four microphone pairs disagree with the rest.');
     // An arrival time dropped by the solver: that microphone.
     expect(verdictOf(withFix(inside, { droppedArrivals: [3] })).reason).toBe('Microphone M4 disagrees with the rest.');
   });
 
-  it("says 'echoes: peaks close in height' when a quarter of the pairs have a second peak within 1.5 times the first and closure had too little redundancy to choose", () => {
+  it("says 'echoes: peaks close in height' when a quarter of the pairs have a second peak within 1.5 times the first, outside the array or with too little redundancy for closure to choose", () => {
     const ratios = [1.2, 1.3, 1.1, 4, 5, 6, 3, 7, 8, 9];
     expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 4 })).toMatchObject({ grade: 'doubtful', reason: 'Echoes: peaks close in height.' });
     expect(verdictOf(inside, { peakToSecondRatios: [1.2, 4, 5, 6, 3, 7, 8, 9, 5, 5], closureRedundancy: 4 }).grade).toBe('firm');
@@ -77,6 +80,9 @@ describe('fixVerdict()', () => {
     expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 5 }).grade).toBe('firm');
     // Default redundancy: the fix's chi-square degrees of freedom (10 pairs - 2 unknowns = 8 >= 5 microphones).
     expect(verdictOf(inside, { peakToSecondRatios: ratios }).grade).toBe('firm');
+    // Outside the array a consistent echo (a mirror source) passes closure too: doubtful whatever the redundancy.
+    const outside = withFix(inside, { eastMeters: 60, northMeters: 20 });
+    expect(verdictOf(outside, { peakToSecondRatios: ratios, closureRedundancy: 20 }).reason).toBe('Echoes: peaks close in height.');
   });
 
   it('flags a large GDOP, no redundancy and an assumed timing sigma', () => {

@@ -61,3 +61,26 @@ describe('reductionCheck() and applyReductionCheck()', () => {
     expect(reductionCheck(star, 1e-5)).toBeUndefined();
   });
 });
+
+describe('applyReductionCheck() against the recording timing-noise model', () => {
+  it("marks an event 'inconsistent' whose sigma was widened to its own scatter, when that scatter fails at the model's sigma", () => {
+    // Errors 30 times the correlation sigma; the solver was given a sigma widened to match (30x), the model predicts 1x.
+    const reduced = reducePairsToReference(4, pairs(1e-5, 3e-4), 0);
+    const model = reduced.closure.unitArrivalSigmaSeconds;
+    const widened = solveReduced(reduced, 30 * model);
+    expect(applyReductionCheck(widened, reduced).status).toBe('ok');
+    const checked = applyReductionCheck(widened, reduced, undefined, model);
+    expect(checked.status).toBe('inconsistent');
+    expect(checked.warnings.join(' ')).toMatch(/scatter 30\.0 times more than the recording's timing-noise model allows/);
+  });
+
+  it('leaves an event whose scatter the model explains, or whose sigma was not widened, as it is', () => {
+    const reduced = reducePairsToReference(4, pairs(1e-5, 1e-5), 0);
+    const model = reduced.closure.unitArrivalSigmaSeconds;
+    // Widened 1.2 times on small scatter: consistent at the model's sigma too.
+    expect(applyReductionCheck(solveReduced(reduced, 1.2 * model), reduced, undefined, model).status).toBe('ok');
+    // Not widened (the model's sigma is the larger): nothing more to test.
+    const noisy = reducePairsToReference(4, pairs(1e-5, 3e-4), 0);
+    expect(applyReductionCheck(solveReduced(noisy, 30 * model), noisy, undefined, 40 * model).status).toBe('ok');
+  });
+});
