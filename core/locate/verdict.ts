@@ -157,7 +157,7 @@ export function fixVerdict(input: VerdictInput): Verdict {
   // Inside the array, closure with at least one spare pair per microphone picks among close peaks (tonal calls) and was
   // passed; outside it, or with fewer spare pairs, a consistent echo (a mirror source) can pass it too.
   const closureDecides = inside && redundancy >= microphones.length;
-  if (echoPairs > 0 && echoPairs >= VERDICT_LIMITS.echoPairShare * ratios.length && !closureDecides) reasons.push('Echoes: peaks close in height.');
+  if (echoPairs > 0 && echoPairs >= VERDICT_LIMITS.echoPairShare * ratios.length && !closureDecides) reasons.push('Echoes or a tonal call: peaks close in height.');
 
   if (!inside && (long || large)) reasons.push('Outside the array: long ellipse.');
   else if (large) reasons.push('Large ellipse for the size of the array.');

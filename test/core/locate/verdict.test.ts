@@ -72,9 +72,9 @@ describe('fixVerdict()', () => {
     expect(verdictOf(withFix(inside, { droppedArrivals: [3] })).reason).toBe('Microphone M4 disagrees with the rest.');
   });
 
-  it("says 'echoes: peaks close in height' when a quarter of the pairs have a second peak within 1.5 times the first, outside the array or with too little redundancy for closure to choose", () => {
+  it("says 'echoes or a tonal call: peaks close in height' when a quarter of the pairs have a second peak within 1.5 times the first, outside the array or with too little redundancy for closure to choose", () => {
     const ratios = [1.2, 1.3, 1.1, 4, 5, 6, 3, 7, 8, 9];
-    expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 4 })).toMatchObject({ grade: 'doubtful', reason: 'Echoes: peaks close in height.' });
+    expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 4 })).toMatchObject({ grade: 'doubtful', reason: 'Echoes or a tonal call: peaks close in height.' });
     expect(verdictOf(inside, { peakToSecondRatios: [1.2, 4, 5, 6, 3, 7, 8, 9, 5, 5], closureRedundancy: 4 }).grade).toBe('firm');
     // With at least one redundant pair per microphone (5 here) the closure test that passed chose among the close peaks.
     expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 5 }).grade).toBe('firm');
@@ -82,7 +82,7 @@ describe('fixVerdict()', () => {
     expect(verdictOf(inside, { peakToSecondRatios: ratios }).grade).toBe('firm');
     // Outside the array a consistent echo (a mirror source) passes closure too: doubtful whatever the redundancy.
     const outside = withFix(inside, { eastMeters: 60, northMeters: 20 });
-    expect(verdictOf(outside, { peakToSecondRatios: ratios, closureRedundancy: 20 }).reason).toBe('Echoes: peaks close in height.');
+    expect(verdictOf(outside, { peakToSecondRatios: ratios, closureRedundancy: 20 }).reason).toBe('Echoes or a tonal call: peaks close in height.');
   });
 
   it('flags a large GDOP, no redundancy and an assumed timing sigma', () => {
@@ -93,7 +93,7 @@ describe('fixVerdict()', () => {
 
   it('lists every reason, the most important first', () => {
     const v = verdictOf(withFix({ ...inside, status: 'ambiguous' }, { gdop: 25, sigmaSource: 'default' }), { peakToSecondRatios: [1, 1, 1], closureRedundancy: 1 });
-    expect(v.reasons).toEqual(['Two spots fit equally: check the other one.', 'Echoes: peaks close in height.', 'Poor geometry here: small timing errors move it far.', 'Timing error assumed, not measured.']);
+    expect(v.reasons).toEqual(['Two spots fit equally: check the other one.', 'Echoes or a tonal call: peaks close in height.', 'Poor geometry here: small timing errors move it far.', 'Timing error assumed, not measured.']);
   });
 });
 

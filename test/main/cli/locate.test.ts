@@ -41,6 +41,10 @@ describe('whence locate', () => {
     expect(table.rows).toHaveLength(2);
     const fixes = table.rows.map((row) => ({ status: row.cells[column('status')], x: Number(row.cells[column('x_m')]), y: Number(row.cells[column('y_m')]), time: Number(row.cells[column('time_s')]), arrival: Number(row.cells[column('arrival_s')]), local: row.cells[column('local_time')] }));
     expect(fixes.map((f) => f.status)).toEqual(['ok', 'ok']);
+    // Verdicts with their reasons (DEVELOPERS.md, "Statuses and verdicts"): the tonal FM call correlates with peaks close in
+    // height and four microphones leave closure too few spare pairs to be sure of them, so it is doubtful; the chirp is firm.
+    expect(table.rows.map((row) => row.cells[column('verdict')])).toEqual(['doubtful', 'firm']);
+    expect(table.rows.map((row) => row.cells[column('verdict_reason')])).toEqual(['Echoes or a tonal call: peaks close in height.', 'All microphones agree; small ellipse inside the array.']);
     // The scene's speed of sound is given, so each sound lies inside its 95 % ellipse: within its semi-major axis (3.7 and
     // 3.8 cm here) of where the scene put it.
     const semiMajor = table.rows.map((row) => Number(row.cells[column('semi_major_m')]));
