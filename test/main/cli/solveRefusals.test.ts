@@ -1,4 +1,4 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -45,6 +45,15 @@ describe('whence solve gives no confident nonsense', () => {
     expect(fixes[0]!.verdict_reason).toBe('The microphones disagree: no single spot fits.');
     expect(fixes[0]!.warnings).toMatch(/-150\.0 ms \(8660\.3 sigma\)/);
     expect(stderr).toMatch(/1 unusable/);
+  });
+
+  it('carries the verdict into the GeoJSON point of the fix', async () => {
+    const out = join(folder, 'unclosed.geojson');
+    const run = await runCliInProcess(['solve', '--array', join(folder, 'square.csv'), '--delays', join(folder, 'unclosed.csv'), '--sound-speed', '343', '--origin', '52.25,-1.5,80', '--out', out]);
+    expect(run.exitCode).toBe(0);
+    const geojson = JSON.parse(readFileSync(out, 'utf8')) as { features: Array<{ geometry: { type: string }; properties: Record<string, unknown> }> };
+    const point = geojson.features.find((f) => f.geometry.type === 'Point')!;
+    expect(point.properties).toMatchObject({ status: 'inconsistent', verdict: 'unusable', verdict_reason: 'The microphones disagree: no single spot fits.' });
   });
 
   it('two disconnected pairs are refused with a message naming the groups', async () => {
