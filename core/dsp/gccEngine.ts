@@ -69,6 +69,15 @@ export function defaultWelchSegmentPoints(windowFrames: number): number {
   return Math.max(4, Math.min(largestFitting, Math.max(64, Math.min(2048, byLength))));
 }
 
+/** Most peaks pairPeaksInto returns per pair. */
+export const MAX_PEAKS = 8;
+
+/** How many correlation peaks pairPeaksInto keeps, and how high each must be relative to the strongest. */
+export interface PeakSearch {
+  maxPeaks: number;
+  minRelativeHeight: number;
+}
+
 export interface GccEngine {
   readonly windowFrames: number;
   readonly fftSizePoints: number;
@@ -86,6 +95,12 @@ export interface GccEngine {
   pairDelay(indexA: number, indexB: number, maxLagSeconds?: number): PairDelay;
   /** As pairDelay, writing into `result` (no allocation). */
   pairDelayInto(indexA: number, indexB: number, maxLagSeconds: number, result: PairDelay): PairDelay;
+  /**
+   * The strongest peak of pair (A, B) and up to `peaks.maxPeaks - 1` further local maxima within ±maxLagSeconds whose
+   * height is at least `peaks.minRelativeHeight` of it, strongest first (candidates for the direct path when echoes
+   * make a later peak stronger). Fills `results` from index 0 and returns how many were found (at least 1).
+   */
+  pairPeaksInto(indexA: number, indexB: number, maxLagSeconds: number, peaks: PeakSearch, results: PairDelay[]): number;
   /**
    * The normalised weighted correlation of the last pair at integer lags -maxLag..maxLag (lag = index - maxLag, maxLag in
    * frames of that call) into `output` (2 maxLag + 1 values). Divided by Σ|Y| so that a perfectly aligned peak is 1.
@@ -147,6 +162,8 @@ class Engine implements GccEngine {
   private readonly refined = new Float64Array(2);
   private readonly measures: PeakMeasures = { peakValue: 0, sigmaSamples: 0, correlationCoefficient: 0 };
   private lastMaxLag = -1;
+  private readonly peakLags: number[] = [];
+  private readonly peakFound: number[] = [];
 
   constructor(windowFrames: number, options: GccOptions) {
     checkOptions(windowFrames, options);
@@ -302,9 +319,8 @@ class Engine implements GccEngine {
     this.plan.inverseRealHalf(this.weighted, this.correlation);
   }
 
-  pairDelayInto(indexA: number, indexB: number, maxLagSeconds: number, result: PairDelay): PairDelay {
-    const a = this.channel(indexA);
-    const b = this.channel(indexB);
+  /** Weighted cross-correlation of the pair into this.correlation; returns the integer lag limit (frames). */
+  private correlatePair(a: ChannelState, b: ChannelState, maxLagSeconds: number): number {
     if (!(maxLagSeconds >= 0) || maxLagSeconds > this.maxLagSeconds * (1 + 1e-9) + 1e-12) {
       throw new WhenceError(
         'dsp-max-lag',
@@ -312,11 +328,8 @@ class Engine implements GccEngine {
           'build the engine with the largest maxLagSeconds of all pairs.',
       );
     }
-    const fs = this.sampleRateHz;
-    const n = this.fftSizePoints;
-    const limitFrames = Math.min(maxLagSeconds, this.maxLagSeconds) * fs;
+    const limitFrames = Math.min(maxLagSeconds, this.maxLagSeconds) * this.sampleRateHz;
     const maxLag = Math.min(this.maxLagFrames, Math.floor(limitFrames + 1e-9));
-
     const smooth = this.smooth;
     if (this.weighting === 'scot' || this.weighting === 'roth') {
       smoothWeights(this.weighting, a.welchAuto!, b.welchAuto!, null, smooth!);
@@ -332,9 +345,16 @@ class Engine implements GccEngine {
     } else {
       this.correlate(a, b, this.magnitudeExponent, null);
     }
+    this.lastMaxLag = maxLag;
+    return maxLag;
+  }
 
+  /** Sub-sample position, sigma and quality of the correlation peak at integer lag `peakLag`. */
+  private measureAt(a: ChannelState, b: ChannelState, peakLag: number, maxLag: number, maxLagSeconds: number, result: PairDelay): PairDelay {
+    const fs = this.sampleRateHz;
+    const n = this.fftSizePoints;
+    const limitFrames = Math.min(maxLagSeconds, this.maxLagSeconds) * fs;
     const c = this.correlation;
-    const peakLag = this.integerPeak(maxLag);
     const y0 = c[peakLag >= 0 ? peakLag : n + peakLag]!;
     const yMinus = c[peakLag - 1 >= 0 ? peakLag - 1 : n + peakLag - 1]!;
     const yPlus = c[peakLag + 1 >= 0 ? peakLag + 1 : n + peakLag + 1]!;
@@ -374,8 +394,49 @@ class Engine implements GccEngine {
     result.snrDb = snrDbFromCorrelation(m.correlationCoefficient);
     result.weighting = this.weighting;
     result.interpolation = this.interpolation;
-    this.lastMaxLag = maxLag;
     return result;
+  }
+
+  pairDelayInto(indexA: number, indexB: number, maxLagSeconds: number, result: PairDelay): PairDelay {
+    const a = this.channel(indexA);
+    const b = this.channel(indexB);
+    const maxLag = this.correlatePair(a, b, maxLagSeconds);
+    return this.measureAt(a, b, this.integerPeak(maxLag), maxLag, maxLagSeconds, result);
+  }
+
+  pairPeaksInto(indexA: number, indexB: number, maxLagSeconds: number, peaks: PeakSearch, results: PairDelay[]): number {
+    const a = this.channel(indexA);
+    const b = this.channel(indexB);
+    const maxLag = this.correlatePair(a, b, maxLagSeconds);
+    const strongestLag = this.integerPeak(maxLag);
+    const lags = this.peakLags;
+    lags.length = 0;
+    lags.push(strongestLag);
+    const wanted = Math.max(1, Math.min(MAX_PEAKS, Math.floor(peaks.maxPeaks)));
+    if (wanted > 1) {
+      const c = this.correlation;
+      const n = this.fftSizePoints;
+      const at = (lag: number) => c[lag >= 0 ? lag : n + lag]!;
+      const floor = peaks.minRelativeHeight * at(strongestLag);
+      // Local maxima within the limits above the floor, other than the strongest (bounded: a fixed number kept by height).
+      const found = this.peakFound;
+      found.length = 0;
+      for (let lag = -maxLag + 1; lag < maxLag; lag++) {
+        const v = at(lag);
+        if (v < floor || lag === strongestLag || v < at(lag - 1) || v <= at(lag + 1)) continue;
+        found.push(lag);
+      }
+      found.sort((p, q) => at(q) - at(p));
+      for (const lag of found) {
+        if (lags.length >= wanted) break;
+        lags.push(lag);
+      }
+    }
+    for (let i = 0; i < lags.length; i++) {
+      results[i] ??= { delaySeconds: 0, sigmaSeconds: 0, lagSamples: 0, peakValue: 0, peakToSecondRatio: 1, snrDb: 0, weighting: this.weighting, interpolation: this.interpolation };
+      this.measureAt(a, b, lags[i]!, maxLag, maxLagSeconds, results[i]!);
+    }
+    return lags.length;
   }
 
   lastCorrelation(output: Float64Array): Float64Array {

@@ -45,6 +45,7 @@ export {
   type GccEngine,
   type GccOptions,
   type PairDelay,
+  type PeakSearch,
 } from './gccEngine';
 export { gccPairDelay } from './gcc';
 export { autocorrelation, autocorrelationWidth, type AutocorrelationWidth } from './autocorrelation';

@@ -43,6 +43,11 @@ export function locatedEventRecord(located: LocatedEvent, context: SurveyLogCont
     channels_triggered: located.event.channelsTriggered,
     event_flags: located.event.flags.join(' '),
   });
+  // Which rule chose each pair's correlation peak (JSON/GeoJSON): the pairs where it was not simply the strongest.
+  const chosenOtherwise = located.pairs.filter((p) => p.peakChoice !== undefined && p.peakChoice !== 'strongest');
+  Object.assign(record, {
+    peak_choices: chosenOtherwise.length === 0 ? 'all strongest' : chosenOtherwise.map((p) => `${p.indexA + 1}-${p.indexB + 1} ${p.peakChoice}`).join(', '),
+  });
   // What the ellipse is made of: shares in the CSV, each term's horizontal variance (m²) in JSON/GeoJSON.
   const terms = ellipseTerms(located);
   record.ellipse_terms = describeEllipseTerms(terms);

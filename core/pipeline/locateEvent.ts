@@ -2,10 +2,12 @@
 // solve (core/locate). Times in seconds from the start of the recording.
 import { chooseBand, type DetectedEvent } from '../detect';
 import type { FrequencyBand } from '../dsp';
-import { solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
+import { median, solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
 import type { ArrayGeometry } from '../project';
 import { maxArrayDelaySeconds } from './channelMap';
+import { chooseDirectPaths, closureAgreement } from './directPath';
 import { measurePairs, type PairMeasurement } from './measurePairs';
+import { gateChannels, onsetGatedSpan, soundsReverberant, taperWindow } from './onsetGate';
 import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { applyReductionCheck } from './reductionCheck';
@@ -109,10 +111,17 @@ export function timingEvidenceOf(microphones: Microphone[], reduced: ReducedDela
  * moderated by the event's own residuals), with outlier rejection. `model` is PRIOR_TIMING_NOISE until events are pooled.
  */
 export function solveWithTimingModel(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions, model: TimingNoiseModel): { solve: SolveResult; timing: LocatedTiming } {
-  const evidence = timingEvidenceOf(microphones, reduced, options);
-  const parts = eventTiming(model, evidence);
-  const delays = reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: parts.arrivalSigmaSeconds * Math.SQRT2 }));
-  const solve = solveFix(microphones, delays, options);
+  let evidence = timingEvidenceOf(microphones, reduced, options);
+  let parts = eventTiming(model, evidence);
+  const solveAt = (sigma: number) => solveFix(microphones, reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: sigma * Math.SQRT2 })), options);
+  let solve = solveAt(parts.arrivalSigmaSeconds);
+  // Arrivals the solve left out as outliers are not this event's timing noise: its own evidence is re-read without them.
+  const chi = solve.fix?.chiSquare;
+  if (globalThis.process?.env?.REREAD === '1' && chi !== undefined && Number.isFinite(chi.statistic) && chi.degreesOfFreedom > 0 && chi.degreesOfFreedom < evidence.degreesOfFreedom) {
+    evidence = { ...evidence, residualSumSeconds2: chi.statistic * parts.arrivalSigmaSeconds ** 2, degreesOfFreedom: chi.degreesOfFreedom };
+    parts = eventTiming(model, evidence);
+    solve = solveAt(parts.arrivalSigmaSeconds);
+  }
   if (parts.eventFactor > 4) {
     solve.warnings.unshift(`This sound's time differences scatter ${Math.sqrt(parts.eventFactor).toFixed(1)} times more than the timing-noise model expects (echoes, a second source, directivity?); its ellipse was widened to match.`);
   }
@@ -149,15 +158,14 @@ export function toSolverMicrophones(geometry: ArrayGeometry): Microphone[] {
  */
 function correlationSpan(event: DetectedEvent, context: LocateContext): { startSeconds: number; endSeconds: number } {
   const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
-  if (event.flags.includes('manual') || onsets.some((onset) => onset === undefined)) return { startSeconds: event.startSeconds, endSeconds: event.endSeconds };
   const reachSeconds = maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98);
-  const startSeconds = Math.max(event.startSeconds, minOf(onsets as number[]) - CORRELATION_MARGIN_SECONDS);
-  const endSeconds = Math.max(startSeconds + 0.01, event.endSeconds - reachSeconds);
+  // Onset-gated (./onsetGate.ts): the direct sound at every microphone, not the reverberation after it.
+  const gate = event.flags.includes('manual') ? undefined : onsetGatedSpan(onsets, reachSeconds);
+  if (gate === undefined) return { startSeconds: event.startSeconds, endSeconds: event.endSeconds };
+  const startSeconds = Math.max(event.startSeconds, gate.startSeconds);
+  const endSeconds = Math.max(startSeconds + 0.01, Math.min(event.endSeconds, gate.endSeconds));
   return { startSeconds, endSeconds };
 }
-
-/** Lead-in before the first onset in a correlation window (onsets are found to a frame or two). */
-const CORRELATION_MARGIN_SECONDS = 0.03;
 
 /** Emission time and first arrival of an event's fix (seconds from the start of the recording): from the earliest onset and the ranges. */
 export function eventTimes(event: DetectedEvent, context: LocateContext, solve: SolveResult): { emissionTimeSeconds: number | undefined; firstArrivalSeconds: number } {
@@ -170,6 +178,11 @@ export function eventTimes(event: DetectedEvent, context: LocateContext, solve: 
   const emissionTimeSeconds = onset.seconds - rangeMeters(microphones[onset.microphoneIndex]!) / c;
   return { emissionTimeSeconds, firstArrivalSeconds: emissionTimeSeconds + minOf(microphones.map((m) => rangeMeters(m))) / c };
 }
+
+/** Peaks kept per pair as direct-path candidates: up to four, each at least 40 % of the strongest's height. */
+const DIRECT_PATH_PEAKS = { maxPeaks: 4, minRelativeHeight: 0.4 };
+/** Median pair peak (band-limited correlation, 1 = every component aligned) below which a ringing event counts as reverberant. */
+const REVERBERANT_PEAK_VALUE = 0.2;
 
 /** Events are located one after another in a thread (they share the scratch buffers; the work is CPU-bound anyway). */
 let queueTail: Promise<unknown> = Promise.resolve();
@@ -195,6 +208,7 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
     warnings.push(`The event lasts ${(event.endSeconds - event.startSeconds).toFixed(1)} s; only ${MAX_EVENT_WINDOW_SECONDS} s around its onset were correlated.`);
   }
   const window = pick(await recording.readFrames(startFrame, endFrame - startFrame, scratchFor('window', recording.info.channelCount, endFrame - startFrame)), context.channelIndexOfMicrophone);
+  taperWindow(window, endFrame - startFrame, fs);
   let bandHz: FrequencyBand;
   let bandSnrDb = Number.NaN;
   if (context.settings.bandHz !== undefined) {
@@ -206,9 +220,21 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   }
   const marginSeconds = lagMarginSeconds(context.geometry, fs, context.settings.speedMetersPerSecond);
   const microphones = context.geometry.microphones;
-  // The speed is taken 2 % low so slow air still fits.
-  const pairs = measurePairs(window, microphones, { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds: marginSeconds });
   const referenceIndex = onset?.microphoneIndex ?? 0;
+  // The speed is taken 2 % low so slow air still fits. Echoes can make a later peak the strongest: each pair's peak is
+  // chosen by closure with the others (./directPath.ts).
+  const pairSettings = { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds: marginSeconds, peakSearch: DIRECT_PATH_PEAKS };
+  const measureDirect = (channels: Float32Array[]) => chooseDirectPaths(measurePairs(channels, microphones, pairSettings), microphones.length, referenceIndex, { toleranceSeconds: marginSeconds });
+  const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
+  let pairs = measureDirect(window);
+  const medianPeak = median(pairs.map((pair) => pair.peakValue));
+  if (!event.flags.includes('manual') && medianPeak < REVERBERANT_PEAK_VALUE && soundsReverberant(event.endSeconds, onsets, maxArrayDelaySeconds(context.geometry, pairSettings.speedMetersPerSecond))) {
+    // A ringing event whose channels hardly cohere (reverberation): each microphone gated to its own direct sound
+    // (./onsetGate.ts); closure decides between the two sets of pairs.
+    gateChannels(window, endFrame - startFrame, startFrame / fs, onsets, fs);
+    const gated = measureDirect(window);
+    if (closureAgreement(gated, microphones.length, referenceIndex, marginSeconds) >= closureAgreement(pairs, microphones.length, referenceIndex, marginSeconds)) pairs = gated;
+  }
   const floorSeconds = (MIN_ARRIVAL_SIGMA_SAMPLES * Math.SQRT2) / fs;
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);

@@ -1,6 +1,6 @@
 // Time differences of every microphone pair of one event window by generalized cross-correlation (core/dsp),
 // each searched only within the lags the pair's spacing allows (|τ| ≤ d/c plus a margin).
-import { createGccEngine, nextPowerOfTwo, type FrequencyBand, type GccEngine, type GccWeighting } from '../dsp';
+import { createGccEngine, nextPowerOfTwo, type FrequencyBand, type GccEngine, type GccWeighting, type PairDelay, type PeakSearch } from '../dsp';
 import type { ArrayMicrophone } from '../project';
 import { maxOf } from '../units';
 
@@ -13,6 +13,25 @@ export interface PairMeasurement {
   peakValue: number;
   snrDb: number;
   maxLagSeconds: number;
+  /**
+   * Which rule chose this pair's peak (./directPath.ts): 'strongest' (the highest peak), 'closure' (another peak, because
+   * it agrees with the other pairs and the highest does not), 'earliest' (of peaks agreeing equally, the earliest arrival).
+   * measurePairs always sets it; pairs made elsewhere (tests, older data) may leave it out, meaning 'strongest'.
+   */
+  peakChoice?: PeakChoice;
+  /** Further peaks within the lag limit and near the strongest in height, strongest first (the strongest is not repeated). */
+  otherPeaks?: PeakCandidate[];
+}
+
+export type PeakChoice = 'strongest' | 'closure' | 'earliest';
+
+/** One correlation peak of a pair: delay (arrival at A minus at B), its sigma, height and quality. */
+export interface PeakCandidate {
+  delaySeconds: number;
+  sigmaSeconds: number;
+  peakToSecondRatio: number;
+  peakValue: number;
+  snrDb: number;
 }
 
 export interface PairSettings {
@@ -22,6 +41,8 @@ export interface PairSettings {
   bandHz: FrequencyBand;
   /** Added to d/c for each pair's lag limit; covers survey error and the speed's uncertainty. */
   lagMarginSeconds: number;
+  /** Keep further peaks per pair as direct-path candidates (default: the strongest only). */
+  peakSearch?: PeakSearch;
 }
 
 export function pairSpacingMeters(a: ArrayMicrophone, b: ArrayMicrophone): number {
@@ -63,9 +84,18 @@ export function measurePairs(channels: readonly Float32Array[], microphones: rea
   const windowLagSeconds = Math.max(0, windowFrames - 1) / settings.sampleRateHz;
   const engine = engineFor(windowFrames, settings, Math.min(windowLagSeconds, Math.max(0, maxOf(pairLagsSeconds.map((pair) => pair.lagSeconds)))));
   channels.forEach((samples, index) => engine.setChannel(index, samples));
-  return pairLagsSeconds.map(({ a, b, lagSeconds }) => {
+  const search = settings.peakSearch;
+  const peaks: PairDelay[] = [];
+  return pairLagsSeconds.map(({ a, b, lagSeconds }): PairMeasurement => {
     const maxLagSeconds = Math.min(engine.maxLagSeconds, lagSeconds);
-    const delay = engine.pairDelay(a, b, maxLagSeconds);
-    return { indexA: a, indexB: b, delaySeconds: delay.delaySeconds, sigmaSeconds: delay.sigmaSeconds, peakToSecondRatio: delay.peakToSecondRatio, peakValue: delay.peakValue, snrDb: delay.snrDb, maxLagSeconds };
+    if (search === undefined || search.maxPeaks <= 1) {
+      const delay = engine.pairDelay(a, b, maxLagSeconds);
+      return { indexA: a, indexB: b, delaySeconds: delay.delaySeconds, sigmaSeconds: delay.sigmaSeconds, peakToSecondRatio: delay.peakToSecondRatio, peakValue: delay.peakValue, snrDb: delay.snrDb, maxLagSeconds, peakChoice: 'strongest' };
+    }
+    const count = engine.pairPeaksInto(a, b, maxLagSeconds, search, peaks);
+    const [delay, ...others] = peaks.slice(0, count).map((p): PeakCandidate => ({ delaySeconds: p.delaySeconds, sigmaSeconds: p.sigmaSeconds, peakToSecondRatio: p.peakToSecondRatio, peakValue: p.peakValue, snrDb: p.snrDb }));
+    const pair: PairMeasurement = { indexA: a, indexB: b, ...delay!, maxLagSeconds, peakChoice: 'strongest' };
+    if (others.length > 0) pair.otherPeaks = others;
+    return pair;
   });
 }

@@ -130,11 +130,11 @@ export function courtyardScene(): ReverbScene {
   return airScene('courtyard', 802, mics, room, { eastMin: 1, eastMax: 39, northMin: 1, northMax: 29 }, 60, 0.8, -14);
 }
 
-/** A corridor 80 x 6 x 4 m, reverberation 3 s (Eyring), 6 microphones zig-zag along it. */
+/** A corridor 80 x 6 x 4 m, reverberation 2 s (Eyring), 6 microphones zig-zag along its middle 40 m. */
 export function corridorScene(): ReverbScene {
-  const mics = microphones([[6, 1.2, 1.2], [20, 4.8, 2.5], [34, 1.2, 1.4], [48, 4.8, 2.2], [62, 1.2, 1.0], [74, 4.8, 2.6]]);
-  const room = shoeboxRoom({ lengthEastMeters: 80, widthNorthMeters: 6, heightMeters: 4, rt60Seconds: 3, speedMetersPerSecond: AIR_SPEED }, { maxOrder: 4, maxDelaySeconds: 0.08, diffuseTail: true });
-  return airScene('corridor', 803, mics, room, { eastMin: 1, eastMax: 79, northMin: 0.5, northMax: 5.5 }, 50, 2.5, -20);
+  const mics = microphones([[20, 1.2, 1.2], [28, 4.8, 2.5], [36, 1.2, 1.4], [44, 4.8, 2.2], [52, 1.2, 1.0], [60, 4.8, 2.6]]);
+  const room = shoeboxRoom({ lengthEastMeters: 80, widthNorthMeters: 6, heightMeters: 4, rt60Seconds: 2, speedMetersPerSecond: AIR_SPEED }, { maxOrder: 4, maxDelaySeconds: 0.08, diffuseTail: true });
+  return airScene('corridor', 803, mics, room, { eastMin: 1, eastMax: 79, northMin: 0.5, northMax: 5.5 }, 50, 2.5, -10);
 }
 
 /** Shallow water 15 m deep: surface reflection -0.95 (pressure release), sandy bottom 0.5; 5 hydrophones; seawater speed. */

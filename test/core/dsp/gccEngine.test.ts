@@ -197,3 +197,34 @@ describe('GccEngine.setBand()', () => {
     expect(() => reused.setBand({ lowHz: 30_000, highHz: 30_001 })).toThrow(/30000-30001 Hz/);
   });
 });
+
+describe('GccEngine.pairPeaksInto()', () => {
+  it('pairPeaksInto() keeps a weaker direct peak beside a stronger echo, strongest first, each at its own delay', () => {
+    const source = whiteNoise(16_384, 77);
+    const a = fractionalDelay(source, 10.3).slice(2000, 6096);
+    const direct = fractionalDelay(source, 4.0);
+    const echo = fractionalDelay(source, 29.6);
+    const b = direct.map((v, i) => 0.7 * v + echo[i]!).slice(2000, 6096);
+    const engine = createGccEngine(4096, baseOptions);
+    engine.setChannel(0, a);
+    engine.setChannel(1, b);
+    const peaks: PairDelay[] = [];
+    const count = engine.pairPeaksInto(0, 1, 0.004, { maxPeaks: 3, minRelativeHeight: 0.4 }, peaks);
+    expect(count).toBeGreaterThanOrEqual(2);
+    // arrival at A minus arrival at B: the echo path 10.3 - 29.6 samples, the direct path 10.3 - 4.0 (constructed)
+    expect(peaks[0]!.lagSamples).toBeCloseTo(-19.3, 1);
+    expect(peaks.slice(1, count).some((p) => Math.abs(p.lagSamples - 6.3) < 0.05)).toBe(true);
+    expect(peaks[0]!.delaySeconds).toBe(engine.pairDelay(0, 1, 0.004).delaySeconds);
+    for (let i = 1; i < count; i++) expect(peaks[i]!.peakValue).toBeLessThanOrEqual(peaks[i - 1]!.peakValue + 0.02);
+  });
+
+  it('pairPeaksInto() gives only the strongest peak when no other reaches the height asked for', () => {
+    const [a, b] = fourChannels([3.25, 0], 4096, 5, 40);
+    const engine = createGccEngine(4096, baseOptions);
+    engine.setChannel(0, a!);
+    engine.setChannel(1, b!);
+    const peaks: PairDelay[] = [];
+    expect(engine.pairPeaksInto(0, 1, 0.004, { maxPeaks: 4, minRelativeHeight: 0.5 }, peaks)).toBe(1);
+    expect(peaks[0]!.lagSamples).toBeCloseTo(3.25, 2); // constructed delay
+  });
+});

@@ -1,0 +1,79 @@
+// The onset-gated correlation window: from the earliest onset (less a lead-in) through the latest microphone's direct
+// sound, not the reverberation after it; edges tapered by a Tukey (raised-cosine) window. Seconds and frames.
+
+/** Lead-in before the earliest onset (onsets are found to a frame or two and may trail a weak start). */
+export const GATE_LEAD_SECONDS = 0.02;
+/** How much of each microphone's sound after its onset is correlated: the direct part, before reverberation dominates. */
+export const DIRECT_PART_SECONDS = 0.1;
+/** Raised-cosine ramp at each end of the gated window, at most this long (and at most the lead-in). */
+const TAPER_SECONDS = 0.01;
+
+/**
+ * The gated span of an event whose onsets (seconds, per microphone; undefined where one did not trigger) are known:
+ * from the earliest onset less the lead-in to the latest onset (or, with a microphone missing, the earliest onset plus
+ * the array's largest delay) plus the direct part. Undefined without any onset.
+ */
+export function onsetGatedSpan(onsetsSeconds: ReadonlyArray<number | undefined>, maxArrayDelaySeconds: number): { startSeconds: number; endSeconds: number } | undefined {
+  const known = onsetsSeconds.filter((onset): onset is number => onset !== undefined);
+  if (known.length === 0) return undefined;
+  let first = known[0]!;
+  let last = known[0]!;
+  for (const onset of known) {
+    if (onset < first) first = onset;
+    if (onset > last) last = onset;
+  }
+  const latest = known.length === onsetsSeconds.length ? Math.min(last, first + maxArrayDelaySeconds) : first + maxArrayDelaySeconds;
+  return { startSeconds: first - GATE_LEAD_SECONDS, endSeconds: latest + DIRECT_PART_SECONDS + GATE_LEAD_SECONDS };
+}
+
+/** Tapers both ends of each channel's first `frames` samples in place with a raised cosine of `rampFrames` (a Tukey window). */
+export function taperWindow(channels: readonly Float32Array[], frames: number, sampleRateHz: number): void {
+  const ramp = Math.min(Math.floor(frames / 4), Math.round(Math.min(TAPER_SECONDS, GATE_LEAD_SECONDS / 2) * sampleRateHz));
+  if (ramp < 2) return;
+  for (let i = 0; i < ramp; i++) {
+    const w = 0.5 - 0.5 * Math.cos((Math.PI * (i + 0.5)) / ramp);
+    for (const channel of channels) {
+      channel[i]! *= w;
+      channel[frames - 1 - i]! *= w;
+    }
+  }
+}
+
+/** Lead-in and length of each microphone's own gate in a reverberant space: its direct sound from its onset, not the echoes after it. */
+export const CHANNEL_GATE_LEAD_SECONDS = 0.01;
+export const CHANNEL_GATE_SECONDS = 0.03;
+/** A sound heard longer than this after its last onset (the detector's event) is taken to ring in a reverberant space. */
+export const REVERBERANT_EVENT_SECONDS = 0.25;
+
+/**
+ * Whether an event rings on well after its last onset (reverberation): then each channel is gated to its own direct
+ * sound (gateChannels). Sounds in the open end soon after their onsets and keep the whole onset-gated window.
+ */
+export function soundsReverberant(eventEndSeconds: number, onsetsSeconds: ReadonlyArray<number | undefined>, maxArrayDelaySeconds: number): boolean {
+  let last = Number.NEGATIVE_INFINITY;
+  for (const onset of onsetsSeconds) if (onset !== undefined && onset > last) last = onset;
+  return Number.isFinite(last) && eventEndSeconds - maxArrayDelaySeconds - last > REVERBERANT_EVENT_SECONDS;
+}
+
+/**
+ * Keeps each channel only from its own onset less the lead-in to CHANNEL_GATE_SECONDS after it, with raised-cosine
+ * edges, in place (window frames [0, frames) start at windowStartSeconds). Channels without an onset are left whole.
+ */
+export function gateChannels(channels: readonly Float32Array[], frames: number, windowStartSeconds: number, onsetsSeconds: ReadonlyArray<number | undefined>, sampleRateHz: number): void {
+  const ramp = Math.max(1, Math.round(Math.min(TAPER_SECONDS, CHANNEL_GATE_LEAD_SECONDS / 2) * sampleRateHz));
+  channels.forEach((channel, index) => {
+    const onset = onsetsSeconds[index];
+    if (onset === undefined) return;
+    const picked = Math.round((onset - windowStartSeconds) * sampleRateHz);
+    const from = picked - Math.round(CHANNEL_GATE_LEAD_SECONDS * sampleRateHz);
+    const to = picked + Math.round(CHANNEL_GATE_SECONDS * sampleRateHz);
+    for (let i = 0; i < frames; i++) {
+      let w: number;
+      if (i < from || i >= to) w = 0;
+      else if (i < from + ramp) w = 0.5 - 0.5 * Math.cos((Math.PI * (i - from + 0.5)) / ramp);
+      else if (i >= to - ramp) w = 0.5 - 0.5 * Math.cos((Math.PI * (to - i - 0.5)) / ramp);
+      else continue;
+      channel[i]! *= w;
+    }
+  });
+}
