@@ -1,7 +1,7 @@
 // Checks the microphone table cell by cell and as a whole; returns messages per cell, per row and for the table, and the usable microphones.
 // Units: local east/north/up metres about the WGS84 origin (geodetic rows converted through core/geo); latitude/longitude in degrees.
 import { geodeticToEnu, parseDegrees, type GeodeticPosition } from '../../core/geo';
-import { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, MAX_MICROPHONES, type ArrayMicrophone } from '../../core/project';
+import { arrayExtentProblems, centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, MAX_MICROPHONES, type ArrayMicrophone } from '../../core/project';
 import { isBlankRow, POSITION_FIELDS, type MicrophoneField, type MicrophoneRowText, type PositionMode } from './arrayRows';
 
 export type MessageSeverity = 'error' | 'warning';
@@ -270,6 +270,8 @@ export function validateArray(rows: readonly MicrophoneRowText[], recordingChann
       table.push({ severity: 'warning', text: `All ${microphones.length} microphones lie on one line (within ${formatDistance(offLineMeters)}): a 2-D fix cannot tell which side of the line a sound came from, and a 3-D fix is ambiguous around it. Move at least one microphone well off the line.` });
     }
   }
+  // Arrays beyond physical sense (core/project arrayExtent): the solver refuses them, so say so here at once.
+  for (const problem of arrayExtentProblems(microphones, origin)) table.push({ severity: 'error', text: problem.charAt(0).toUpperCase() + problem.slice(1) });
   return { rows: checks, table, microphones, origin, errorRowCount };
 }
 

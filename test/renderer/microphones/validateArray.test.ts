@@ -28,6 +28,15 @@ describe('validateArray()', () => {
     expect(result.rows.every((check) => check.messages.length === 0)).toBe(true);
   });
 
+  it('validateArray() says at once when the array is beyond physical sense: 60 km across, or points around the equator', () => {
+    // Limits of core/project arrayExtent (this project's): 50 km aperture, origin within -12..100 km of the ellipsoid.
+    const wide = validateArray([row('1', 'A', '0', '0'), row('2', 'B', '60000', '0'), row('3', 'C', '0', '60000')]);
+    expect(wide.table.map((m) => [m.severity, m.text])).toContainEqual(['error', expect.stringMatching(/^Microphones B and C are 84\.9 km apart, more than 50 km/)]);
+    const equator = validateArray([geoRow('1', '0', '0'), geoRow('2', '0', '90'), geoRow('3', '0', '180'), geoRow('4', '0', '-90')], undefined, { mode: 'geodetic' });
+    expect(equator.table.map((m) => m.text).join(' ')).toMatch(/The origin of the local frame is -6356\.8 km from the WGS84 ellipsoid/);
+    expect(validateArray(square).table).toEqual([]);
+  });
+
   it('validateArray() marks each row past MAX_MICROPHONES (256) as an error saying the limit', () => {
     // Expected: this project's limit (core/project MAX_MICROPHONES), as parseArrayCsv() and the project schema apply it.
     const rows = Array.from({ length: 258 }, (_, i) => row(String(i + 1), '', String(i), String((i * i) % 97)));
