@@ -129,6 +129,8 @@ export const fixLogEntrySchema = z
     northMeters: z.number().optional(),
     upMeters: z.number().optional(),
     covarianceMeters2: squareCovariance.optional(),
+    /** An ambiguous fix's other solution (mirror or second crossing), local metres, kept so the log never loses it. */
+    alternative: z.object({ eastMeters: z.number(), northMeters: z.number(), upMeters: z.number() }).optional(),
     ellipse: z
       .object({
         semiMajorMeters: z.number().nonnegative(),

@@ -47,6 +47,8 @@ export function fixLogEntryFromLocated(located: LocatedEvent, options: EntryOpti
     const e = fix.ellipse;
     if ([e.semiMajorMeters, e.semiMinorMeters, e.majorAxisDegreesFromEast].every(Number.isFinite) && e.confidence > 0 && e.confidence < 1) entry.ellipse = { ...e };
     if (Number.isFinite(fix.residualRmsSeconds)) entry.residualRmsSeconds = fix.residualRmsSeconds;
+    const other = fix.alternative;
+    if (other !== undefined && [other.eastMeters, other.northMeters, other.upMeters].every(Number.isFinite)) entry.alternative = { eastMeters: other.eastMeters, northMeters: other.northMeters, upMeters: other.upMeters };
   }
   if (Number.isFinite(located.bandHz.lowHz) && located.bandHz.highHz > located.bandHz.lowHz) entry.bandHz = { lowHz: located.bandHz.lowHz, highHz: located.bandHz.highHz };
   const warnings = [...located.warnings, ...located.solve.warnings];

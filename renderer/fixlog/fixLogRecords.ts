@@ -24,7 +24,7 @@ export function fixLogFileName(kind: FixLogExportKind): string {
 
 /** Columns a fix log entry does not keep: written only when the located event is at hand. */
 export const COLUMNS_NEEDING_LOCATED_EVENT = [
-  'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_dropped', 'alternative_x_m', 'alternative_y_m', 'alternative_z_m',
+  'timing_sigma_s', 'sigma_source', 'chi_square', 'chi_square_dof', 'gdop', 'pairs_dropped',
   'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags', 'ellipse_terms',
 ] as const;
 
@@ -56,6 +56,7 @@ function entrySolve(entry: FixLogEntry): SolveResult {
     conditionNumber: Number.NaN,
   };
   if (entry.emissionTimeSeconds !== undefined) fix.emissionTimeSeconds = entry.emissionTimeSeconds;
+  if (entry.alternative !== undefined) fix.alternative = { ...entry.alternative };
   return { ...result, fix };
 }
 

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { locatedVerdict } from '../../../core/pipeline';
 import { emptyProjectDocument, validateProjectDocument } from '../../../core/project';
 import { fixLogEntryFromLocated, minPeakRatio } from '../../../renderer/fixlog/entryFromLocated';
-import { locatedEvent, squareArray, startTime } from './locatedFixtures';
+import { fixLogToRecords } from '../../../renderer/fixlog/fixLogRecords';
+import { locatedEvent, squareArray, startTime, surveyContext } from './locatedFixtures';
 
 describe('fixLogEntryFromLocated()', () => {
   // Expected values: the fixes of invented events (./locatedFixtures, delays from geometry r/c, common practice) copied through; the entry layout is this project's schema.
@@ -28,6 +29,21 @@ describe('fixLogEntryFromLocated()', () => {
     expect(entry.ellipse).toBeUndefined();
     expect(entry.accepted).toBe(false);
     expect(entry.localTime).toBeUndefined();
+    expect(() => validateProjectDocument({ ...emptyProjectDocument('t'), fixes: [entry] })).not.toThrow();
+  });
+});
+
+describe('fixLogEntryFromLocated() and an ambiguous fix', () => {
+  it('fixLogEntryFromLocated() keeps the other solution of an ambiguous fix, and the log written from the entry alone has it', () => {
+    const event = locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 4);
+    const fix = event.solve.fix!;
+    // An invented mirror position: the entry must carry whatever the solver gave.
+    const ambiguous = { ...event, solve: { ...event.solve, status: 'ambiguous' as const, fix: { ...fix, alternative: { eastMeters: 20.25, northMeters: -35.5, upMeters: 1.5 } } } };
+    const entry = fixLogEntryFromLocated(ambiguous, { id: 'm', verdict: locatedVerdict(ambiguous, { microphones: squareArray }) });
+    expect(entry.verdict).toEqual({ grade: 'doubtful', reason: 'Two spots fit equally: check the other one.' });
+    expect(entry.alternative).toEqual({ eastMeters: 20.25, northMeters: -35.5, upMeters: 1.5 });
+    const [record] = fixLogToRecords([entry], surveyContext(squareArray, 2, false));
+    expect([record!.alternative_x_m, record!.alternative_y_m]).toEqual([20.25, -35.5]);
     expect(() => validateProjectDocument({ ...emptyProjectDocument('t'), fixes: [entry] })).not.toThrow();
   });
 });
