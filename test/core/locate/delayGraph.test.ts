@@ -15,6 +15,14 @@ describe('connectedComponents() and graphRank()', () => {
     // rank of a graph's incidence matrix: vertices minus components (common practice)
     expect(graphRank(groups)).toBe(4);
   });
+
+  it('splits two disconnected pairs into two groups of rank one each (what solveFix refuses as separate groups)', () => {
+    const groups = connectedComponents(4, edges([[0, 1], [2, 3]]));
+    expect(groups).toEqual([[0, 1], [2, 3]]);
+    // Each group alone has one independent delay (common practice: vertices minus components): no point in 2-D.
+    expect(graphRank(groups.slice(0, 1))).toBe(1);
+    expect(graphRank(groups)).toBe(2);
+  });
 });
 
 describe('reduceToReference()', () => {

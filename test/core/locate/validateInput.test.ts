@@ -45,6 +45,14 @@ describe('solveFix() input checks', () => {
     expectInvalid(twin, delays, options, /microphones\[1\] \('M2'\) and microphones\[3\] \('north-post'\) are at the same position/);
   });
 
+  it('refuses coordinates beyond 1000 km of the local origin and arrays more than 50 km across, saying what to check', () => {
+    // Limits this project sets (DEVELOPERS.md, "Statuses and verdicts"): one flat local frame and one speed of sound.
+    const { mics, delays, options } = good();
+    expectInvalid(mics.map((m, i) => (i === 2 ? { ...m, eastMeters: 1e15 } : m)), delays, options, /microphones\[2\] \('M3'\) is 1\.00e\+15 m from the origin of the local frame.*Check the units/);
+    expectInvalid(mics.map((m) => ({ ...m, eastMeters: m.eastMeters * 1500, northMeters: m.northMeters * 1500 })), delays, options, /The microphones span 84\.9 km, more than 50 km/);
+    expect(solveFix(mics.map((m) => ({ ...m, eastMeters: m.eastMeters + 500_000, northMeters: m.northMeters + 400_000 })), delays, options).status).not.toBe('invalid-input');
+  });
+
   it('names bad options', () => {
     const { mics, delays, options } = good();
     expectInvalid(mics, delays, { ...options, speedMetersPerSecond: Number.NaN }, 'options.speedMetersPerSecond');
