@@ -36,6 +36,7 @@ describe('whence locate', () => {
     const run = runCliBinary(['locate', 'site.wav', '--array', 'array.csv', '--sound-speed', '343', '--height', '1.2'], { cwd: folder });
     expect(run.exitCode).toBe(0);
     expect(run.stderr).toContain('2 events found, 2 fixed');
+    expect(run.stderr).toContain('verdicts: 1 firm, 1 doubtful, 0 unusable (see the verdict and verdict_reason columns).');
     const table = readCsv(run.stdout, 'stdout');
     const column = (name: string) => table.header.indexOf(name);
     expect(table.rows).toHaveLength(2);
