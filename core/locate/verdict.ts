@@ -46,6 +46,8 @@ export const VERDICT_LIMITS = Object.freeze({
   largeEllipseApertureFraction: 0.25,
   /** Position error per metre of range error beyond which the geometry amplifies errors too much. */
   gdop: 10,
+  /** A semi-major axis beyond this many apertures leaves a direction, not a position. */
+  directionOnlyApertures: 10,
 });
 
 const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten'];
@@ -137,6 +139,10 @@ export function fixVerdict(input: VerdictInput): Verdict {
 
   if (status === 'inconsistent') {
     const reason = 'The microphones disagree: no single spot fits.';
+    return { grade: 'unusable', reason, reasons: [reason] };
+  }
+  if (!(semiMajorMeters <= VERDICT_LIMITS.directionOnlyApertures * aperture)) {
+    const reason = 'Only a direction, not a position: the ellipse is far longer than the array.';
     return { grade: 'unusable', reason, reasons: [reason] };
   }
   if (status === 'ambiguous') reasons.push('Two spots fit equally: check the other one.');

@@ -36,6 +36,18 @@ describe('fixVerdict()', () => {
     expect(verdictOf({ ...inside, status: 'inconsistent' })).toMatchObject({ grade: 'unusable', reason: 'The microphones disagree: no single spot fits.' });
   });
 
+  it("grades a fix whose ellipse is more than ten apertures long 'unusable': a direction, not a position", () => {
+    // Microphones on a line, the source on its extension at (150, 0) m: the fix runs off along the line (computed by solveFix).
+    const line = microphonesAt([[0, 0, 0], [50, 0, 0], [100, 0, 0]]);
+    const delays = pairDelays([[0, 0, 0], [50, 0, 0], [100, 0, 0]], [150, 0, 0], [[1, 0], [2, 0], [2, 1]], C, undefined, 0, false).map((d) => ({ ...d, sigmaSeconds: 1e-5 }));
+    const endfire = solveFix(line, delays, { speedMetersPerSecond: C, dimensions: 2 });
+    expect(endfire.status).toBe('ill-conditioned');
+    expect(fixVerdict({ status: endfire.status, fix: endfire.fix!, microphones: line })).toMatchObject({ grade: 'unusable', reason: 'Only a direction, not a position: the ellipse is far longer than the array.' });
+    // Ten apertures (56.6 m for the square) is the limit: 560 m doubtful, 570 m unusable.
+    expect(verdictOf(withFix(inside, { ellipse: { ...inside.fix!.ellipse, semiMajorMeters: 560, semiMinorMeters: 1 } })).grade).toBe('doubtful');
+    expect(verdictOf(withFix(inside, { ellipse: { ...inside.fix!.ellipse, semiMajorMeters: 570, semiMinorMeters: 1 } })).grade).toBe('unusable');
+  });
+
   it("grades ambiguous and ill-conditioned fixes 'doubtful'", () => {
     expect(verdictOf({ ...inside, status: 'ambiguous' })).toMatchObject({ grade: 'doubtful', reason: 'Two spots fit equally: check the other one.' });
     expect(verdictOf({ ...inside, status: 'ill-conditioned' })).toMatchObject({ grade: 'doubtful', reason: 'Poor geometry: long ellipse.' });
