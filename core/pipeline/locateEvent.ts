@@ -111,17 +111,10 @@ export function timingEvidenceOf(microphones: Microphone[], reduced: ReducedDela
  * moderated by the event's own residuals), with outlier rejection. `model` is PRIOR_TIMING_NOISE until events are pooled.
  */
 export function solveWithTimingModel(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions, model: TimingNoiseModel): { solve: SolveResult; timing: LocatedTiming } {
-  let evidence = timingEvidenceOf(microphones, reduced, options);
-  let parts = eventTiming(model, evidence);
-  const solveAt = (sigma: number) => solveFix(microphones, reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: sigma * Math.SQRT2 })), options);
-  let solve = solveAt(parts.arrivalSigmaSeconds);
-  // Arrivals the solve left out as outliers are not this event's timing noise: its own evidence is re-read without them.
-  const chi = solve.fix?.chiSquare;
-  if (globalThis.process?.env?.REREAD === '1' && chi !== undefined && Number.isFinite(chi.statistic) && chi.degreesOfFreedom > 0 && chi.degreesOfFreedom < evidence.degreesOfFreedom) {
-    evidence = { ...evidence, residualSumSeconds2: chi.statistic * parts.arrivalSigmaSeconds ** 2, degreesOfFreedom: chi.degreesOfFreedom };
-    parts = eventTiming(model, evidence);
-    solve = solveAt(parts.arrivalSigmaSeconds);
-  }
+  const evidence = timingEvidenceOf(microphones, reduced, options);
+  const parts = eventTiming(model, evidence);
+  const delays = reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: parts.arrivalSigmaSeconds * Math.SQRT2 }));
+  const solve = solveFix(microphones, delays, options);
   if (parts.eventFactor > 4) {
     solve.warnings.unshift(`This sound's time differences scatter ${Math.sqrt(parts.eventFactor).toFixed(1)} times more than the timing-noise model expects (echoes, a second source, directivity?); its ellipse was widened to match.`);
   }
@@ -239,6 +232,7 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
+  // Closure of the pairs at the sigma the solver finally used: an event whose peaks disagree is not `ok`.
   let solve: SolveResult = { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
   let timing: LocatedTiming | undefined;
   if (reduced.delays.length > 0) {

@@ -71,12 +71,12 @@ describe('estimateTimingNoise()', () => {
 });
 
 describe('eventTiming()', () => {
-  it('moderates the pooled variance by the event\'s own residuals with 4 prior degrees of freedom', () => {
-    // Pooled: k = 2, σ = 1 µs, no floor -> 4 µs². Own residual sum 24 µs² on 1 dof: (4 * 4 + 24) / (4 + 1) = 8 µs²
+  it('moderates the pooled variance by the event\'s own residuals with 2 prior degrees of freedom', () => {
+    // Pooled: k = 2, σ = 1 µs, no floor -> 4 µs². Own residual sum 24 µs² on 1 dof: (2 * 4 + 24) / (2 + 1) = 32/3 µs²
     // (posterior mean of a variance under a scaled-inverse-chi² prior, Gelman et al., Bayesian Data Analysis, 3.3; computed by hand).
-    const timing = eventTiming({ ...PRIOR_TIMING_NOISE, scale: 2, source: 'pooled' }, { priorArrivalSigmaSeconds: 1e-6, residualSumSeconds2: 24e-12, degreesOfFreedom: 1 });
-    expect(timing.arrivalSigmaSeconds).toBeCloseTo(Math.sqrt(8) * 1e-6, 12);
-    expect(timing.eventFactor).toBeCloseTo(2, 9);
+    const timing = eventTiming({ ...PRIOR_TIMING_NOISE, scale: 2, reflectedScale: 2, source: 'pooled' }, { priorArrivalSigmaSeconds: 1e-6, residualSumSeconds2: 24e-12, degreesOfFreedom: 1 });
+    expect(timing.arrivalSigmaSeconds).toBeCloseTo(Math.sqrt(32 / 3) * 1e-6, 12);
+    expect(timing.eventFactor).toBeCloseTo(8 / 3, 9);
     expect(timing.noiseVarianceSeconds2).toBeCloseTo(4e-12, 18);
   });
 
