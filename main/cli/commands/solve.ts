@@ -38,9 +38,12 @@ export const solveHelp = `whence solve --array ARRAY.csv --delays DELAYS.csv [op
   --json                JSON array on standard output instead of CSV
   --out FILE            write FILE.csv, FILE.json or FILE.geojson instead (atomically)
 
-  Output columns: event, status, verdict (firm, doubtful or unusable), verdict_reason, x_m, y_m, z_m, lat, lon, alt_m, covariance (m²),
+  Output columns: event, status (ok, ambiguous, ill-conditioned, inconsistent,
+  insufficient or invalid-input), verdict (firm, doubtful or unusable) and
+  verdict_reason (why, in one sentence), x_m, y_m, z_m, lat, lon, alt_m, covariance (m²),
   semi_major_m, semi_minor_m, major_axis_deg (counter-clockwise from east),
-  residual_rms_s, pairs_used, warnings, and more.
+  residual_rms_s, pairs_used, alternative_x_m/_y_m (the other solution of an
+  ambiguous fix), warnings, and more.
 `;
 
 export function solveEvents(geometry: ArrayGeometry, events: readonly DelayEvent[], options: SolveOptions): FixRecord[] {
