@@ -60,7 +60,9 @@ describe('locate pipeline on synthesized recordings', () => {
     expect(errors.map((e) => e.status)).toEqual(places.map(() => 'ok'));
     expect(median(errors.map((e) => e.errorMeters))).toBeLessThanOrEqual(0.1);
     const inside = errors.filter((e) => e.mahalanobis2 <= CHI2_2DOF_95).length;
-    expect(inside).toBeGreaterThanOrEqual(places.length - 1);
+    // At most 2 of 10 outside a 95 % ellipse: 2 or more happen 8.6 % of the time for calibrated ellipses, 3 or more 1.2 %
+    // (binomial, n = 10, p = 0.05; computed by hand). Calibration over 200 sounds: test/e2e/reverbCalibration.test.ts.
+    expect(inside).toBeGreaterThanOrEqual(places.length - 2);
   });
 
   it('air, 3-D: microphones at several heights give the source height too', async () => {
