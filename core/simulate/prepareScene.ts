@@ -75,7 +75,8 @@ export class PreparedScene {
       const waveform = sourceWaveform(source, rate);
       const level = dbToAmplitude(source.levelDb);
       for (const mic of scene.microphones) {
-        for (const path of soundPaths(source, mic, scene)) {
+        const micPaths = soundPaths(source, mic, scene);
+        for (const path of micPaths) {
           const offsetSeconds = source.emissionTimeSeconds + path.delaySeconds;
           const firstFrame = Math.max(0, Math.ceil((offsetSeconds + waveform.startSeconds) * rate));
           const endFrame = Math.min(this.frameCount, Math.floor((offsetSeconds + waveform.endSeconds) * rate) + 1);
@@ -85,7 +86,8 @@ export class PreparedScene {
         if (acoustics !== undefined && rt60Seconds > 0 && Number.isFinite(rt60Seconds)) {
           const taps = diffuseTailTaps({
             seed, sourceIndex, channelIndex: mic.channel - 1, volumeCubicMeters: acoustics.volumeCubicMeters, rt60Seconds, speedMetersPerSecond: scene.speedMetersPerSecond,
-            startSeconds: room!.maxDelaySeconds!, waveformSeconds: waveform.endSeconds - waveform.startSeconds,
+            // never before the direct sound at this microphone (energy cannot arrive before it; a far microphone hears its tail later)
+            startSeconds: Math.max(room!.maxDelaySeconds!, micPaths[0]!.delaySeconds), waveformSeconds: waveform.endSeconds - waveform.startSeconds,
           });
           const count = taps.delaysSeconds.length;
           const gains = taps.amplitudes.map((amplitude) => amplitude * level);

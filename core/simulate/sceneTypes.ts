@@ -142,8 +142,9 @@ export interface SceneRoom {
   /** Images arriving later than this after emission are left out (and the diffuse tail, if any, takes over). */
   maxDelaySeconds?: number;
   /**
-   * A seeded diffuse tail after maxDelaySeconds, decaying with the room's Eyring reverberation time (needs all six walls
-   * and maxDelaySeconds): random-sign copies of the sound at random delays, so long reverberation renders fast.
+   * A seeded diffuse tail after maxDelaySeconds (at a microphone farther away than that, from its direct sound: never
+   * before it), decaying with the room's Eyring reverberation time (needs all six walls and maxDelaySeconds): random-sign
+   * copies of the sound at random delays, so long reverberation renders fast.
    */
   diffuseTail?: boolean;
 }

@@ -145,6 +145,20 @@ describe('renderScene() with a room', () => {
     expect(-60 / slopeDbPerSecond / rt60).toBeLessThan(1.2);
   });
 
+  it('renderScene() with a diffuse tail puts nothing before the direct sound at a microphone farther away than maxDelaySeconds', () => {
+    // a corridor 60 m long; the microphone 50 m from the source (146 ms) hears its tail after maxDelaySeconds = 30 ms
+    const room = shoeboxRoom({ lengthEastMeters: 60, widthNorthMeters: 6, heightMeters: 4, rt60Seconds: 1, speedMetersPerSecond: C }, { maxOrder: 2, maxDelaySeconds: 0.03, diffuseTail: true });
+    const far = mic(1, 53, 3, 1.2);
+    const spec: SceneSpec = { ...roomScene(room, 0.6), microphones: [far] };
+    const [channel] = renderWhole(spec);
+    // a 4 kHz Ricker pulse is below 1e-6 of its peak beyond 16 samples (as above): earlier than that, silence (no background)
+    const directSample = (CLICK.emissionTimeSeconds + distance(SOURCE, far) / C) * RATE;
+    const before = channel!.subarray(0, Math.floor(directSample) - 16);
+    expect(Math.max(...Array.from(before, Math.abs))).toBeLessThan(1e-6 / distance(SOURCE, far));
+    // and the tail is there after it
+    expect(Math.max(...Array.from(channel!.subarray(Math.ceil(directSample) + 16), Math.abs))).toBeGreaterThan(1e-4);
+  });
+
   it('renderScene() with a diffuse tail gives the same samples bit for bit when rendered in windows', () => {
     const room = shoeboxRoom({ lengthEastMeters: 12, widthNorthMeters: 9, heightMeters: 4, rt60Seconds: 0.5, speedMetersPerSecond: C }, { maxOrder: 3, maxDelaySeconds: 0.03, diffuseTail: true });
     const spec = roomScene(room, 0.6);
