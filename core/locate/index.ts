@@ -22,7 +22,8 @@ export { crlbCovariance, gdop, type CrlbOptions, type GdopOptions } from './crlb
 export { precisionMap, type PrecisionMapGrid, type PrecisionMapOptions, type PrecisionMapOutput } from './precisionMap';
 export { physicalLimitViolations, closureFailures, type LimitViolation, type ClosureFailure } from './delayChecks';
 export { closedTripletCount, closureTest, type ClosureTest } from './delayChecks';
-export { apertureMeters, fixVerdict, horizontalHull, insideHull, VERDICT_GRADES, VERDICT_LIMITS, type Verdict, type VerdictGrade, type VerdictInput } from './verdict';
+export { apertureMeters } from './aperture';
+export { fixVerdict, horizontalHull, insideHull, VERDICT_GRADES, VERDICT_LIMITS, type Verdict, type VerdictGrade, type VerdictInput } from './verdict';
 export { seededRandom, type SeededRandom } from './seededRandom';
 export { median } from './median';
 

@@ -1,6 +1,7 @@
 // Input checks for solveFix: every number finite, indices in range, options in their domains, no duplicate microphones.
 // Returns sentences naming the field (e.g. `delays[3].delaySeconds`) and what to do; empty when the input is usable.
 import type { DelayMeasurement, Microphone, SolveOptions } from './types';
+import { apertureMeters } from './aperture';
 
 function describe(value: unknown): string {
   return typeof value === 'number' ? String(value) : value === undefined ? 'missing' : `a ${typeof value}`;
@@ -101,17 +102,10 @@ export function validateInput(microphones: readonly Microphone[], delays: readon
     }
   });
   if (problems.length > 0) return problems;
-  let apertureMeters = 0;
-  for (let i = 0; i < microphones.length; i++) {
-    for (let j = i + 1; j < microphones.length; j++) {
-      const a = microphones[i];
-      const b = microphones[j];
-      apertureMeters = Math.max(apertureMeters, Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters));
-    }
-  }
-  if (apertureMeters > MAX_APERTURE_METERS) {
+  const aperture = apertureMeters(microphones);
+  if (aperture > MAX_APERTURE_METERS) {
     problems.push(
-      `The microphones span ${(apertureMeters / 1000).toPrecision(3)} km, more than ${MAX_APERTURE_METERS / 1000} km: one flat local frame and one speed of sound ` +
+      `The microphones span ${(aperture / 1000).toPrecision(3)} km, more than ${MAX_APERTURE_METERS / 1000} km: one flat local frame and one speed of sound ` +
         'do not hold over such a distance. Check the units (metres) and the coordinates, or split the array.',
     );
     return problems;

@@ -1,6 +1,7 @@
 // A verdict in plain words on every fix: three grades (firm, doubtful, unusable) and the main reason in one short
 // sentence, from the status, the residual tests, peak ratios, dropped pairs, GDOP and the ellipse against the array. Metres.
 import type { FixStatus, Fix, Microphone } from './types';
+import { apertureMeters } from './aperture';
 import { maxOf } from '../units';
 
 /** `firm`: act on it with its ellipse. `doubtful`: a position, but check it first. `unusable`: do not act on it. */
@@ -60,18 +61,6 @@ function capitalised(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
-/** Largest distance between two microphones, metres. */
-export function apertureMeters(microphones: readonly Microphone[]): number {
-  let largest = 0;
-  for (let i = 0; i < microphones.length; i++) {
-    for (let j = i + 1; j < microphones.length; j++) {
-      const a = microphones[i];
-      const b = microphones[j];
-      largest = Math.max(largest, Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters));
-    }
-  }
-  return largest;
-}
 
 /** Convex hull of the microphones' east/north positions, counter-clockwise (Andrew's monotone chain). */
 export function horizontalHull(microphones: readonly Microphone[]): Array<[number, number]> {
