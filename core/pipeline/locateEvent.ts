@@ -7,7 +7,7 @@ import type { ArrayGeometry } from '../project';
 import { maxArrayDelaySeconds } from './channelMap';
 import { chooseDirectPaths, closureAgreement } from './directPath';
 import { measurePairs, type PairMeasurement } from './measurePairs';
-import { gateChannels, onsetGatedSpan, soundsReverberant, taperWindow } from './onsetGate';
+import { gateChannels, LONG_CHANNEL_GATE, onsetGatedSpan, SHORT_CHANNEL_GATE, soundsReverberant, startsSharply, taperWindow } from './onsetGate';
 import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { applyReductionCheck } from './reductionCheck';
@@ -223,10 +223,17 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const medianPeak = median(pairs.map((pair) => pair.peakValue));
   if (!event.flags.includes('manual') && medianPeak < REVERBERANT_PEAK_VALUE && soundsReverberant(event.endSeconds, onsets, maxArrayDelaySeconds(context.geometry, pairSettings.speedMetersPerSecond))) {
     // A ringing event whose channels hardly cohere (reverberation): each microphone gated to its own direct sound
-    // (./onsetGate.ts); closure decides between the two sets of pairs.
-    gateChannels(window, endFrame - startFrame, startFrame / fs, onsets, fs);
-    const gated = measureDirect(window);
-    if (closureAgreement(gated, microphones.length, referenceIndex, marginSeconds) >= closureAgreement(pairs, microphones.length, referenceIndex, marginSeconds)) pairs = gated;
+    // (./onsetGate.ts), first with its first echoes (the long gate), then its first milliseconds only (the short gate,
+    // inside the long one); closure decides between the three sets of pairs, ties to the shorter gate.
+    const agreement = (set: PairMeasurement[]) => closureAgreement(set, microphones.length, referenceIndex, marginSeconds);
+    let best = agreement(pairs);
+    for (const gate of [LONG_CHANNEL_GATE, SHORT_CHANNEL_GATE]) {
+      if (gate === SHORT_CHANNEL_GATE && !startsSharply(window, endFrame - startFrame, startFrame / fs, onsets, fs)) break;
+      gateChannels(window, endFrame - startFrame, startFrame / fs, onsets, fs, gate);
+      const gated = measureDirect(window);
+      const gatedAgreement = agreement(gated);
+      if (gatedAgreement > best || (gatedAgreement === best && gate === LONG_CHANNEL_GATE)) { pairs = gated; best = gatedAgreement; }
+    }
   }
   const floorSeconds = (MIN_ARRIVAL_SIGMA_SAMPLES * Math.SQRT2) / fs;
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
