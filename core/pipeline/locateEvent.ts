@@ -224,7 +224,8 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   if (!event.flags.includes('manual') && medianPeak < REVERBERANT_PEAK_VALUE && soundsReverberant(event.endSeconds, onsets, maxArrayDelaySeconds(context.geometry, pairSettings.speedMetersPerSecond))) {
     // A ringing event whose channels hardly cohere (reverberation): each microphone gated to its own direct sound
     // (./onsetGate.ts), first with its first echoes (the long gate), then its first milliseconds only (the short gate,
-    // inside the long one); closure decides between the three sets of pairs, ties to the shorter gate.
+    // inside the long one, for a sound that starts sharply); closure decides between the sets of pairs: the long gate wins
+    // a tie with the whole window, the short gate must close strictly better than both.
     const agreement = (set: PairMeasurement[]) => closureAgreement(set, microphones.length, referenceIndex, marginSeconds);
     let best = agreement(pairs);
     for (const gate of [LONG_CHANNEL_GATE, SHORT_CHANNEL_GATE]) {
