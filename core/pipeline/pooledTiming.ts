@@ -25,9 +25,9 @@ export function describeTimingModel(model: TimingNoiseModel): string {
   if (model.source === 'prior') {
     return `timing noise: the correlation sigma (floor 0.1 sample) as it is, without pooling: ${model.eventsUsed} event(s) with ${model.degreesOfFreedomUsed} redundant arrival(s), pooling needs ${MIN_POOLED_EVENTS} events and ${MIN_POOLED_DEGREES_OF_FREEDOM}; each fix's own residuals still widen it when they scatter more`;
   }
-  return `timing noise pooled over ${model.eventsUsed} event(s) (${model.degreesOfFreedomUsed} redundant arrivals${model.eventsTrimmed > 0 ? `, ${model.eventsTrimmed} event(s) left out as outliers` : ''}): ` +
+  return `timing noise pooled over ${model.eventsUsed} event(s) (${model.degreesOfFreedomUsed} redundant arrivals${model.eventsTrimmed > 0 ? `, ${model.eventsTrimmed} event(s) beyond the model at 0.1 %, each on its own residuals` : ''}): ` +
     `arrival sigma of clean sounds ${model.scale.toPrecision(3)} x correlation sigma` +
-    (model.reflectedShare > 0 ? `; about ${Math.round(100 * model.reflectedShare)} % of sounds (those whose residuals show it) carry a reflection floor: sqrt((${model.reflectedScale.toPrecision(3)} x correlation sigma)² + (${microseconds(model.reflectionFloorSeconds)})²)` : '') +
+    (model.reflectedShare > 0 ? `; about ${Math.round(100 * model.reflectedShare)} % of sounds test as reflected (likelihood ratio of their residuals) and carry a floor: sqrt((${model.reflectedScale.toPrecision(3)} x correlation sigma)² + (${microseconds(model.reflectionFloorSeconds)})²)` : '') +
     ', moderated by each fix\'s own residuals';
 }
 

@@ -88,6 +88,19 @@ describe('eventTiming()', () => {
     expect(timing.floorVarianceSeconds2).toBeCloseTo(16e-12, 18);
   });
 
+  it('gives an event that tests clean none of the floor, even when the test is close', () => {
+    // k = 1, σ = 2 µs, f = 50 µs, π = 1/2, RSS 20 µs² on 1 dof: log-likelihood ratio reflected/clean
+    // = -0.5·(ln(2504/4) + 20·(1/2504 - 1/4)) = -0.72 < ln(1) (computed by hand): clean, though its posterior of carrying
+    // the floor is 0.33, whose blend would have put 0.33·(50 µs)² into it. s² = (2·4 + 20) / 3 µs², σ = 3.055 µs.
+    const model = { ...PRIOR_TIMING_NOISE, source: 'pooled' as const, reflectionFloorSeconds: 50e-6, reflectedShare: 0.5 };
+    const timing = eventTiming(model, { priorArrivalSigmaSeconds: 2e-6, residualSumSeconds2: 20e-12, degreesOfFreedom: 1 });
+    expect(timing.reflectionProbability).toBe(0);
+    expect(timing.floorVarianceSeconds2).toBe(0);
+    expect(timing.arrivalSigmaSeconds).toBeCloseTo(Math.sqrt(28 / 3) * 1e-6, 10);
+    // A residual sum of 28 µs² tips the test (ratio +0.27, computed by hand): the event carries the whole floor.
+    expect(eventTiming(model, { priorArrivalSigmaSeconds: 2e-6, residualSumSeconds2: 28e-12, degreesOfFreedom: 1 }).floorVarianceSeconds2).toBeCloseTo(2.5e-9, 15);
+  });
+
   it('gives an event that fails the model at 0.1 % its own variance, not a moderated one', () => {
     // Residual sum 1e4 µs² on 4 dof against a 1 µs² model: far beyond chi-square's 0.1 % point (18.47 on 4 dof, statistical
     // tables), so sigma = sqrt(1e4 / 4) = 50 µs (computed by hand).
