@@ -7,7 +7,7 @@ export { locatedVerdict } from './locatedVerdict';
 export { applyReductionCheck, reductionCheck, REDUCTION_TEST_LEVEL, type ReductionCheck } from './reductionCheck';
 export { DEFAULT_LOCATE_SETTINGS, type LocateSettings } from './settings';
 export { lagMarginSeconds, locateEvent, solveOptions, solveWithTimingModel, toSolverMicrophones, type LocateContext, type LocatedEvent, type LocatedTiming } from './locateEvent';
-export { estimateTimingNoise, eventTiming, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
+export { estimateTimingNoise, eventTiming, explainableArrivalSigmaSeconds, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 export { describeEllipseTerms, ellipseTerms, type EllipseTerm, type EllipseTermName } from './ellipseTerms';
 export { bandClassOf, describeTimingModel, poolTimingNoise, solveLocatedEvent, type PooledTiming } from './pooledTiming';
 export { runPipeline, type CancelSignal, type PipelineOptions, type PipelineProgress, type PipelineResult } from './runPipeline';

@@ -2,7 +2,7 @@
 // event solved again with it. Only the solve is repeated (about a millisecond per event), not the correlation. Seconds.
 import { applyReductionCheck } from './reductionCheck';
 import { eventTimes, lagMarginSeconds, solveOptions, solveWithTimingModel, toSolverMicrophones, type LocateContext, type LocatedEvent } from './locateEvent';
-import { estimateTimingNoise, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingNoiseModel } from './timingNoise';
+import { estimateTimingNoise, explainableArrivalSigmaSeconds, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingNoiseModel } from './timingNoise';
 
 export interface PooledTiming {
   located: LocatedEvent[];
@@ -36,8 +36,8 @@ export function solveLocatedEvent(located: LocatedEvent, context: LocateContext,
   if (located.reduced.delays.length === 0) return located;
   const marginSeconds = lagMarginSeconds(context.geometry, sampleRateHz, context.settings.speedMetersPerSecond);
   const { solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), located.reduced, solveOptions(context.settings, marginSeconds), model);
-  // A pooled model also judges the event: scatter it cannot explain at the test level makes the fix inconsistent (./reductionCheck).
-  const modelSigmaSeconds = model.source === 'prior' ? undefined : timing.parts.arrivalSigmaSeconds / Math.sqrt(timing.parts.eventFactor);
+  // A pooled model also judges the event: scatter beyond what its larger class allows, at the test level, makes the fix inconsistent (./reductionCheck).
+  const modelSigmaSeconds = model.source === 'prior' ? undefined : explainableArrivalSigmaSeconds(model, timing.evidence.priorArrivalSigmaSeconds);
   const checked = applyReductionCheck(solve, located.reduced, undefined, modelSigmaSeconds);
   return { ...located, solve: checked, timing, ...eventTimes(located.event, context, checked) };
 }

@@ -144,6 +144,17 @@ function tailProbability(fit: Fit, e: TimingEvidence): number {
   return chiSquareUpperTail(e.residualSumSeconds2 / s2, e.degreesOfFreedom);
 }
 
+/**
+ * The largest arrival sigma the model allows an event (the reflected class where there is one, else the clean one): scatter
+ * beyond it at the test level is what the model cannot explain. An event that tests clean is judged against it too, since
+ * the clean scale is a median and its tail is not chi-square's.
+ */
+export function explainableArrivalSigmaSeconds(model: TimingNoiseModel, priorArrivalSigmaSeconds: number): number {
+  const fit: Fit = { scale: model.scale, reflectedScale: model.reflectedScale, floorSeconds: model.reflectionFloorSeconds, share: model.reflectedShare };
+  const e: TimingEvidence = { priorArrivalSigmaSeconds, residualSumSeconds2: 0, degreesOfFreedom: 0 };
+  return Math.sqrt(fit.share > 0 ? Math.max(cleanVariance(fit.scale, e), reflectedVariance(fit, e)) : cleanVariance(fit.scale, e));
+}
+
 /** The recording's timing-noise model from every event's evidence; the prior when there is too little redundancy. */
 export function estimateTimingNoise(evidence: readonly TimingEvidence[]): TimingNoiseModel {
   const all = usable(evidence);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimateTimingNoise, eventTiming, PRIOR_TIMING_NOISE, type TimingEvidence } from '../../../core/pipeline';
+import { estimateTimingNoise, eventTiming, explainableArrivalSigmaSeconds, PRIOR_TIMING_NOISE, type TimingEvidence } from '../../../core/pipeline';
 import { makeRng, type Rng } from '../../helpers/geometry';
 
 /** Seeded events: correlation sigma drawn log-uniform in [sigmaLow, sigmaHigh], true arrival variance k²σ² + f², residual sum s²·chi²(r). */
@@ -106,5 +106,13 @@ describe('eventTiming()', () => {
     // tables), so sigma = sqrt(1e4 / 4) = 50 µs (computed by hand).
     const timing = eventTiming({ ...PRIOR_TIMING_NOISE, source: 'pooled' }, { priorArrivalSigmaSeconds: 1e-6, residualSumSeconds2: 1e-8, degreesOfFreedom: 4 });
     expect(timing.arrivalSigmaSeconds).toBeCloseTo(50e-6, 10);
+  });
+});
+
+describe('explainableArrivalSigmaSeconds()', () => {
+  it('allows the reflected class\'s sigma where the model has one, else the clean one', () => {
+    // sqrt((1 · 3 µs)² + (4 µs)²) = 5 µs; without a reflected class 2 · 3 µs = 6 µs (computed by hand).
+    expect(explainableArrivalSigmaSeconds({ ...PRIOR_TIMING_NOISE, source: 'pooled', reflectionFloorSeconds: 4e-6, reflectedShare: 0.3 }, 3e-6)).toBeCloseTo(5e-6, 12);
+    expect(explainableArrivalSigmaSeconds({ ...PRIOR_TIMING_NOISE, source: 'pooled', scale: 2, reflectedScale: 2 }, 3e-6)).toBeCloseTo(6e-6, 12);
   });
 });
