@@ -29,6 +29,8 @@ export interface VerdictInput {
   pairsMeasured?: number;
   /** Redundant pairs the closure check had (e.g. the pipeline's reduction); default: the fix's chi-square degrees of freedom. */
   closureRedundancy?: number;
+  /** Whether the fix's ellipse was widened to the event's own residual scatter (the pipeline's timing model); default false. */
+  ellipseCoversOwnScatter?: boolean;
 }
 
 /** The limits the rules use; DEVELOPERS.md ("Verdicts") says why each. */
@@ -49,6 +51,13 @@ export const VERDICT_LIMITS = Object.freeze({
   gdop: 10,
   /** A semi-major axis beyond this many apertures leaves a direction, not a position. */
   directionOnlyApertures: 10,
+  /**
+   * An inconsistent fix whose ellipse was widened to its own scatter, with at least this many redundant arrivals, is
+   * doubtful rather than unusable when that ellipse stays within this fraction of the aperture: the microphones disagree
+   * by centimetres, not by the array.
+   */
+  slightDisagreementApertureFraction: 0.05,
+  slightDisagreementRedundancy: 3,
 });
 
 const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten'];
@@ -127,8 +136,10 @@ export function fixVerdict(input: VerdictInput): Verdict {
   const large = !(semiMajorMeters <= VERDICT_LIMITS.largeEllipseApertureFraction * aperture);
 
   if (status === 'inconsistent') {
-    const reason = 'The microphones disagree: no single spot fits.';
-    return { grade: 'unusable', reason, reasons: [reason] };
+    const slight = input.ellipseCoversOwnScatter === true && fix.chiSquare.degreesOfFreedom >= VERDICT_LIMITS.slightDisagreementRedundancy &&
+      semiMajorMeters <= VERDICT_LIMITS.slightDisagreementApertureFraction * aperture;
+    const reason = slight ? 'The microphones disagree slightly more than usual; the ellipse was widened to match.' : 'The microphones disagree: no single spot fits.';
+    return { grade: slight ? 'doubtful' : 'unusable', reason, reasons: [reason] };
   }
   if (!(semiMajorMeters <= VERDICT_LIMITS.directionOnlyApertures * aperture)) {
     const reason = 'Only a direction, not a position: the ellipse is far longer than the array.';

@@ -4,8 +4,8 @@ import { fixVerdict, type Verdict } from '../locate';
 import type { ArrayGeometry } from '../project';
 import type { LocatedEvent } from './locateEvent';
 
-export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | 'reduced'>, geometry: Pick<ArrayGeometry, 'microphones'>): Verdict {
-  const { solve, pairs, reduced } = located;
+export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | 'reduced' | 'timing'>, geometry: Pick<ArrayGeometry, 'microphones'>): Verdict {
+  const { solve, pairs, reduced, timing } = located;
   const dropped = new Set(reduced.droppedPairs.map((pair) => `${pair.indexA}-${pair.indexB}`));
   const kept = pairs.filter((pair) => !dropped.has(`${pair.indexA}-${pair.indexB}`));
   return fixVerdict({
@@ -16,5 +16,7 @@ export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | '
     pairsDroppedBefore: reduced.droppedPairs,
     pairsMeasured: pairs.length,
     closureRedundancy: reduced.closure.degreesOfFreedom,
+    // The timing model widened the sigma to the event's own residuals (eventFactor > 1: s² moved up by RSS / r).
+    ellipseCoversOwnScatter: (timing?.parts.eventFactor ?? 0) > 1,
   });
 }

@@ -36,6 +36,20 @@ describe('fixVerdict()', () => {
     expect(verdictOf({ ...inside, status: 'inconsistent' })).toMatchObject({ grade: 'unusable', reason: 'The microphones disagree: no single spot fits.' });
   });
 
+  it("grades an inconsistent fix 'doubtful' only when its ellipse already covers its own scatter, with spare arrivals, and stays within 5 % of the aperture", () => {
+    // Aperture of the 40 m square: 56.57 m, so 5 % is 2.83 m (this project's limit, DEVELOPERS.md "Verdicts").
+    const inconsistent = { ...inside, status: 'inconsistent' as const };
+    const small = withFix(inconsistent, { ellipse: { ...inside.fix!.ellipse, semiMajorMeters: 0.06, semiMinorMeters: 0.04 } });
+    expect(small.fix!.chiSquare.degreesOfFreedom).toBeGreaterThanOrEqual(3);
+    expect(verdictOf(small, { ellipseCoversOwnScatter: true })).toMatchObject({ grade: 'doubtful', reason: 'The microphones disagree slightly more than usual; the ellipse was widened to match.' });
+    expect(verdictOf(small).grade).toBe('unusable');
+    expect(verdictOf(small, { ellipseCoversOwnScatter: false }).grade).toBe('unusable');
+    const atLimit = withFix(inconsistent, { ellipse: { ...inside.fix!.ellipse, semiMajorMeters: 0.05 * Math.hypot(40, 40) * 1.01, semiMinorMeters: 0.5 } });
+    expect(verdictOf(atLimit, { ellipseCoversOwnScatter: true }).grade).toBe('unusable');
+    const fewSpare = withFix(small, { chiSquare: { ...inside.fix!.chiSquare, degreesOfFreedom: 2 } });
+    expect(verdictOf(fewSpare, { ellipseCoversOwnScatter: true }).grade).toBe('unusable');
+  });
+
   it("grades a fix whose ellipse is more than ten apertures long 'unusable': a direction, not a position", () => {
     // Microphones on a line, the source on its extension at (150, 0) m: the fix runs off along the line (computed by solveFix).
     const line = microphonesAt([[0, 0, 0], [50, 0, 0], [100, 0, 0]]);
