@@ -3,6 +3,7 @@
 import { shoeboxRoom, type SceneMicrophone, type SceneRoom, type SceneSource, type SceneSpec, type SourceTruth } from '../../core/simulate';
 import { speedOfSound } from '../../core/medium';
 import type { LocatedEvent } from '../../core/pipeline';
+import { median } from '../../core/locate';
 import { makeRng } from './geometry';
 import { locateScene, mahalanobis2d, type SceneRun } from './sceneRecording';
 
@@ -176,13 +177,6 @@ export async function locateReverbScene(scene: ReverbScene): Promise<{ run: Scen
   return { run, outcomes };
 }
 
-function medianOf(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  if (sorted.length === 0) return Number.NaN;
-  const mid = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
-}
-
 /** Share within 1 m and median errors, inside the hull and overall. */
 export function scoreReverbScene(name: ReverbSceneName, outcomes: ReverbOutcome[]): ReverbScore {
   const inside = outcomes.filter((o) => o.insideHull);
@@ -191,8 +185,8 @@ export function scoreReverbScene(name: ReverbSceneName, outcomes: ReverbOutcome[
     sounds: outcomes.length,
     insideHull: inside.length,
     within1mInsideHull: inside.filter((o) => o.errorMeters <= 1).length / Math.max(1, inside.length),
-    medianErrorInsideMeters: medianOf(inside.map((o) => o.errorMeters)),
-    medianErrorAllMeters: medianOf(outcomes.map((o) => o.errorMeters)),
+    medianErrorInsideMeters: median(inside.map((o) => o.errorMeters)),
+    medianErrorAllMeters: median(outcomes.map((o) => o.errorMeters)),
   };
 }
 
