@@ -65,7 +65,7 @@ def band(label, fn, depths, temps, sal=np.linspace(25.0, 40.0, 31)):
 
 
 def main():
-    print("# single values (transcription checks for the TypeScript copies)")
+    print("# single values (to check the TypeScript copies of the equations)")
     print(f"unesco 20 C, 35 PSU, 0 bar: {unesco(20.0, 35.0, 0.0):.6f} m/s; 10 C, 35 PSU, 4000 m: {unesco_at_depth(10.0, 35.0, 4000.0):.6f} m/s")
     print(f"saunders 45 deg, 4000 m: {saunders_pressure_bar(4000.0):.6f} bar")
     print(f"coppens 10 C, 30 ppt, 2000 m: {coppens(10.0, 30.0, 2000.0):.6f} m/s")
