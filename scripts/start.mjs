@@ -1,24 +1,13 @@
 // `npm start`: opens the desktop app when Electron's binary is installed, otherwise says so and starts the web mode.
-import { createRequire } from 'node:module';
-import { existsSync } from 'node:fs';
 import { spawn, spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
 import { serveWeb } from './web.mjs';
+import { electronBinaryPath } from './electron-binary.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const require = createRequire(import.meta.url);
 
-function electronBinary() {
-  try {
-    const binaryPath = require('electron');
-    return typeof binaryPath === 'string' && existsSync(binaryPath) ? binaryPath : undefined;
-  } catch {
-    return undefined;
-  }
-}
-
-const binary = electronBinary();
+const binary = electronBinaryPath();
 if (binary === undefined) {
   process.stderr.write('Electron is not installed on this machine (its binary could not be downloaded), so Whence starts in web mode.\n');
   await serveWeb(5173);
