@@ -3,7 +3,8 @@
 import { shoeboxRoom, type SceneMicrophone, type SceneRoom, type SceneSource, type SceneSpec, type SourceTruth } from '../../core/simulate';
 import { speedOfSound } from '../../core/medium';
 import type { LocatedEvent } from '../../core/pipeline';
-import { median } from '../../core/locate';
+import { horizontalHull, insideHull, median } from '../../core/locate';
+import { minOf } from '../../core/units';
 import { makeRng } from './geometry';
 import { locateScene, mahalanobis2d, type SceneRun } from './sceneRecording';
 
@@ -43,33 +44,6 @@ function microphones(points: Array<[number, number, number]>): SceneMicrophone[]
   return points.map(([e, n, u], i) => ({ label: `M${i + 1}`, channel: i + 1, eastMeters: e, northMeters: n, upMeters: u }));
 }
 
-/** Convex hull (Andrew's monotone chain) of east/north points, counter-clockwise. */
-function convexHull(points: Array<[number, number]>): Array<[number, number]> {
-  const sorted = [...points].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
-  const cross = (o: [number, number], a: [number, number], b: [number, number]) => (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0]);
-  const lower: Array<[number, number]> = [];
-  for (const p of sorted) {
-    while (lower.length >= 2 && cross(lower[lower.length - 2]!, lower[lower.length - 1]!, p) <= 0) lower.pop();
-    lower.push(p);
-  }
-  const upper: Array<[number, number]> = [];
-  for (const p of [...sorted].reverse()) {
-    while (upper.length >= 2 && cross(upper[upper.length - 2]!, upper[upper.length - 1]!, p) <= 0) upper.pop();
-    upper.push(p);
-  }
-  return [...lower.slice(0, -1), ...upper.slice(0, -1)];
-}
-
-/** Whether (east, north) lies inside the microphones' convex hull (east/north). */
-export function insideArrayHull(mics: readonly SceneMicrophone[], east: number, north: number): boolean {
-  const hull = convexHull(mics.map((m) => [m.eastMeters, m.northMeters]));
-  for (let i = 0; i < hull.length; i++) {
-    const a = hull[i]!, b = hull[(i + 1) % hull.length]!;
-    if ((b[0] - a[0]) * (north - a[1]) - (b[1] - a[1]) * (east - a[0]) < 0) return false;
-  }
-  return true;
-}
-
 interface Area { eastMin: number; eastMax: number; northMin: number; northMax: number }
 
 /**
@@ -78,16 +52,17 @@ interface Area { eastMin: number; eastMax: number; northMin: number; northMax: n
  */
 function sounds(seed: number, count: number, mics: SceneMicrophone[], area: Area, upMeters: number, firstSeconds: number, spacingSeconds: number, levelDb: number, water: boolean): { sources: SceneSource[]; insideHull: boolean[] } {
   const rng = makeRng(seed);
+  const hull = horizontalHull(mics);
   const sources: SceneSource[] = [];
-  const insideHull: boolean[] = [];
+  const inside: boolean[] = [];
   for (let i = 0; i < count; i++) {
     const wantInside = i % 3 !== 2;
     let east = 0, north = 0;
     for (let attempt = 0; attempt < 1000; attempt++) {
       east = area.eastMin + rng.uniform() * (area.eastMax - area.eastMin);
       north = area.northMin + rng.uniform() * (area.northMax - area.northMin);
-      const nearest = Math.min(...mics.map((m) => Math.hypot(m.eastMeters - east, m.northMeters - north)));
-      if (insideArrayHull(mics, east, north) === wantInside && nearest > 1) break;
+      const nearest = minOf(mics.map((m) => Math.hypot(m.eastMeters - east, m.northMeters - north)));
+      if (insideHull(hull, east, north) === wantInside && nearest > 1) break;
     }
     const base = { id: `s${i + 1}`, eastMeters: east, northMeters: north, upMeters, emissionTimeSeconds: firstSeconds + i * spacingSeconds, levelDb: levelDb + 6 * (rng.uniform() - 0.5) };
     const scale = water ? 2 : 1;
@@ -100,9 +75,9 @@ function sounds(seed: number, count: number, mics: SceneMicrophone[], area: Area
       default: source = { ...base, kind: 'chirp', startFrequencyHz: 1200 * scale, endFrequencyHz: 4000 * scale, durationSeconds: 0.05 + 0.05 * rng.uniform() }; break;
     }
     sources.push(source);
-    insideHull.push(insideArrayHull(mics, east, north));
+    inside.push(insideHull(hull, east, north));
   }
-  return { sources, insideHull };
+  return { sources, insideHull: inside };
 }
 
 const AIR_SPEED = speedOfSound({ medium: 'air', temperatureCelsius: 15 }).speedMetersPerSecond;
@@ -163,7 +138,7 @@ export function reverbScenes(): ReverbScene[] {
 export async function locateReverbScene(scene: ReverbScene): Promise<{ run: SceneRun; outcomes: ReverbOutcome[] }> {
   const run = await locateScene(scene.spec, { sourceUpMeters: scene.sourceUpMeters });
   const outcomes = run.truth.sources.map((truth, index): ReverbOutcome => {
-    const firstArrival = Math.min(...truth.arrivals.map((a) => a.arrivalTimeSeconds));
+    const firstArrival = minOf(truth.arrivals.map((a) => a.arrivalTimeSeconds));
     const located = run.result.located.find((l) => l.event.startSeconds <= firstArrival + 0.005 && l.event.endSeconds >= firstArrival);
     const fix = located?.solve.fix;
     const dEast = fix ? fix.eastMeters - truth.eastMeters : Number.POSITIVE_INFINITY;
