@@ -36,7 +36,7 @@ export function App() {
   const meanUp = useMemo(() => meanUpMeters(state.document.array.microphones), [state.document.array.microphones]);
   const hyperbolae = useMemo(() => mapHyperbolae(selected), [selected]);
   const verdicts = useMemo(() => state.events.map((located) => locatedVerdict(located, state.document.array)), [state.events, state.document.array]);
-  const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex, state.document.array), [state.events, state.selectedEventIndex, state.document.array]);
+  const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex, verdicts), [state.events, state.selectedEventIndex, verdicts]);
   const planeUp = planeHeightMeters(state.document, selected);
   const overlay = useMemo(() => {
     if (overlayKind === 'precision') return precisionOverlay(state.document, speedMetersPerSecond);

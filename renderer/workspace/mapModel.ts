@@ -2,7 +2,8 @@
 // the precision-map overlay. Pure (memoised by the caller).
 import { createSrpPlan, precisionMap, srpGridFromBounds, srpMap } from '../../core/locate';
 import type { CorrelationPlots } from '../../core/overview';
-import { locatedVerdict, type LocatedEvent } from '../../core/pipeline';
+import type { Verdict } from '../../core/locate';
+import type { LocatedEvent } from '../../core/pipeline';
 import type { ProjectDocument } from '../../core/project';
 import type { MapFix, MapHyperbola, MapMicrophone, MapOverlay } from '../map';
 import { maxOf, minOf } from '../../core/units';
@@ -23,14 +24,15 @@ export function mapHyperbolae(located: LocatedEvent | undefined): MapHyperbola[]
   return located.pairs.map((pair) => ({ indexA: pair.indexA, indexB: pair.indexB, delaySeconds: pair.delaySeconds, quality: pairQuality(pair.peakToSecondRatio, !dropped.has(`${pair.indexA}-${pair.indexB}`)) }));
 }
 
-/** The session's fixes for the map, each with its verdict (core/pipeline locatedVerdict against the array in use). */
-export function mapFixes(events: readonly LocatedEvent[], selectedIndex: number | undefined, array: Pick<ProjectDocument['array'], 'microphones'>): MapFix[] {
+/** The session's fixes for the map, each with its verdict (`verdicts`: one per event, in the order of `events`). */
+export function mapFixes(events: readonly LocatedEvent[], selectedIndex: number | undefined, verdicts: ReadonlyArray<Pick<Verdict, 'grade' | 'reason'>>): MapFix[] {
   const fixes: MapFix[] = [];
   events.forEach((located, index) => {
     const fix = located.solve.fix;
     if (fix === undefined) return;
-    const verdict = locatedVerdict(located, array);
-    const entry: MapFix = { id: `event-${index}`, label: `${located.event.index + 1}`, status: located.solve.status, eastMeters: fix.eastMeters, northMeters: fix.northMeters, upMeters: fix.upMeters, ellipse: fix.ellipse, verdict: verdict.grade, verdictReason: verdict.reason, selected: index === selectedIndex };
+    const verdict = verdicts[index];
+    const entry: MapFix = { id: `event-${index}`, label: `${located.event.index + 1}`, status: located.solve.status, eastMeters: fix.eastMeters, northMeters: fix.northMeters, upMeters: fix.upMeters, ellipse: fix.ellipse, selected: index === selectedIndex };
+    if (verdict !== undefined) Object.assign(entry, { verdict: verdict.grade, verdictReason: verdict.reason });
     if (fix.alternative !== undefined) entry.alternative = { eastMeters: fix.alternative.eastMeters, northMeters: fix.alternative.northMeters };
     fixes.push(entry);
   });
