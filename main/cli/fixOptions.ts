@@ -38,8 +38,8 @@ function heightUncertainty(values: ParsedCommand['values'], dimensions: 2 | 3, h
     if (!(sigma >= 0 && sigma <= 1000)) throw new UsageError(`--height-sigma must be 0 to 1000 metres; got ${sigma}.`);
     return { sigmaMeters: sigma };
   }
-  const parts = rangeText!.split(',').map((part) => Number(part.trim()));
-  if (parts.length !== 2 || !parts.every(Number.isFinite)) throw new UsageError(`--height-range needs LOW,HIGH in metres up, e.g. 0,4; got '${rangeText}'.`);
+  const parts = rangeText!.split(',').map(parseDecimal);
+  if (parts.length !== 2 || parts.includes(undefined)) throw new UsageError(`--height-range needs LOW,HIGH in metres up as decimal numbers, e.g. 0,4; got '${printableText(rangeText!, 60)}'.`);
   const [low, high] = parts as [number, number];
   if (!(high >= low)) throw new UsageError(`--height-range: HIGH must not be below LOW; got ${low},${high}.`);
   if (high - low > 1000) throw new UsageError(`--height-range spans ${high - low} m; give a range of at most 1000 m.`);

@@ -23,4 +23,10 @@ describe('fixShapeFromOptions() source height uncertainty', () => {
     expect(() => fixShapeFromOptions({ 'height-sigma': '-1' }, 0.95)).toThrow(/0 to 1000/);
     expect(() => fixShapeFromOptions({ dims: '3', 'height-range': '0,4' }, 0.95)).toThrow(UsageError);
   });
+
+  it('reads --height-range bounds as plain decimals like every other number: hexadecimal or an empty bound is refused', () => {
+    expect(fixShapeFromOptions({ 'height-range': '-0.5, 1e1' }, 0.95).sourceUpMeters).toBeCloseTo(4.75, 12); // computed: (-0.5 + 10) / 2
+    expect(() => fixShapeFromOptions({ 'height-range': '0x0,4' }, 0.95)).toThrow(/decimal numbers/);
+    expect(() => fixShapeFromOptions({ 'height-range': '0,' }, 0.95)).toThrow(/needs LOW,HIGH/);
+  });
 });
