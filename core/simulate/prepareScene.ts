@@ -37,6 +37,11 @@ export interface RenderTail {
   endFrame: number;
 }
 
+/** First frame and end frame (exclusive) within 0..frameCount that copies of a waveform placed from `firstOffsetSeconds` to `lastOffsetSeconds` touch. */
+function framesTouched(firstOffsetSeconds: number, lastOffsetSeconds: number, waveform: SourceWaveform, rate: number, frameCount: number): [number, number] {
+  return [Math.max(0, Math.ceil((firstOffsetSeconds + waveform.startSeconds) * rate)), Math.min(frameCount, Math.floor((lastOffsetSeconds + waveform.endSeconds) * rate) + 1)];
+}
+
 /** Frames in the scene's recording: round(durationSeconds * sampleRateHz). */
 export function sceneFrameCount(spec: Pick<SceneSpec, 'durationSeconds' | 'sampleRateHz'>): number {
   return Math.round(spec.durationSeconds * spec.sampleRateHz);
@@ -70,7 +75,9 @@ export class PreparedScene {
     const tails: RenderTail[] = [];
     const room = scene.room;
     const acoustics = room?.diffuseTail === true ? roomAcoustics(room) : undefined;
-    const rt60Seconds = room !== undefined && acoustics !== undefined ? eyringRt60Seconds(room, scene.speedMetersPerSecond) ?? 0 : 0;
+    const rt60Seconds = acoustics === undefined ? 0 : eyringRt60Seconds(room!, scene.speedMetersPerSecond) ?? 0;
+    // a tail needs a room that decays: none when every wall absorbs all (0) or none does (Infinity)
+    const tailAcoustics = rt60Seconds > 0 && Number.isFinite(rt60Seconds) ? acoustics : undefined;
     scene.sources.forEach((source, sourceIndex) => {
       const waveform = sourceWaveform(source, rate);
       const level = dbToAmplitude(source.levelDb);
@@ -78,21 +85,20 @@ export class PreparedScene {
         const micPaths = soundPaths(source, mic, scene);
         for (const path of micPaths) {
           const offsetSeconds = source.emissionTimeSeconds + path.delaySeconds;
-          const firstFrame = Math.max(0, Math.ceil((offsetSeconds + waveform.startSeconds) * rate));
-          const endFrame = Math.min(this.frameCount, Math.floor((offsetSeconds + waveform.endSeconds) * rate) + 1);
+          const [firstFrame, endFrame] = framesTouched(offsetSeconds, offsetSeconds, waveform, rate, this.frameCount);
           if (firstFrame >= endFrame) continue;
           paths.push({ sourceIndex, channelIndex: mic.channel - 1, waveform, offsetSeconds, gain: level * path.relativeAmplitude, firstFrame, endFrame });
         }
-        if (acoustics !== undefined && rt60Seconds > 0 && Number.isFinite(rt60Seconds)) {
+        if (tailAcoustics !== undefined) {
           const taps = diffuseTailTaps({
-            seed, sourceIndex, channelIndex: mic.channel - 1, volumeCubicMeters: acoustics.volumeCubicMeters, rt60Seconds, speedMetersPerSecond: scene.speedMetersPerSecond,
+            seed, sourceIndex, channelIndex: mic.channel - 1, volumeCubicMeters: tailAcoustics.volumeCubicMeters, rt60Seconds, speedMetersPerSecond: scene.speedMetersPerSecond,
             // never before the direct sound at this microphone (energy cannot arrive before it; a far microphone hears its tail later)
             startSeconds: Math.max(room!.maxDelaySeconds!, micPaths[0]!.delaySeconds), waveformSeconds: waveform.endSeconds - waveform.startSeconds,
           });
           const count = taps.delaysSeconds.length;
           const gains = taps.amplitudes.map((amplitude) => amplitude * level);
-          const firstFrame = Math.max(0, Math.ceil((source.emissionTimeSeconds + taps.delaysSeconds[0]! + waveform.startSeconds) * rate));
-          const endFrame = Math.min(this.frameCount, Math.floor((source.emissionTimeSeconds + taps.delaysSeconds[count - 1]! + waveform.endSeconds) * rate) + 1);
+          const emission = source.emissionTimeSeconds;
+          const [firstFrame, endFrame] = framesTouched(emission + taps.delaysSeconds[0]!, emission + taps.delaysSeconds[count - 1]!, waveform, rate, this.frameCount);
           if (firstFrame < endFrame) tails.push({ channelIndex: mic.channel - 1, waveform, emissionTimeSeconds: source.emissionTimeSeconds, delaysSeconds: taps.delaysSeconds, gains, firstFrame, endFrame });
         }
       }
