@@ -41,5 +41,5 @@ export function terminalDataSafe(text: string): string {
 
 /** JSON text whose strings carry no raw DEL, C1, separator or bidi controls either (JSON.stringify escapes only C0). */
 export function jsonForTerminal(value: unknown): string {
-  return JSON.stringify(value, null, 2).replace(/[\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069\u200e\u200f\u061c\ufeff]/g, (char) => `\\u${char.charCodeAt(0).toString(16).padStart(4, '0')}`) + '\n';
+  return terminalDataSafe(JSON.stringify(value, null, 2)) + '\n';
 }
