@@ -109,9 +109,15 @@ export function timingEvidenceOf(microphones: Microphone[], reduced: ReducedDela
 /**
  * Solves with the arrival sigma of the recording's timing-noise model (./timingNoise: pooled scale and reflection floor,
  * moderated by the event's own residuals), with outlier rejection. `model` is PRIOR_TIMING_NOISE until events are pooled.
+ * `evidence` may be passed when it was already read with the same microphones, delays and options.
  */
-export function solveWithTimingModel(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions, model: TimingNoiseModel): { solve: SolveResult; timing: LocatedTiming } {
-  const evidence = timingEvidenceOf(microphones, reduced, options);
+export function solveWithTimingModel(
+  microphones: Microphone[],
+  reduced: ReducedDelays,
+  options: SolveOptions,
+  model: TimingNoiseModel,
+  evidence: TimingEvidence = timingEvidenceOf(microphones, reduced, options),
+): { solve: SolveResult; timing: LocatedTiming } {
   const parts = eventTiming(model, evidence);
   const delays = reduced.delays.map((delay) => ({ ...delay, sigmaSeconds: parts.arrivalSigmaSeconds * Math.SQRT2 }));
   const solve = solveFix(microphones, delays, options);

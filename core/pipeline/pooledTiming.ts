@@ -2,7 +2,7 @@
 // event solved again with it. Only the solve is repeated (about a millisecond per event), not the correlation. Seconds.
 import { applyReductionCheck } from './reductionCheck';
 import { eventTimes, lagMarginSeconds, solveOptions, solveWithTimingModel, toSolverMicrophones, type LocateContext, type LocatedEvent } from './locateEvent';
-import { estimateTimingNoise, explainableArrivalSigmaSeconds, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingNoiseModel } from './timingNoise';
+import { estimateTimingNoise, explainableArrivalSigmaSeconds, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 
 export interface PooledTiming {
   located: LocatedEvent[];
@@ -31,11 +31,14 @@ export function describeTimingModel(model: TimingNoiseModel): string {
     ', moderated by each fix\'s own residuals';
 }
 
-/** Solves one located event again under `model` (its delays, geometry and settings as given); keeps everything else. */
-export function solveLocatedEvent(located: LocatedEvent, context: LocateContext, sampleRateHz: number, model: TimingNoiseModel): LocatedEvent {
+/**
+ * Solves one located event again under `model` (its delays, geometry and settings as given); keeps everything else.
+ * `evidence`: the event's timing evidence when it was read under this same context (the pipeline's second pass), else re-read.
+ */
+export function solveLocatedEvent(located: LocatedEvent, context: LocateContext, sampleRateHz: number, model: TimingNoiseModel, evidence?: TimingEvidence): LocatedEvent {
   if (located.reduced.delays.length === 0) return located;
   const marginSeconds = lagMarginSeconds(context.geometry, sampleRateHz, context.settings.speedMetersPerSecond);
-  const { solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), located.reduced, solveOptions(context.settings, marginSeconds), model);
+  const { solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), located.reduced, solveOptions(context.settings, marginSeconds), model, evidence);
   // A pooled model also judges the event: scatter beyond what its larger class allows, at the test level, makes the fix inconsistent (./reductionCheck).
   const modelSigmaSeconds = model.source === 'prior' ? undefined : explainableArrivalSigmaSeconds(model, timing.evidence.priorArrivalSigmaSeconds);
   const checked = applyReductionCheck(solve, located.reduced, undefined, modelSigmaSeconds);
@@ -54,7 +57,8 @@ export function bandClassOf(located: Pick<LocatedEvent, 'bandHz'>): string {
 
 /**
  * Fits the recording's timing-noise model to the events' first solves, per band class where a class has enough events
- * (else the model of all events), and solves each event again with its class's model.
+ * (else the model of all events), and solves each event again with its class's model. The events must have been
+ * located under `context` (their timing evidence is reused).
  */
 export function poolTimingNoise(located: readonly LocatedEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
   const withTiming = located.filter((event) => event.timing !== undefined);
@@ -69,5 +73,6 @@ export function poolTimingNoise(located: readonly LocatedEvent[], context: Locat
   const modelOf = (event: LocatedEvent) => classModels.get(bandClassOf(event)) ?? model;
   const classes = [...classModels.entries()].map(([key, m]) => `band class ${key}: ${describeTimingModel(m)}`);
   const note = classes.length === 0 ? describeTimingModel(model) : `${classes.join('; ')}${classModels.size < new Set(withTiming.map(bandClassOf)).size ? `; other sounds: ${describeTimingModel(model)}` : ''}`;
-  return { located: located.map((event) => solveLocatedEvent(event, context, sampleRateHz, modelOf(event))), model, classModels, note };
+  // Same context as the first pass: each event's timing evidence is reused, only the final solve is repeated.
+  return { located: located.map((event) => solveLocatedEvent(event, context, sampleRateHz, modelOf(event), event.timing?.evidence)), model, classModels, note };
 }
