@@ -62,11 +62,11 @@ function logDensity(e: TimingEvidence, s2: number): number {
   return -0.5 * (e.degreesOfFreedom * Math.log(s2) + e.residualSumSeconds2 / s2);
 }
 
-function cleanVariance(scale: number, e: TimingEvidence): number {
+function cleanVariance(scale: number, e: Pick<TimingEvidence, 'priorArrivalSigmaSeconds'>): number {
   return scale ** 2 * e.priorArrivalSigmaSeconds ** 2;
 }
 
-function reflectedVariance(fit: Fit, e: TimingEvidence): number {
+function reflectedVariance(fit: Fit, e: Pick<TimingEvidence, 'priorArrivalSigmaSeconds'>): number {
   return fit.reflectedScale ** 2 * e.priorArrivalSigmaSeconds ** 2 + fit.floorSeconds ** 2;
 }
 
@@ -138,10 +138,18 @@ function fitClasses(events: readonly TimingEvidence[]): Fit {
   return fit;
 }
 
+/** The variance of the larger component of `fit` at an event (the clean one where there is no reflected class). */
+function largestVariance(fit: Fit, e: Pick<TimingEvidence, 'priorArrivalSigmaSeconds'>): number {
+  return fit.share > 0 ? Math.max(cleanVariance(fit.scale, e), reflectedVariance(fit, e)) : cleanVariance(fit.scale, e);
+}
+
 /** Upper-tail probability of an event's residual sum under the larger component of `fit` at that event. */
 function tailProbability(fit: Fit, e: TimingEvidence): number {
-  const s2 = fit.share > 0 ? Math.max(cleanVariance(fit.scale, e), reflectedVariance(fit, e)) : cleanVariance(fit.scale, e);
-  return chiSquareUpperTail(e.residualSumSeconds2 / s2, e.degreesOfFreedom);
+  return chiSquareUpperTail(e.residualSumSeconds2 / largestVariance(fit, e), e.degreesOfFreedom);
+}
+
+function fitOf(model: TimingNoiseModel): Fit {
+  return { scale: model.scale, reflectedScale: model.reflectedScale, floorSeconds: model.reflectionFloorSeconds, share: model.reflectedShare };
 }
 
 /**
@@ -150,9 +158,7 @@ function tailProbability(fit: Fit, e: TimingEvidence): number {
  * the clean scale is a median and its tail is not chi-square's.
  */
 export function explainableArrivalSigmaSeconds(model: TimingNoiseModel, priorArrivalSigmaSeconds: number): number {
-  const fit: Fit = { scale: model.scale, reflectedScale: model.reflectedScale, floorSeconds: model.reflectionFloorSeconds, share: model.reflectedShare };
-  const e: TimingEvidence = { priorArrivalSigmaSeconds, residualSumSeconds2: 0, degreesOfFreedom: 0 };
-  return Math.sqrt(fit.share > 0 ? Math.max(cleanVariance(fit.scale, e), reflectedVariance(fit, e)) : cleanVariance(fit.scale, e));
+  return Math.sqrt(largestVariance(fitOf(model), { priorArrivalSigmaSeconds }));
 }
 
 /** The recording's timing-noise model from every event's evidence; the prior when there is too little redundancy. */
@@ -189,7 +195,7 @@ export interface EventTiming {
  * and gets no prior weight: its own variance RSS / r, never less than s².
  */
 export function eventTiming(model: TimingNoiseModel, evidence: TimingEvidence): EventTiming {
-  const fit: Fit = { scale: model.scale, reflectedScale: model.reflectedScale, floorSeconds: model.reflectionFloorSeconds, share: model.reflectedShare };
+  const fit = fitOf(model);
   const p = testsReflected(fit, evidence) ? 1 : 0;
   const sigma2 = evidence.priorArrivalSigmaSeconds ** 2;
   const noise = (p === 1 ? model.reflectedScale : model.scale) ** 2 * sigma2;
