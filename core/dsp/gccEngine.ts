@@ -70,7 +70,7 @@ export function defaultWelchSegmentPoints(windowFrames: number): number {
 }
 
 /** Most peaks pairPeaksInto returns per pair. */
-export const MAX_PEAKS = 8;
+const MAX_PEAKS = 8;
 
 /** How many correlation peaks pairPeaksInto keeps, and how high each must be relative to the strongest. */
 export interface PeakSearch {

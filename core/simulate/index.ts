@@ -13,5 +13,4 @@ export { sourceWaveform } from './sourceWaveform';
 export type { SourceWaveform } from './waveform';
 export { soundPaths, DEFAULT_REFLECTION_COEFFICIENT, type SoundPath } from './propagation';
 export { NOISE_TILE_FRAMES } from './noiseTiles';
-export { imageSourcePaths, eyringRt60Seconds, shoeboxRoom, roomAcoustics, MAX_IMAGES_PER_PATH, MAX_IMAGE_ORDER, DEFAULT_MAX_IMAGE_ORDER, type ImagePath, type ShoeboxOptions } from './imageSources';
-export { diffuseTailTaps, MAX_TAIL_TAPS, type TailTaps } from './diffuseTail';
+export { imageSourcePaths, eyringRt60Seconds, shoeboxRoom, MAX_IMAGE_ORDER, type ImagePath, type ShoeboxOptions } from './imageSources';
