@@ -1,6 +1,7 @@
 // Independent published sound-speed equations, used only to cross-check core/medium (m/s; °C, ppt or PSU, m, bar).
 // UNESCO (Chen & Millero 1977; ITS-90 coefficients of Wong & Zhu 1995) with Saunders (1981) depth to pressure; Coppens (1981).
 // Python twin: test/reference/sound_speed_cross_check.py.
+import { centralDifference } from './testHelpers';
 
 // Wong & Zhu (1995), J. Acoust. Soc. Am. 97(3):1732-1736, table of UNESCO coefficients (from memory of the published table).
 const C = [
@@ -57,8 +58,7 @@ export function coppensSpeedMetersPerSecond(temperatureCelsius: number, salinity
 
 /** Central difference in salinity (m/s per ppt, step 0.01 ppt). */
 export function salinitySlope(speedAt: (salinityPartsPerThousand: number) => number, salinityPartsPerThousand: number): number {
-  const step = 0.01;
-  return (speedAt(salinityPartsPerThousand + step) - speedAt(salinityPartsPerThousand - step)) / (2 * step);
+  return centralDifference(speedAt, salinityPartsPerThousand, 0.01);
 }
 
 /** Values from start to end inclusive in equal steps. */
