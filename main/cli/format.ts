@@ -1,5 +1,7 @@
 // Text formatting for the command line's human-readable output (aligned key/value lines, clock durations), and the
 // guard that keeps text from files from reaching the terminal as control sequences.
+import type { FixRecord } from '../../core/export';
+import { VERDICT_GRADES } from '../../core/locate';
 import { escapeControlCharacters } from '../../core/text';
 import { maxOf } from '../../core/units';
 
@@ -11,6 +13,11 @@ export function formatDurationClock(durationSeconds: number): string {
   const milliseconds = totalMilliseconds % 1000;
   const pad = (value: number, width: number) => String(value).padStart(width, '0');
   return `${pad(hours, 2)}:${pad(minutes, 2)}:${pad(seconds, 2)}.${pad(milliseconds, 3)}`;
+}
+
+/** How many records have each verdict, in grade order: "2 firm, 1 doubtful, 0 unusable". */
+export function verdictTally(records: readonly FixRecord[]): string {
+  return VERDICT_GRADES.map((grade) => `${records.filter((record) => record.verdict === grade).length} ${grade}`).join(', ');
 }
 
 /** Key/value lines with the values aligned in one column. */

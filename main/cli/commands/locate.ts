@@ -5,13 +5,13 @@ import { basename } from 'node:path';
 import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
-import { VERDICT_GRADES } from '../../../core/locate';
 import { parseArrayCsv } from '../../../core/project';
 import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
 import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
 import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
+import { verdictTally } from '../format';
 import type { CliIo } from '../io';
 import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
 import { chooseSpeed } from '../mediumOptions';
@@ -147,8 +147,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const fixed = records.filter((record) => record.status === 'ok').length;
     io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} fixed${records.length > fixed ? `, ${records.length - fixed} without an unambiguous fix (see status and warnings)` : ''}${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
     if (records.length > 0) {
-      const grades = VERDICT_GRADES.map((grade) => `${records.filter((record) => record.verdict === grade).length} ${grade}`);
-      io.writeStderr(`verdicts: ${grades.join(', ')} (see the verdict and verdict_reason columns).\n`);
+      io.writeStderr(`verdicts: ${verdictTally(records)} (see the verdict and verdict_reason columns).\n`);
     }
     for (const warning of result.warnings) io.writeStderr(`note: ${warning}\n`);
     return 0;

@@ -1,9 +1,10 @@
 // `whence solve`: position fixes from measured time differences (a delay table) and the array, one record per event,
 // with covariance, uncertainty ellipse, residuals and warnings; CSV to stdout, or JSON/GeoJSON.
 import { fixesToCsv, fixesToGeoJson, fixesToJson, fixRecord, FIX_COLUMNS_2D, FIX_COLUMNS_3D, type FixRecord } from '../../../core/export';
-import { fixVerdict, solveFix, VERDICT_GRADES, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
+import { fixVerdict, solveFix, type DelayMeasurement, type Microphone, type SolveOptions } from '../../../core/locate';
 import { parseArrayCsv, parseDelaysCsv, type ArrayGeometry, type DelayEvent } from '../../../core/project';
 import { writeFileAtomic } from '../../files';
+import { verdictTally } from '../format';
 import type { CliIo } from '../io';
 import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
 import { chooseSpeed } from '../mediumOptions';
@@ -101,8 +102,7 @@ export async function runSolve(argv: string[], io: CliIo): Promise<number> {
   }
   const notFirm = records.filter((record) => record.verdict !== 'firm').length;
   if (notFirm > 0) {
-    const grades = VERDICT_GRADES.map((grade) => `${records.filter((record) => record.verdict === grade).length} ${grade}`);
-    io.writeStderr(`verdicts: ${grades.join(', ')}; see the verdict and verdict_reason columns before acting on a fix.\n`);
+    io.writeStderr(`verdicts: ${verdictTally(records)}; see the verdict and verdict_reason columns before acting on a fix.\n`);
   }
   const failed = records.filter((record) => record.status !== 'ok').length;
   if (failed > 0) io.writeStderr(`${failed} of ${records.length} event${records.length === 1 ? '' : 's'} gave no unambiguous fix; see the status and warnings columns.\n`);

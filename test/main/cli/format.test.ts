@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { jsonForTerminal, terminalDataSafe, terminalSafe } from '../../../main/cli/format';
+import { jsonForTerminal, terminalDataSafe, terminalSafe, verdictTally } from '../../../main/cli/format';
 
 // Expected: this project's rule (issue 11); the characters are the ECMA-48 C0/C1 controls, DEL and Unicode's
 // separators and bidirectional controls (UAX #9).
@@ -21,5 +21,12 @@ describe('terminal guards', () => {
     // eslint-disable-next-line no-control-regex -- finding raw control characters is the point
     expect(text).not.toMatch(/[\u0000-\u0009\u000b-\u001f\u007f-\u009f\u202e]/);
     expect(JSON.parse(text)).toEqual(value);
+  });
+});
+
+describe('verdictTally()', () => {
+  // Expected: counted by hand from the records below; grades in core/locate VERDICT_GRADES order.
+  it('verdictTally() counts the records of each grade, every grade named, in grade order', () => {
+    expect(verdictTally([{ verdict: 'doubtful' }, { verdict: 'firm' }, { verdict: 'doubtful' }, { status: 'ok' }])).toBe('1 firm, 2 doubtful, 0 unusable');
   });
 });
