@@ -2,4 +2,4 @@
 export { CsvError, type CsvLocation } from './csvError';
 export { readCsv, type CsvRow, type CsvTable } from './readCsv';
 export { cellNumber, cellText, hasColumn, requireColumns } from './columns';
-export { formatCsv, formatCsvCell, formatCsvCommentLine, isNumericText, needsFormulaGuard, type CsvCommentLine, type CsvValue } from './writeCsv';
+export { formatCsv, formatCsvCell, formatCsvCommentLine, isNumericText, type CsvCommentLine, type CsvValue } from './writeCsv';

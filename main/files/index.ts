@@ -1,4 +1,4 @@
 // Node-side file helpers: atomic writes, reading small text files, plain-language reasons for file-system errors.
-export { removeStaleTemporaries, STALE_TEMPORARY_AGE_MS, writeFileAtomic, writeFileAtomicWith } from './atomicWrite';
+export { writeFileAtomic, writeFileAtomicWith } from './atomicWrite';
 export { describeFileProblem, errorCode } from './fileProblem';
 export { NOT_REGULAR_FILE_CODE, READ_NO_WAIT_FLAGS, readSmallTextFile, requireRegularFile } from './readTextFile';
