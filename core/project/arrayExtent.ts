@@ -39,8 +39,15 @@ export function arrayExtentProblems(microphones: readonly ArrayMicrophone[], ori
     );
   }
   if (origin !== undefined) {
-    const farthest = microphones.reduce<ArrayMicrophone | undefined>((best, m) => (best === undefined || Math.hypot(m.eastMeters, m.northMeters, m.upMeters) > Math.hypot(best.eastMeters, best.northMeters, best.upMeters) ? m : best), undefined);
-    const distance = farthest === undefined ? 0 : Math.hypot(farthest.eastMeters, farthest.northMeters, farthest.upMeters);
+    let farthest: ArrayMicrophone | undefined;
+    let distance = 0;
+    for (const m of microphones) {
+      const d = Math.hypot(m.eastMeters, m.northMeters, m.upMeters);
+      if (farthest === undefined || d > distance) {
+        farthest = m;
+        distance = d;
+      }
+    }
     if (farthest !== undefined && !(distance <= MAX_ORIGIN_DISTANCE_METERS)) {
       problems.push(
         `microphone ${farthest.label} is ${(distance / 1000).toPrecision(3)} km from the origin, more than ${MAX_ORIGIN_DISTANCE_METERS / 1000} km: the microphones are not near the origin's tangent plane. ` +
