@@ -41,6 +41,35 @@ export interface ClosureFailure {
   sigmaSeconds: number;
 }
 
+/** lookup[a * n + b] = delay index of pair (a, b) in either direction (the first usable measurement), -1 when not measured. */
+function usablePairLookup(n: number, delays: readonly DelayMeasurement[], usable: ArrayLike<boolean>): Int32Array {
+  const lookup = new Int32Array(n * n).fill(-1);
+  delays.forEach((delay, k) => {
+    if (!usable[k]) return;
+    const { indexA: a, indexB: b } = delay;
+    if (lookup[a * n + b] < 0) {
+      lookup[a * n + b] = k;
+      lookup[b * n + a] = k;
+    }
+  });
+  return lookup;
+}
+
+/** Calls `visit` for every closed triplet a < b < c with the delay indices of its pairs (ab, bc, ac). */
+function forEachClosedTriplet(n: number, lookup: Int32Array, visit: (a: number, b: number, c: number, kab: number, kbc: number, kac: number) => void): void {
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      const kab = lookup[a * n + b];
+      if (kab < 0) continue;
+      for (let c = b + 1; c < n; c++) {
+        const kbc = lookup[b * n + c];
+        const kac = lookup[a * n + c];
+        if (kbc >= 0 && kac >= 0) visit(a, b, c, kab, kbc, kac);
+      }
+    }
+  }
+}
+
 /**
  * Triplets of measured pairs whose closure exceeds `sigmaLimit` combined sigmas. Only delays with `usable[k]` take part;
  * when a pair is measured twice, the first measurement is used.
@@ -52,55 +81,23 @@ export function closureFailures(
   sigmaSeconds: (delayIndex: number) => number,
   sigmaLimit = 4,
 ): ClosureFailure[] {
-  // lookup[a * n + b] = delay index of pair (a, b) in either direction, -1 when not measured.
-  const n = micCount;
-  const lookup = new Int32Array(n * n).fill(-1);
-  delays.forEach((delay, k) => {
-    if (!usable[k]) return;
-    const { indexA: a, indexB: b } = delay;
-    if (lookup[a * n + b] < 0) {
-      lookup[a * n + b] = k;
-      lookup[b * n + a] = k;
-    }
-  });
   // t_x - t_y from measurement k of pair (x, y), whichever way round it was measured.
   const difference = (x: number, k: number): number => (delays[k].indexA === x ? delays[k].delaySeconds : -delays[k].delaySeconds);
   const out: ClosureFailure[] = [];
-  for (let a = 0; a < n; a++) {
-    for (let b = a + 1; b < n; b++) {
-      const kab = lookup[a * n + b];
-      if (kab < 0) continue;
-      for (let c = b + 1; c < n; c++) {
-        const kbc = lookup[b * n + c];
-        const kac = lookup[a * n + c];
-        if (kbc < 0 || kac < 0) continue;
-        const misclosure = difference(a, kab) + difference(b, kbc) - difference(a, kac);
-        const sigma = Math.sqrt(sigmaSeconds(kab) ** 2 + sigmaSeconds(kbc) ** 2 + sigmaSeconds(kac) ** 2);
-        if (Math.abs(misclosure) > sigmaLimit * sigma) {
-          out.push({ delayIndices: [kab, kbc, kac], microphones: [a, b, c], misclosureSeconds: misclosure, sigmaSeconds: sigma });
-        }
-      }
+  forEachClosedTriplet(micCount, usablePairLookup(micCount, delays, usable), (a, b, c, kab, kbc, kac) => {
+    const misclosure = difference(a, kab) + difference(b, kbc) - difference(a, kac);
+    const sigma = Math.sqrt(sigmaSeconds(kab) ** 2 + sigmaSeconds(kbc) ** 2 + sigmaSeconds(kac) ** 2);
+    if (Math.abs(misclosure) > sigmaLimit * sigma) {
+      out.push({ delayIndices: [kab, kbc, kac], microphones: [a, b, c], misclosureSeconds: misclosure, sigmaSeconds: sigma });
     }
-  }
+  });
   return out;
 }
 
 /** Number of closed triplets among the usable delays (every pair of the three measured). */
 export function closedTripletCount(micCount: number, delays: readonly DelayMeasurement[], usable: ArrayLike<boolean>): number {
-  const n = micCount;
-  const measured = new Uint8Array(n * n);
-  delays.forEach((delay, k) => {
-    if (!usable[k]) return;
-    measured[delay.indexA * n + delay.indexB] = 1;
-    measured[delay.indexB * n + delay.indexA] = 1;
-  });
   let count = 0;
-  for (let a = 0; a < n; a++) {
-    for (let b = a + 1; b < n; b++) {
-      if (!measured[a * n + b]) continue;
-      for (let c = b + 1; c < n; c++) if (measured[b * n + c] && measured[a * n + c]) count++;
-    }
-  }
+  forEachClosedTriplet(micCount, usablePairLookup(micCount, delays, usable), () => count++);
   return count;
 }
 
