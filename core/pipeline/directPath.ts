@@ -20,6 +20,25 @@ function peaksOf(pair: PairMeasurement): PeakCandidate[] {
   return [strongest, ...(pair.otherPeaks ?? [])];
 }
 
+/**
+ * The pairs as work items (peaks and tolerance from `describe`) and the index of the pair of microphones (i, j) either way
+ * round (the last measurement of a pair measured twice); undefined unless every pair of the `count` microphones is measured.
+ */
+function pairGraph(
+  pairs: readonly PairMeasurement[],
+  count: number,
+  describe: (pair: PairMeasurement) => Pick<Pair, 'peaks' | 'toleranceSeconds'>,
+): { work: Pair[]; pairIndex: (i: number, j: number) => number } | undefined {
+  const index = new Map<number, number>();
+  const work: Pair[] = pairs.map((pair, p) => {
+    index.set(pair.indexA * count + pair.indexB, p);
+    index.set(pair.indexB * count + pair.indexA, p);
+    return { a: pair.indexA, b: pair.indexB, ...describe(pair) };
+  });
+  if (index.size !== count * (count - 1)) return undefined;
+  return { work, pairIndex: (i, j) => index.get(i * count + j)! };
+}
+
 /** Least-squares arrival times (t[reference] = 0) from the chosen delay of each pair in use; undefined when not connected. */
 function arrivalTimes(count: number, reference: number, pairs: readonly Pair[], chosen: Int32Array, used: Uint8Array): Float64Array | undefined {
   const n = count - 1;
@@ -133,14 +152,9 @@ function votedArrivalTimes(count: number, reference: number, pairs: readonly Pai
  */
 export function chooseDirectPaths(pairs: readonly PairMeasurement[], microphoneCount: number, referenceIndex: number, options: DirectPathOptions): PairMeasurement[] {
   if (microphoneCount < 3 || !pairs.some((pair) => (pair.otherPeaks?.length ?? 0) > 0)) return [...pairs];
-  const index = new Map<number, number>();
-  const work: Pair[] = pairs.map((pair, p) => {
-    index.set(pair.indexA * microphoneCount + pair.indexB, p);
-    index.set(pair.indexB * microphoneCount + pair.indexA, p);
-    return { a: pair.indexA, b: pair.indexB, peaks: peaksOf(pair), toleranceSeconds: Math.max(options.toleranceSeconds, 3 * pair.sigmaSeconds) };
-  });
-  if (index.size !== microphoneCount * (microphoneCount - 1)) return [...pairs];
-  const pairIndex = (i: number, j: number) => index.get(i * microphoneCount + j)!;
+  const graph = pairGraph(pairs, microphoneCount, (pair) => ({ peaks: peaksOf(pair), toleranceSeconds: Math.max(options.toleranceSeconds, 3 * pair.sigmaSeconds) }));
+  if (graph === undefined) return [...pairs];
+  const { work, pairIndex } = graph;
 
   const strongestOnly: Pair[] = work.map((pair) => ({ ...pair, peaks: [pair.peaks[0]!] }));
   const earliestUsed = new Uint8Array(microphoneCount);
@@ -160,14 +174,10 @@ export function chooseDirectPaths(pairs: readonly PairMeasurement[], microphoneC
 /** How many pairs agree within `toleranceSeconds` with the arrival times that best fit them (robust start, refined). */
 export function closureAgreement(pairs: readonly PairMeasurement[], microphoneCount: number, referenceIndex: number, toleranceSeconds: number): number {
   if (microphoneCount < 3) return pairs.length;
-  const index = new Map<number, number>();
-  const work: Pair[] = pairs.map((pair, p) => {
-    index.set(pair.indexA * microphoneCount + pair.indexB, p);
-    index.set(pair.indexB * microphoneCount + pair.indexA, p);
-    return { a: pair.indexA, b: pair.indexB, peaks: [peaksOf(pair)[0]!], toleranceSeconds };
-  });
-  if (index.size !== microphoneCount * (microphoneCount - 1)) return 0;
-  const start = votedArrivalTimes(microphoneCount, referenceIndex, work, (i, j) => index.get(i * microphoneCount + j)!, new Uint8Array(microphoneCount));
+  const graph = pairGraph(pairs, microphoneCount, (pair) => ({ peaks: [peaksOf(pair)[0]!], toleranceSeconds }));
+  if (graph === undefined) return 0;
+  const { work, pairIndex } = graph;
+  const start = votedArrivalTimes(microphoneCount, referenceIndex, work, pairIndex, new Uint8Array(microphoneCount));
   const solution = refine(microphoneCount, referenceIndex, work, start);
   let agreeing = 0;
   for (const residual of solution.residuals) if (Math.abs(residual) < toleranceSeconds) agreeing++;
