@@ -1,5 +1,6 @@
 // The onset-gated correlation window: from the earliest onset (less a lead-in) through the latest microphone's direct
 // sound, not the reverberation after it; edges tapered by a Tukey (raised-cosine) window. Seconds and frames.
+import { maxOf, minOf } from '../units';
 
 /** Lead-in before the earliest onset (onsets are found to a frame or two and may trail a weak start). */
 export const GATE_LEAD_SECONDS = 0.02;
@@ -16,12 +17,8 @@ const TAPER_SECONDS = 0.01;
 export function onsetGatedSpan(onsetsSeconds: ReadonlyArray<number | undefined>, maxArrayDelaySeconds: number): { startSeconds: number; endSeconds: number } | undefined {
   const known = onsetsSeconds.filter((onset): onset is number => onset !== undefined);
   if (known.length === 0) return undefined;
-  let first = known[0]!;
-  let last = known[0]!;
-  for (const onset of known) {
-    if (onset < first) first = onset;
-    if (onset > last) last = onset;
-  }
+  const first = minOf(known);
+  const last = maxOf(known);
   const latest = known.length === onsetsSeconds.length ? Math.min(last, first + maxArrayDelaySeconds) : first + maxArrayDelaySeconds;
   return { startSeconds: first - GATE_LEAD_SECONDS, endSeconds: latest + DIRECT_PART_SECONDS + GATE_LEAD_SECONDS };
 }
@@ -62,8 +59,7 @@ export const REVERBERANT_EVENT_SECONDS = 0.25;
  * sound (gateChannels). Sounds in the open end soon after their onsets and keep the whole onset-gated window.
  */
 export function soundsReverberant(eventEndSeconds: number, onsetsSeconds: ReadonlyArray<number | undefined>, maxArrayDelaySeconds: number): boolean {
-  let last = Number.NEGATIVE_INFINITY;
-  for (const onset of onsetsSeconds) if (onset !== undefined && onset > last) last = onset;
+  const last = maxOf(onsetsSeconds.filter((onset): onset is number => onset !== undefined));
   return Number.isFinite(last) && eventEndSeconds - maxArrayDelaySeconds - last > REVERBERANT_EVENT_SECONDS;
 }
 
