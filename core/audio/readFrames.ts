@@ -3,10 +3,9 @@
 import { WhenceError } from '../errors';
 import type { ByteSource } from './byteSource';
 import { decodeInterleaved } from './decodeInterleaved';
-import { readOrFail } from './sourceRead';
+import { quotedSourceName, readOrFail } from './sourceRead';
 import { WavFormatError } from './wavFormatError';
 import type { WavInfo } from './wavTypes';
-import { printableText } from '../text';
 
 /** Windows up to this size are read into one buffer kept per source and reused (streaming passes allocate nothing). */
 export const REUSED_READ_BUFFER_BYTES = 16 * 1024 * 1024;
@@ -31,7 +30,7 @@ async function readWindowBytes(source: ByteSource, offsetBytes: number, lengthBy
     held.busy = false;
     if (error instanceof WhenceError) throw error;
     const reason = error instanceof Error ? error.message : String(error);
-    throw new WavFormatError('read-failed', `Could not read ${lengthBytes} bytes of ${printableText(source.name, 120)} at byte ${offsetBytes}: ${reason}. Check that the file is still there and readable, then open it again.`);
+    throw new WavFormatError('read-failed', `Could not read ${lengthBytes} bytes of ${quotedSourceName(source)} at byte ${offsetBytes}: ${reason}. Check that the file is still there and readable, then open it again.`);
   }
 }
 
@@ -58,7 +57,7 @@ export async function readFrames(source: ByteSource, info: WavInfo, startFrame: 
   const { bytes, release } = await readWindowBytes(source, offsetBytes, lengthBytes);
   try {
     if (bytes.length < lengthBytes) {
-      throw new WavFormatError('read-failed', `${printableText(source.name, 120)} returned ${bytes.length} of ${lengthBytes} bytes at byte ${offsetBytes}; the file seems to have shrunk since it was opened. Open it again.`);
+      throw new WavFormatError('read-failed', `${quotedSourceName(source)} returned ${bytes.length} of ${lengthBytes} bytes at byte ${offsetBytes}; the file seems to have shrunk since it was opened. Open it again.`);
     }
     decodeInterleaved(bytes, info, channels, 0);
   } finally {

@@ -6,7 +6,7 @@ import { parseDs64Chunk, DS64_TABLE_MAX_ENTRIES, type Ds64Sizes } from './ds64Ch
 import { describeSampleFormat, parseFmtChunk, type FmtFields } from './fmtChunk';
 import { collectListInfo } from './listInfoChunk';
 import { fourCC, hexBytes, isPlausibleChunkId, uint32LE } from './riffBytes';
-import { HeaderReader } from './sourceRead';
+import { HeaderReader, quotedSourceName } from './sourceRead';
 import { bwfStartTime } from './startTime';
 import { WavFormatError } from './wavFormatError';
 import { printableText } from '../text';
@@ -22,8 +22,6 @@ const SIZE_UNKNOWN_32 = 0xffffffff;
 const TWO_POW_32 = 0x100000000;
 /** Sample rates of audio recorders, Hz: a header outside this is almost certainly damaged (or not audio). */
 export const PLAUSIBLE_SAMPLE_RATE_HZ = Object.freeze({ lowest: 1_000, highest: 1_000_000 });
-/** Longest file name quoted in a message, in characters. */
-const MAX_NAME_CHARS = 120;
 
 // Chunks that may legitimately follow an empty data chunk (used to tell an empty data chunk from an unfinalised one).
 const KNOWN_CHUNK_IDS = new Set(['fmt ', 'data', 'LIST', 'bext', 'JUNK', 'junk', 'PAD ', 'pad ', 'fact', 'cue ', 'smpl', 'inst', 'iXML', 'axml', 'chna', 'id3 ', 'ID3 ', '_PMX', 'umid', 'levl', 'FLLR', 'filr', 'acid', 'DISP']);
@@ -41,8 +39,7 @@ function describeSpan(lengthBytes: number, blockAlignBytes: number, sampleRateHz
   return `${(frames / sampleRateHz).toFixed(3)} s (${frames} frames)`;
 }
 
-function readContainer(head: Uint8Array, source: ByteSource): WavInfo['container'] {
-  const name = printableText(source.name, MAX_NAME_CHARS);
+function readContainer(head: Uint8Array, source: ByteSource, name: string): WavInfo['container'] {
   if (head.length < 12) {
     throw new WavFormatError('not-riff-wave', `${name} is ${source.sizeBytes} bytes long, too short to be a WAV file (the RIFF/WAVE header alone takes 12). Choose the recording itself, not an empty or partial copy.`);
   }
@@ -73,10 +70,10 @@ async function nextChunkOffset(reader: HeaderReader, bodyOffsetBytes: number, si
  */
 export async function readWavInfo(source: ByteSource): Promise<WavInfo> {
   // Names and chunk ids are bytes from outside: quoted escaped and short (printableText) in every message.
-  const name = printableText(source.name, MAX_NAME_CHARS);
+  const name = quotedSourceName(source);
   const fileSizeBytes = source.sizeBytes;
   const reader = new HeaderReader(source);
-  const container = readContainer(await reader.bytes(0, 12), source);
+  const container = readContainer(await reader.bytes(0, 12), source, name);
 
   const warnings: string[] = [];
   const infoTags: Record<string, string> = {};

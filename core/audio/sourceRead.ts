@@ -5,6 +5,14 @@ import type { ByteSource } from './byteSource';
 import { WavFormatError } from './wavFormatError';
 import { printableText } from '../text';
 
+/** Longest file name quoted in a message, in characters. */
+const MAX_NAME_CHARS = 120;
+
+/** The source's name as messages quote it: it comes from outside, so control characters are escaped and it is cut short. */
+export function quotedSourceName(source: ByteSource): string {
+  return printableText(source.name, MAX_NAME_CHARS);
+}
+
 /** source.read(), with a failure reported as a typed error (a WhenceError from the source passes through unchanged). */
 export async function readOrFail(source: ByteSource, offsetBytes: number, lengthBytes: number): Promise<Uint8Array> {
   try {
@@ -12,7 +20,7 @@ export async function readOrFail(source: ByteSource, offsetBytes: number, length
   } catch (error) {
     if (isWhenceError(error)) throw error;
     const reason = error instanceof Error ? error.message : String(error);
-    throw new WavFormatError('read-failed', `Could not read ${lengthBytes} bytes of ${printableText(source.name, 120)} at byte ${offsetBytes}: ${reason}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
+    throw new WavFormatError('read-failed', `Could not read ${lengthBytes} bytes of ${quotedSourceName(source)} at byte ${offsetBytes}: ${reason}. Check that the file is still there and readable (a removed card or a dropped network drive?), then open it again.`);
   }
 }
 
