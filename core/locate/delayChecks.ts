@@ -95,7 +95,7 @@ export function closureFailures(
 }
 
 /** Number of closed triplets among the usable delays (every pair of the three measured). */
-export function closedTripletCount(micCount: number, delays: readonly DelayMeasurement[], usable: ArrayLike<boolean>): number {
+function closedTripletCount(micCount: number, delays: readonly DelayMeasurement[], usable: ArrayLike<boolean>): number {
   let count = 0;
   forEachClosedTriplet(micCount, usablePairLookup(micCount, delays, usable), () => count++);
   return count;

@@ -21,7 +21,7 @@ export { errorEllipse, errorEllipsoid } from './errorEllipse';
 export { crlbCovariance, gdop, type CrlbOptions, type GdopOptions } from './crlb';
 export { precisionMap, type PrecisionMapGrid, type PrecisionMapOptions, type PrecisionMapOutput } from './precisionMap';
 export { physicalLimitViolations, closureFailures, type LimitViolation, type ClosureFailure } from './delayChecks';
-export { closedTripletCount, closureTest, type ClosureTest } from './delayChecks';
+export { closureTest, type ClosureTest } from './delayChecks';
 export { apertureMeters } from './aperture';
 export { fixVerdict, horizontalHull, insideHull, VERDICT_GRADES, VERDICT_LIMITS, type Verdict, type VerdictGrade, type VerdictInput } from './verdict';
 export { seededRandom, type SeededRandom } from './seededRandom';
