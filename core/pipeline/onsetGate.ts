@@ -23,12 +23,17 @@ export function onsetGatedSpan(onsetsSeconds: ReadonlyArray<number | undefined>,
   return { startSeconds: first - GATE_LEAD_SECONDS, endSeconds: latest + DIRECT_PART_SECONDS + GATE_LEAD_SECONDS };
 }
 
+/** Weight of a raised-cosine ramp `position` samples (a half-integer) into a ramp of `ramp` samples, rising from 0 to 1. */
+function rampWeight(position: number, ramp: number): number {
+  return 0.5 - 0.5 * Math.cos((Math.PI * position) / ramp);
+}
+
 /** Tapers both ends of each channel's first `frames` samples in place with a raised cosine of `rampFrames` (a Tukey window). */
 export function taperWindow(channels: readonly Float32Array[], frames: number, sampleRateHz: number): void {
   const ramp = Math.min(Math.floor(frames / 4), Math.round(Math.min(TAPER_SECONDS, GATE_LEAD_SECONDS / 2) * sampleRateHz));
   if (ramp < 2) return;
   for (let i = 0; i < ramp; i++) {
-    const w = 0.5 - 0.5 * Math.cos((Math.PI * (i + 0.5)) / ramp);
+    const w = rampWeight(i + 0.5, ramp);
     for (const channel of channels) {
       channel[i]! *= w;
       channel[frames - 1 - i]! *= w;
@@ -108,8 +113,8 @@ export function gateChannels(channels: readonly Float32Array[], frames: number, 
     for (let i = 0; i < frames; i++) {
       let w: number;
       if (i < from || i >= to) w = 0;
-      else if (i < from + ramp) w = 0.5 - 0.5 * Math.cos((Math.PI * (i - from + 0.5)) / ramp);
-      else if (i >= to - ramp) w = 0.5 - 0.5 * Math.cos((Math.PI * (to - i - 0.5)) / ramp);
+      else if (i < from + ramp) w = rampWeight(i - from + 0.5, ramp);
+      else if (i >= to - ramp) w = rampWeight(to - i - 0.5, ramp);
       else continue;
       channel[i]! *= w;
     }
