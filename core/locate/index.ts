@@ -23,6 +23,7 @@ export { precisionMap, type PrecisionMapGrid, type PrecisionMapOptions, type Pre
 export { physicalLimitViolations, closureFailures, type LimitViolation, type ClosureFailure } from './delayChecks';
 export { closureTest, type ClosureTest } from './delayChecks';
 export { apertureMeters } from './aperture';
+export { MAX_APERTURE_METERS } from './validateInput';
 export { fixVerdict, horizontalHull, insideHull, VERDICT_GRADES, VERDICT_LIMITS, type Verdict, type VerdictGrade, type VerdictInput } from './verdict';
 export { seededRandom, type SeededRandom } from './seededRandom';
 export { median } from './median';

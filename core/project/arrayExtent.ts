@@ -1,10 +1,9 @@
 // Checks that an array fits Whence's flat local frame: an origin near the ground, microphones within 50 km of each
 // other and near the origin's tangent plane. Metres; WGS84 ellipsoidal heights (NIMA TR8350.2).
 import type { GeodeticPosition } from '../geo';
+import { MAX_APERTURE_METERS } from '../locate';
 import type { ArrayMicrophone } from './arrayGeometry';
 
-/** Largest distance between two microphones, metres (as core/locate's solver refuses beyond it). */
-export const MAX_ARRAY_APERTURE_METERS = 50_000;
 /** Largest distance of a microphone from the origin of a georeferenced frame, metres. */
 export const MAX_ORIGIN_DISTANCE_METERS = 50_000;
 /** Heights of a plausible origin above the ellipsoid: the deepest sea floor to high in the atmosphere, metres (common practice). */
@@ -32,9 +31,9 @@ export function arrayExtentProblems(microphones: readonly ArrayMicrophone[], ori
       }
     }
   }
-  if (pair !== undefined && !(apertureMeters <= MAX_ARRAY_APERTURE_METERS)) {
+  if (pair !== undefined && !(apertureMeters <= MAX_APERTURE_METERS)) {
     problems.push(
-      `microphones ${pair[0].label} and ${pair[1].label} are ${(apertureMeters / 1000).toPrecision(3)} km apart, more than ${MAX_ARRAY_APERTURE_METERS / 1000} km: ` +
+      `microphones ${pair[0].label} and ${pair[1].label} are ${(apertureMeters / 1000).toPrecision(3)} km apart, more than ${MAX_APERTURE_METERS / 1000} km: ` +
         'one flat local frame and one speed of sound do not hold over such an array. Check the units (metres) and the coordinates, or split the array.',
     );
   }

@@ -1,6 +1,6 @@
 // The user's documents: the microphone array and tables of measured delays.
 export { MAX_MICROPHONES, type ArrayGeometry, type ArrayMicrophone } from './arrayGeometry';
-export { arrayExtentProblems, MAX_ARRAY_APERTURE_METERS, MAX_ORIGIN_DISTANCE_METERS, ORIGIN_HEIGHT_RANGE_METERS } from './arrayExtent';
+export { arrayExtentProblems, MAX_ORIGIN_DISTANCE_METERS, ORIGIN_HEIGHT_RANGE_METERS } from './arrayExtent';
 export { centroidOrigin, DEFAULT_SURVEY_SIGMA_METERS, parseArrayCsv } from './arrayCsv';
 export { parseDelaysCsv, type DelayEvent, type DelayRow } from './delaysCsv';
 export {
