@@ -77,6 +77,10 @@ function decodePcm16(bytes: Uint8Array, channels: number, stride: number, frames
 }
 
 function decodePcm24(bytes: Uint8Array, channels: number, stride: number, frames: number, out: Float32Array[], offset: number): void {
+  if (HOST_IS_LITTLE_ENDIAN && channels % 4 === 0 && bytes.byteOffset % 4 === 0) {
+    decodePcm24Words(new Int32Array(bytes.buffer, bytes.byteOffset, (frames * stride) / 4), channels, frames, out, offset);
+    return;
+  }
   for (let tile = 0; tile < frames; tile += TILE_FRAMES) {
     const tileEnd = Math.min(frames, tile + TILE_FRAMES);
     for (let channel = 0; channel < channels; channel++) {
@@ -84,6 +88,28 @@ function decodePcm24(bytes: Uint8Array, channels: number, stride: number, frames
       let p = tile * stride + channel * 3;
       for (let i = tile; i < tileEnd; i++, p += stride) {
         target[offset + i] = (((bytes[p] << 8) | (bytes[p + 1] << 16) | (bytes[p + 2] << 24)) >> 8) * SCALE_24;
+      }
+    }
+  }
+}
+
+/**
+ * 24-bit PCM read as 32-bit words: every four channels' samples are 12 bytes, three little-endian words w0 w1 w2
+ * (bytes b0..b11), and sample j is bytes b3j..b3j+2 shifted to the top of an int32 and back (sign extension).
+ */
+function decodePcm24Words(words: Int32Array, channels: number, frames: number, out: Float32Array[], offset: number): void {
+  const wordsPerFrame = (channels * 3) / 4;
+  for (let tile = 0; tile < frames; tile += TILE_FRAMES) {
+    const tileEnd = Math.min(frames, tile + TILE_FRAMES);
+    for (let group = 0; group < channels; group += 4) {
+      const t0 = out[group], t1 = out[group + 1], t2 = out[group + 2], t3 = out[group + 3];
+      let w = tile * wordsPerFrame + (group * 3) / 4;
+      for (let i = offset + tile, end = offset + tileEnd; i < end; i++, w += wordsPerFrame) {
+        const w0 = words[w], w1 = words[w + 1], w2 = words[w + 2];
+        t0[i] = ((w0 << 8) >> 8) * SCALE_24;
+        t1[i] = ((((w0 >>> 24) | (w1 << 8)) << 8) >> 8) * SCALE_24;
+        t2[i] = ((((w1 >>> 16) | (w2 << 16)) << 8) >> 8) * SCALE_24;
+        t3[i] = (w2 >> 8) * SCALE_24;
       }
     }
   }

@@ -73,6 +73,41 @@ describe('decodeInterleaved()', () => {
     expect(() => decodeInterleaved(bytes, layout('pcm-int', 16, 2), [new Float32Array(2), new Float32Array(1)])).toThrow(/holds 1 frames, but 2/);
   });
 
+  it('decodeInterleaved() reads 24-bit PCM through 32-bit words bit for bit as byte by byte, edge values included', () => {
+    // Four, eight and twelve channels take the word reads when the bytes are 4-byte aligned; the same bytes one byte off
+    // take the byte-by-byte loop. Edge values map to value / 2^23 exactly (common practice, as in the extremes above).
+    const edges = [-8388608, 8388607, 0, -1];
+    let state = 20261203;
+    const nextByte = () => {
+      state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
+      return state >>> 24;
+    };
+    for (const channelCount of [4, 8, 12]) {
+      const frames = 2048 + 900;
+      const aligned = new Uint8Array(frames * channelCount * 3);
+      for (let k = 0; k < aligned.length; k++) aligned[k] = nextByte();
+      edges.forEach((value, frame) => {
+        for (let c = 0; c < channelCount; c++) {
+          const at = (frame * channelCount + c) * 3;
+          aligned.set([value & 0xff, (value >> 8) & 0xff, (value >> 16) & 0xff], at);
+        }
+      });
+      const shifted = new Uint8Array(aligned.length + 1).subarray(1);
+      shifted.set(aligned);
+      const wanted = layout('pcm-int', 24, channelCount);
+      const byWords = Array.from({ length: channelCount }, () => new Float32Array(frames + 5));
+      const byBytes = Array.from({ length: channelCount }, () => new Float32Array(frames + 5));
+      expect(decodeInterleaved(aligned, wanted, byWords, 5)).toBe(frames);
+      expect(decodeInterleaved(shifted, wanted, byBytes, 5)).toBe(frames);
+      for (let c = 0; c < channelCount; c++) {
+        expect(Array.from(byWords[c]!.subarray(5, 9))).toEqual(edges.map((value) => Math.fround(value / 8388608)));
+        let differing = 0;
+        for (let i = 0; i < frames + 5; i++) if (!Object.is(byWords[c]![i], byBytes[c]![i])) differing++;
+        expect(differing).toBe(0);
+      }
+    }
+  });
+
   it('decodeInterleaved() agrees with value / 2^(bits-1) for random samples, channel counts and lengths across tiles', () => {
     fc.assert(
       fc.property(
