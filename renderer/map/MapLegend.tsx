@@ -10,15 +10,17 @@ export interface MapLegendProps {
   showFixes?: boolean;
   overlay: OverlayLegend | null;
   overlayError: string | null;
+  /** The overlay's peak is marked on the map. */
+  srpPeak?: boolean;
 }
 
-export function MapLegend({ showHyperbolae, showFixes = false, overlay, overlayError }: MapLegendProps) {
+export function MapLegend({ showHyperbolae, showFixes = false, overlay, overlayError, srpPeak = false }: MapLegendProps) {
   if (!showHyperbolae && !showFixes && overlay === null && overlayError === null) return null;
   return (
     <div className="map-legend" data-testid="map-legend">
       {showFixes && (
         <div className="map-legend-row" data-testid="map-legend-fixes">
-          <div className="map-legend-title">fixes: verdict</div>
+          <div className="map-legend-title">fixes:</div>
           <ul className="map-legend-verdicts">
             {VERDICT_ORDER.map((grade) => (
               <li key={grade} data-testid={`map-legend-verdict-${grade}`}>
@@ -50,6 +52,7 @@ export function MapLegend({ showHyperbolae, showFixes = false, overlay, overlayE
             <span>{overlay.minLabel}</span>
             <span>{overlay.maxLabel}</span>
           </div>
+          {srpPeak && <div className="map-legend-peak" data-testid="map-legend-srp-peak"><span className="map-legend-symbol" style={{ color: '#6a3d9a' }} aria-hidden="true">◇</span> peak: the most likely place</div>}
         </div>
       )}
       {overlayError !== null && (

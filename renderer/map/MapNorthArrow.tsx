@@ -1,9 +1,7 @@
 // The north arrow badge of the map (the local east/north/up frame is drawn north-up).
 import { northArrow } from './northArrow';
 
-const sizePixels = 44;
-
-export function MapNorthArrow() {
+export function MapNorthArrow({ sizePixels = 44 }: { sizePixels?: number }) {
   const arrow = northArrow(sizePixels);
   const points = (flat: number[]): string => flat.map((v, k) => `${v.toFixed(2)}${k % 2 === 0 ? ',' : ' '}`).join('').trim();
   return (

@@ -1,6 +1,7 @@
 // The microphone table: channel, label, position (local metres or WGS84 latitude/longitude about the origin), survey sigma;
-// messages next to each wrong cell; import and export of the array table. Cells keep what was typed until it reads as a value.
-import { useState, type ChangeEvent, type ReactNode } from 'react';
+// messages next to each wrong cell; import and export of the array table. Cells keep what was typed; the array in use
+// changes when a cell is committed (Enter or leaving it) and the whole table reads as valid, not on every keystroke.
+import { useState, type ChangeEvent, type KeyboardEvent, type ReactNode } from 'react';
 import type { GeodeticPosition } from '../../core/geo';
 import type { ArrayMicrophone } from '../../core/project';
 import { arrayCsvText, importArrayText } from './arrayCsvText';
@@ -52,14 +53,14 @@ const COLUMN_HEADS: Record<MicrophoneField, ReactNode> = {
   lat: <>Latitude (°)</>,
   lon: <>Longitude (°)</>,
   alt: <>Alt. (m)</>,
-  sigma: <>σ survey (m)</>,
+  sigma: <>σ (m)</>,
 };
 
 const COLUMN_TITLES: Partial<Record<MicrophoneField, string>> = {
   channel: 'Recording channel of the microphone; 1 is the first channel',
   up: 'Metres above the local origin; blank means 0',
   alt: 'Height above the WGS84 ellipsoid (not above sea level); blank means 0',
-  sigma: 'Standard deviation of each surveyed coordinate, metres; blank means 0 (positions treated as exact)',
+  sigma: 'Survey sigma: standard deviation of each surveyed coordinate, metres; blank means 0 (positions treated as exact)',
   lat: 'Decimal degrees (52.1234) or degrees, minutes, seconds with N/S (52°07\'24.2"N)',
   lon: 'Decimal degrees (-1.5678) or degrees, minutes, seconds with E/W (1°34\'04.1"W)',
 };
@@ -125,12 +126,18 @@ export function MicrophonesPanel(props: MicrophonesPanelProps) {
     setState({ ...next, emittedKey });
   }
 
+  /** Typing: the table shows the text and its messages at once; the array in use waits for the cell to be committed. */
   function editCell(index: number, field: MicrophoneField, text: string): void {
-    commit({ ...current, rows: current.rows.map((row, i) => (i === index ? { ...row, [field]: text } : row)), note: undefined });
+    setState({ ...current, rows: current.rows.map((row, i) => (i === index ? { ...row, [field]: text } : row)), note: undefined });
   }
 
   function editOrigin(field: OriginField, text: string): void {
-    commit({ ...current, originText: { ...current.originText, [field]: text } });
+    setState({ ...current, originText: { ...current.originText, [field]: text } });
+  }
+
+  /** A cell committed (Enter or leaving it): the usable rows go to the parent when the table reads as valid and changed. */
+  function commitTyped(): void {
+    commit(current);
   }
 
   function addRow(): void {
@@ -224,7 +231,7 @@ export function MicrophonesPanel(props: MicrophonesPanelProps) {
         </div>
       </header>
 
-      <OriginFields text={current.originText} parse={originParse} mode={current.mode} centroid={originParse.kind === 'blank' ? validation.origin : undefined} onEdit={editOrigin} />
+      <OriginFields text={current.originText} parse={originParse} mode={current.mode} centroid={originParse.kind === 'blank' ? validation.origin : undefined} onEdit={editOrigin} onCommit={commitTyped} />
 
       <div className="mic-scroll">
         <table className="mic-table">
@@ -241,7 +248,7 @@ export function MicrophonesPanel(props: MicrophonesPanelProps) {
           <tbody>
             {current.rows.map((row, index) => (
               <MicrophoneRow key={row.key} row={row} number={index + 1} fields={fields} check={validation.rows[index]!} geodetic={geodetic} columnCount={columnCount}
-                onEdit={(field, text) => editCell(index, field, text)} onRemove={() => removeRow(index)} />
+                onEdit={(field, text) => editCell(index, field, text)} onCommit={commitTyped} onRemove={() => removeRow(index)} />
             ))}
           </tbody>
         </table>
@@ -273,10 +280,16 @@ interface MicrophoneRowProps {
   geodetic: boolean;
   columnCount: number;
   onEdit(field: MicrophoneField, text: string): void;
+  onCommit(): void;
   onRemove(): void;
 }
 
-function MicrophoneRow({ row, number, fields, check, geodetic, columnCount, onEdit, onRemove }: MicrophoneRowProps) {
+/** Enter commits a cell as leaving it does. */
+function commitOnEnter(onCommit: () => void) {
+  return (event: KeyboardEvent<HTMLInputElement>) => { if (event.key === 'Enter') onCommit(); };
+}
+
+function MicrophoneRow({ row, number, fields, check, geodetic, columnCount, onEdit, onCommit, onRemove }: MicrophoneRowProps) {
   const hasError = check.messages.some((message) => message.severity === 'error');
   const rowClass = hasError ? 'mic-row mic-row-error' : 'mic-row';
   const labelPlaceholder = /^\d+$/.test(row.channel.trim()) ? `M${row.channel.trim()}` : '';
@@ -301,6 +314,8 @@ function MicrophoneRow({ row, number, fields, check, geodetic, columnCount, onEd
                 title={message?.text}
                 data-testid={`microphone-cell-${number}-${field}`}
                 onChange={(event: ChangeEvent<HTMLInputElement>) => onEdit(field, event.target.value)}
+                onBlur={onCommit}
+                onKeyDown={commitOnEnter(onCommit)}
               />
             </td>
           );
@@ -335,9 +350,10 @@ interface OriginFieldsProps {
   mode: PositionMode;
   centroid: GeodeticPosition | undefined;
   onEdit(field: OriginField, text: string): void;
+  onCommit(): void;
 }
 
-function OriginFields({ text, parse, mode, centroid, onEdit }: OriginFieldsProps) {
+function OriginFields({ text, parse, mode, centroid, onEdit, onCommit }: OriginFieldsProps) {
   const messages = parse.kind === 'invalid' ? parse.messages : {};
   const hint = parse.kind === 'invalid'
     ? 'Not applied until corrected.'
@@ -350,7 +366,7 @@ function OriginFields({ text, parse, mode, centroid, onEdit }: OriginFieldsProps
     <label className="mic-origin-field">
       <span>{label}</span>
       <input type="text" spellCheck={false} inputMode="decimal" className={`mic-num ${messages[name] !== undefined ? 'mic-cell-error' : ''}`} style={{ width }} value={text[name]} placeholder={placeholder}
-        aria-invalid={messages[name] !== undefined ? true : undefined} title={messages[name]} data-testid={`microphones-origin-${name}`} onChange={(event) => onEdit(name, event.target.value)} />
+        aria-invalid={messages[name] !== undefined ? true : undefined} title={messages[name]} data-testid={`microphones-origin-${name}`} onChange={(event) => onEdit(name, event.target.value)} onBlur={onCommit} onKeyDown={commitOnEnter(onCommit)} />
     </label>
   );
   return (

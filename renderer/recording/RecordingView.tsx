@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type PointerEvent as ReactPointerEvent } from 'react';
 import type { EnvelopePyramid, Spectrogram } from '../../core/overview';
 import { drawLanes, drawNavigator, drawSpectrogram, laneLayout, prepareCanvas } from './drawRecording';
-import { eventAt, eventMarks, eventTone, type RecordingEvent } from './eventMarks';
+import { eventAt, eventMarks, eventNumber, eventTone, type RecordingEvent } from './eventMarks';
 import { frequencyTicks } from './frequencyTicks';
 import { defaultLevelRange, spectrogramPixels } from './spectrogramImage';
 import { clampSpan, panSpan, spanAround, timeScale, zoomSpan, type ViewSpan } from './timeScale';
@@ -321,15 +321,16 @@ export function RecordingView(props: RecordingViewProps) {
           </span>
         </div>
         <div className="rv-tools" role="toolbar" aria-label="View">
-          <button type="button" onClick={() => zoomBy(2)} title="Show twice as much time">Zoom out</button>
-          <button type="button" onClick={() => zoomBy(0.5)} title="Show half as much time">Zoom in</button>
-          <button type="button" onClick={() => setView({ startSeconds: 0, endSeconds: duration })}>Whole recording</button>
+          <button type="button" onClick={() => zoomBy(2)} title="Zoom out: show twice as much time" aria-label="Zoom out">−</button>
+          <button type="button" onClick={() => zoomBy(0.5)} title="Zoom in: show half as much time" aria-label="Zoom in">+</button>
+          <button type="button" onClick={() => setView({ startSeconds: 0, endSeconds: duration })} title="Show the whole recording">Whole</button>
           <button
             type="button"
             disabled={!chosenSelection}
             onClick={() => chosenSelection && setView(spanAround(chosenSelection.startSeconds, chosenSelection.endSeconds, 0.25, duration, minSpan))}
+            title="Zoom to the selection"
           >
-            Zoom to selection
+            Selection
           </button>
           <label className="rv-inline">
             Gain
@@ -346,7 +347,7 @@ export function RecordingView(props: RecordingViewProps) {
             data-testid="recording-locate-selection"
             disabled={!chosenSelection}
             onClick={() => chosenSelection && onLocateSpan(chosenSelection.startSeconds, chosenSelection.endSeconds)}
-            title="Measure the time differences in the selected span and locate the sound"
+            title="Measure the time differences in the selected span and locate the event there"
           >
             Locate selection
           </button>
@@ -414,7 +415,7 @@ export function RecordingView(props: RecordingViewProps) {
       <div className="rv-events" data-testid="recording-events">
         <h3>Events ({events.length})</h3>
         {events.length === 0 ? (
-          <p className="rv-muted">No events yet. Run the detector, or drag across the lanes to select a sound by hand.</p>
+          <p className="rv-muted">No events yet. Press Find &amp; locate, or drag across the lanes to select an event by hand.</p>
         ) : (
           <div className="rv-events-scroll">
             <table>
@@ -430,7 +431,7 @@ export function RecordingView(props: RecordingViewProps) {
                     onClick={() => onSelectEvent(event.index)}
                     data-testid={`recording-event-${event.index}`}
                   >
-                    <td><button type="button" className="rv-link" onClick={(e) => { e.stopPropagation(); onSelectEvent(event.index); }}>{event.index}</button></td>
+                    <td><button type="button" className="rv-link" onClick={(e) => { e.stopPropagation(); onSelectEvent(event.index); }}>{eventNumber(event)}</button></td>
                     <td>{formatOffset(event.startSeconds, style, 3)}</td>
                     <td>{formatOffset(event.endSeconds, style, 3)}</td>
                     <td>{((event.endSeconds - event.startSeconds) * 1000).toFixed(0)} ms</td>

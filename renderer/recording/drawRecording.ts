@@ -47,7 +47,8 @@ export interface LaneLayout {
 }
 
 export function laneLayout(channelCount: number, withWallClock: boolean, gutter: number): LaneLayout {
-  const laneHeight = Math.max(34, Math.min(72, Math.floor(440 / Math.max(1, channelCount))));
+  // Lanes stay low enough that three or more fit in the panel under the map (the map comes first).
+  const laneHeight = Math.max(34, Math.min(56, Math.floor(264 / Math.max(1, channelCount))));
   const axisHeight = withWallClock ? 38 : 24;
   return { axisHeight, laneHeight, gutter, totalHeight: axisHeight + laneHeight * channelCount };
 }

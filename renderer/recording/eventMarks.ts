@@ -3,6 +3,8 @@ import type { TimeScale } from './timeScale';
 
 export interface RecordingEvent {
   index: number;
+  /** The event's number as the events table, the fix log and the survey log show it (from 1); default index + 1. */
+  number?: number;
   startSeconds: number;
   endSeconds: number;
   status?: string;
@@ -40,7 +42,7 @@ export function eventMarks(events: readonly RecordingEvent[], scale: TimeScale):
       x0 = centre - smallestMarkPixels / 2;
       x1 = centre + smallestMarkPixels / 2;
     }
-    marks.push({ index: event.index, x0Pixels: x0, x1Pixels: x1, selected: event.selected, tone: eventTone(event.status), label: `#${event.index}` });
+    marks.push({ index: event.index, x0Pixels: x0, x1Pixels: x1, selected: event.selected, tone: eventTone(event.status), label: `#${eventNumber(event)}` });
   }
   return marks;
 }
@@ -53,4 +55,9 @@ export function eventAt(marks: readonly EventMark[], xPixels: number): number | 
     if (!best || (mark.selected && !best.selected) || (mark.selected === best.selected && mark.x1Pixels - mark.x0Pixels < best.x1Pixels - best.x0Pixels)) best = mark;
   }
   return best?.index;
+}
+
+/** The number an event is shown with: counted from 1, as everywhere else. */
+export function eventNumber(event: Pick<RecordingEvent, 'index' | 'number'>): number {
+  return event.number ?? event.index + 1;
 }

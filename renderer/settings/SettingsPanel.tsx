@@ -56,8 +56,13 @@ export function SettingsPanel({ value, onChange, meanMicrophoneUpMeters }: Setti
   const reading = readSettingsForm(form, value);
   const inUse = describeSpeed(value.medium);
 
-  function edit(patch: Partial<SettingsForm>): void {
+  /** A choice (select, radio, preset) applies at once; typing in a field waits for Enter or leaving it (`typing`). */
+  function edit(patch: Partial<SettingsForm>, typing = false): void {
     const nextForm = { ...form, ...patch };
+    if (typing) {
+      setState({ form: nextForm, syncedKey: current.syncedKey, ...(current.emittedKey !== undefined ? { emittedKey: current.emittedKey } : {}) });
+      return;
+    }
     const next = nextValue(readSettingsForm(nextForm, value), value);
     const key = keyOf(next);
     let emittedKey = current.emittedKey;
@@ -78,14 +83,15 @@ export function SettingsPanel({ value, onChange, meanMicrophoneUpMeters }: Setti
 
   const messages = reading.messages;
   const field = (name: SettingsTextField, label: ReactNode, unit: string, options: { testId?: string; placeholder?: string; title?: string; disabled?: boolean; width?: string } = {}) => (
-    <NumberField name={name} label={label} unit={unit} text={form[name]} message={messages[name]} onText={(text) => edit({ [name]: text })} {...options} />
+    <NumberField name={name} label={label} unit={unit} text={form[name]} message={messages[name]} onText={(text) => edit({ [name]: text }, true)} {...options} />
   );
 
   const choice = weightingChoice(form.weighting);
   const typedConfidence = readConfidence(form.confidence);
 
   return (
-    <section className="panel set-panel" data-testid="settings-panel" aria-labelledby="settings-title">
+    <section className="panel set-panel" data-testid="settings-panel" aria-labelledby="settings-title"
+      onBlur={() => edit({})} onKeyDown={(event) => { if (event.key === 'Enter' && event.target instanceof HTMLInputElement) edit({}); }}>
       <h2 id="settings-title">Settings</h2>
 
       <fieldset className="set-group">
@@ -182,7 +188,7 @@ export function SettingsPanel({ value, onChange, meanMicrophoneUpMeters }: Setti
             <span className="set-label">Confidence</span>
             <span className="set-input">
               <input type="text" inputMode="decimal" spellCheck={false} className={`set-num ${messages.confidence ? 'set-error' : ''}`} style={{ width: '4.5em' }} data-testid="settings-confidence" value={form.confidence}
-                aria-invalid={messages.confidence ? true : undefined} onChange={(event) => edit({ confidence: event.target.value })} aria-label="Confidence level of the ellipse" />
+                aria-invalid={messages.confidence ? true : undefined} onChange={(event) => edit({ confidence: event.target.value }, true)} aria-label="Confidence level of the ellipse" />
               <span className="set-presets">
                 {CONFIDENCE_PRESETS.map((preset) => (
                   <button key={preset} type="button" className={'value' in typedConfidence && Math.abs(typedConfidence.value - preset) < 1e-9 ? 'set-on' : ''} data-testid={`settings-confidence-${Math.round(preset * 100)}`} onClick={() => edit({ confidence: String(preset) })}>
@@ -235,7 +241,7 @@ function NumberField({ name, label, unit, text, message, onText, testId, placeho
   );
 }
 
-function BandFields({ form, messages, onEdit }: { form: SettingsForm; messages: SettingsReading['messages']; onEdit(patch: Partial<SettingsForm>): void }) {
+function BandFields({ form, messages, onEdit }: { form: SettingsForm; messages: SettingsReading['messages']; onEdit(patch: Partial<SettingsForm>, typing?: boolean): void }) {
   // Typing an edge chooses the fixed band, so the edges are never locked away.
   const edge = (name: 'bandLow' | 'bandHigh', label: string, testId: string) => (
     <label className="set-row">
@@ -243,7 +249,7 @@ function BandFields({ form, messages, onEdit }: { form: SettingsForm; messages: 
       <span className="set-input">
         <input type="text" inputMode="decimal" spellCheck={false} className={`set-num ${messages[name] && form.bandMode === 'fixed' ? 'set-error' : ''} ${form.bandMode === 'automatic' ? 'set-idle' : ''}`} value={form[name]}
           placeholder={form.bandMode === 'automatic' ? 'auto' : ''} data-testid={testId} aria-invalid={messages[name] ? true : undefined}
-          onChange={(event) => onEdit({ [name]: event.target.value, bandMode: 'fixed' })} />
+          onChange={(event) => onEdit({ [name]: event.target.value, bandMode: 'fixed' }, true)} />
         <span className="set-unit">Hz</span>
       </span>
       {messages[name] && <span className="set-message" data-testid={`${testId}-message`}>{messages[name]}</span>}
