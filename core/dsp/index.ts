@@ -20,6 +20,7 @@ export {
   type WelchEstimator,
   type WelchSpectra,
 } from './welch';
+export { coarserSpectrum } from './coarserSpectrum';
 export { bandWeights, checkBand, bandEdgeTaperFraction, type BandWeights, type FrequencyBand } from './band';
 export {
   gccWeightings,

@@ -29,6 +29,8 @@ export interface WelchEstimator {
   createSpectra(): WelchSpectra;
   /** Auto spectrum of `signal` into `output` (segmentPoints/2 + 1 values). Returns the number of segments averaged. */
   autoSpectrum(signal: Samples, output: Float64Array): number;
+  /** Density of the one segment signal[start, start + segmentPoints) into `output`: autoSpectrum of that stretch, no view made. */
+  segmentSpectrum(signal: Samples, start: number, output: Float64Array): void;
   /**
    * G11, G22 and G12 of `a` and `b` into `result`. With `alignLagFrames` = D, segment j of `b` starts D frames
    * before segment j of `a` (pre-alignment for a pair where a[n] ≈ b[n - D]); only segments inside both signals count.
@@ -59,6 +61,17 @@ export function createWelchEstimator(segmentPoints: number, sampleRateHz: number
 
   function load(signal: Samples, start: number, frame: Float64Array): void {
     for (let i = 0; i < segmentPoints; i++) frame[i] = signal[start + i]! * window[i]!;
+  }
+
+  /** Adds |X|^2 of the windowed segment at `start` to output[0, binCount). */
+  function addSegment(signal: Samples, start: number, output: Float64Array): void {
+    load(signal, start, frameA);
+    plan.forwardRealHalf(frameA, spectrumA);
+    for (let k = 0; k < binCount; k++) {
+      const re = spectrumA[2 * k]!;
+      const im = spectrumA[2 * k + 1]!;
+      output[k] = output[k]! + re * re + im * im;
+    }
   }
 
   /** Scale of the mean of |X|^2 to a one-sided density: 2 / (fs * sum w^2) / count, without the 2 at DC and Nyquist. */
@@ -92,17 +105,22 @@ export function createWelchEstimator(segmentPoints: number, sampleRateHz: number
       output.fill(0, 0, binCount);
       let count = 0;
       for (let start = 0; start + segmentPoints <= signal.length; start += step) {
-        load(signal, start, frameA);
-        plan.forwardRealHalf(frameA, spectrumA);
-        for (let k = 0; k < binCount; k++) {
-          const re = spectrumA[2 * k]!;
-          const im = spectrumA[2 * k + 1]!;
-          output[k] = output[k]! + re * re + im * im;
-        }
+        addSegment(signal, start, output);
         count++;
       }
       finish(output, count, 1);
       return count;
+    },
+    segmentSpectrum(signal: Samples, start: number, output: Float64Array): void {
+      if (output.length < binCount) {
+        throw new WhenceError('dsp-buffer-length', `A Welch spectrum needs ${binCount} output values, got ${output.length}.`);
+      }
+      if (!(Number.isInteger(start) && start >= 0 && start + segmentPoints <= signal.length)) {
+        throw new WhenceError('dsp-segment-range', `A ${segmentPoints}-point segment at ${start} does not fit in a signal of ${signal.length} samples; start it between 0 and ${signal.length - segmentPoints}.`);
+      }
+      output.fill(0, 0, binCount);
+      addSegment(signal, start, output);
+      finish(output, 1, 1);
     },
     crossSpectra(a: Samples, b: Samples, result: WelchSpectra, alignLagFrames = 0): number {
       if (result.binCount !== binCount) {

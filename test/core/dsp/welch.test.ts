@@ -36,6 +36,19 @@ describe('welchSpectra()', () => {
     for (let k = 0; k < 129; k++) expect(auto[k]).toBeCloseTo(both.autoA[k]!, 15);
   });
 
+  it('segmentSpectrum() equals autoSpectrum() of that one segment', () => {
+    const estimator = createWelchEstimator(256, 8000);
+    const signal = referenceSignalX();
+    const one = new Float64Array(129);
+    const viaView = new Float64Array(129);
+    for (const start of [0, 128, 700, signal.length - 256]) {
+      estimator.segmentSpectrum(signal, start, one);
+      expect(estimator.autoSpectrum(signal.subarray(start, start + 256), viaView)).toBe(1);
+      for (let k = 0; k < 129; k++) expect(one[k]).toBe(viaView[k]);
+    }
+    expect(() => estimator.segmentSpectrum(signal, signal.length - 255, one)).toThrow(/does not fit/);
+  });
+
   it('pre-alignment restores the coherence of a long delay', () => {
     // coherence of a delayed copy in segments of S: about (1 - |D|/S)² without alignment (Carter 1987, from memory);
     // aligned, it is that of the noise alone: SNR 20 dB each -> (1/(1 + 0.01))² ≈ 0.98 (common practice)
