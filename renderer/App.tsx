@@ -4,7 +4,7 @@ import { useMemo, useState, type DragEvent } from 'react';
 import { WHENCE_VERSION } from '../core/version';
 import { locatedVerdict } from '../core/pipeline';
 import { CorrelationsView } from './correlations';
-import { FixLogPanel, fixLogFileName } from './fixlog';
+import { FixLogPanel, fixLogFileName, loggedEventIndices, openRecordingIdentity } from './fixlog';
 import { detectHost } from './host';
 import { MapView } from './map';
 import { MicrophonesPanel } from './microphones';
@@ -12,7 +12,8 @@ import { CautionsPanel } from './panels/CautionsPanel';
 import { RecordingView } from './recording';
 import { SettingsPanel } from './settings';
 import { useWorkspace } from './state/useWorkspace';
-import { EventsPanel, loggedEventIndices } from './workspace/EventsPanel';
+import { EventsPanel } from './workspace/EventsPanel';
+import { ConfirmDialog } from './workspace/ConfirmDialog';
 import { mapFixes, mapHyperbolae, mapMicrophones, meanUpMeters, planeHeightMeters, precisionOverlay, srpOverlay } from './workspace/mapModel';
 import { Toolbar } from './workspace/Toolbar';
 import { NoticeBar } from './workspace/NoticeBar';
@@ -43,7 +44,7 @@ export function App() {
     if (overlayKind === 'srp') return srpOverlay(state.document, workspace.correlations, speedMetersPerSecond, planeUp);
     return undefined;
   }, [overlayKind, state.document, speedMetersPerSecond, workspace.correlations, planeUp]);
-  const logged = useMemo(() => loggedEventIndices(state.document.fixes), [state.document.fixes]);
+  const logged = useMemo(() => loggedEventIndices(state.document.fixes, state.recording === undefined ? undefined : openRecordingIdentity(state.recording), state.events), [state.document.fixes, state.recording, state.events]);
   const recordingEvents = useMemo(() => state.events.map((located, index) => ({ index, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, status: located.solve.status, selected: index === state.selectedEventIndex })), [state.events, state.selectedEventIndex]);
   const channelLabels = useMemo(() => {
     const count = state.recording?.info.channelCount ?? 0;
@@ -69,6 +70,11 @@ export function App() {
         busy={state.busy}
         canLocate={state.recording !== undefined}
         selection={state.selection}
+        undoLabel={workspace.undoLabel}
+        redoLabel={workspace.redoLabel}
+        onNewProject={() => void workspace.newProject()}
+        onUndo={workspace.undo}
+        onRedo={workspace.redo}
         onOpenRecording={() => void workspace.openRecording()}
         onOpenArray={() => void workspace.openArray()}
         onOpenProject={() => void workspace.openProject()}
@@ -162,6 +168,7 @@ export function App() {
           />
         </aside>
       </div>
+      <ConfirmDialog question={workspace.question} onAnswer={workspace.answerQuestion} />
     </div>
   );
 }

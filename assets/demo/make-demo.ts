@@ -7,7 +7,7 @@ import { DEMO_FILE_NAMES } from '../../core/contract';
 import { formatCsv } from '../../core/csv';
 import { enuToGeodetic } from '../../core/geo';
 import { sceneTruth } from '../../core/simulate';
-import { serializeProjectDocument, type ProjectDocument } from '../../core/project';
+import { CURRENT_PROJECT_SCHEMA_VERSION, serializeProjectDocument, type ProjectDocument } from '../../core/project';
 import { writeFileAtomic } from '../../main/files';
 import { writeSceneWav } from '../../main/simulate';
 import { DEMO_MICROPHONES, DEMO_SCENE, DEMO_SITE } from './scenario';
@@ -76,7 +76,7 @@ export function demoDelaysCsv(): string {
  */
 export function demoProject(recording: { sizeBytes: number; frameCount: number }): ProjectDocument {
   return {
-    schemaVersion: 2,
+    schemaVersion: CURRENT_PROJECT_SCHEMA_VERSION,
     name: 'Quillmere Pond dawn survey (invented demo)',
     array: {
       microphones: DEMO_MICROPHONES.map((m) => ({ channel: m.channel, label: m.label, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters, surveySigmaMeters: DEMO_SITE.surveySigmaMeters })),

@@ -7,4 +7,5 @@ export { PLAUSIBLE_SAMPLE_RATE_HZ, readWavInfo } from './readWavInfo';
 export { readFrames } from './readFrames';
 export { decodeInterleaved } from './decodeInterleaved';
 export { formatStartTime } from './startTime';
+export { FINGERPRINT_SPAN_BYTES, fnv1a64Hex, recordingFingerprint } from './recordingFingerprint';
 export { encodeWavHeader, encodeFrames, encodeWavFile, wavFileLayout, type WavWriteSpec, type WavBextSpec, type WavFileLayout } from './wavWriter';

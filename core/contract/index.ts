@@ -133,7 +133,7 @@ export interface HostApi {
 
   /** Call after each change (debounced); kept until the work is saved or discarded. */
   writeRecoveryCopy(document: ProjectDocument, projectPath?: string): Promise<void>;
-  /** On start: the unsaved work of a session that ended without saving, once; null when there is none. */
+  /** On start: the unsaved work of a session that ended without saving (left in place until discarded or replaced after the user chose); null when there is none. */
   takeRecoveryCopy(): Promise<RecoveryCopy | null>;
   /** When the user chooses to throw the unsaved work away. */
   discardRecoveryCopy(): Promise<void>;

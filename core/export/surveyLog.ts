@@ -22,9 +22,10 @@ export interface SurveyLogContext {
 
 const LOCATE_COLUMNS = ['time_s', 'arrival_s', 'local_time', 'band_low_hz', 'band_high_hz', 'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags', 'ellipse_terms'] as const;
 
+/** The survey log's columns, the same for `whence locate` and the app's fix log: the recording's name first, then the event. */
 export function surveyLogColumns(dimensions: 2 | 3): string[] {
   const base = dimensions === 3 ? [...FIX_COLUMNS_3D] : [...FIX_COLUMNS_2D];
-  return [...base.slice(0, 4), ...LOCATE_COLUMNS, ...base.slice(4)];
+  return ['recording', ...base.slice(0, 4), ...LOCATE_COLUMNS, ...base.slice(4)];
 }
 
 export function locatedEventRecord(located: LocatedEvent, context: SurveyLogContext): FixRecord {
@@ -32,6 +33,7 @@ export function locatedEventRecord(located: LocatedEvent, context: SurveyLogCont
   const record = fixRecord(eventName, { ...located.solve, warnings: [...located.warnings, ...located.solve.warnings] }, context.dimensions, context.geometry.origin, locatedVerdict(located, context.geometry));
   const arrivalSeconds = located.firstArrivalSeconds;
   Object.assign(record, {
+    recording: context.recordingName,
     time_s: roundDecimals(located.emissionTimeSeconds, 4),
     arrival_s: roundDecimals(arrivalSeconds, 4),
     local_time: context.recordingStartTime !== undefined ? formatStartTime(context.recordingStartTime, Math.round(arrivalSeconds * context.sampleRateHz)) : undefined,

@@ -82,6 +82,8 @@ export interface GeoJsonExtras {
   metadata?: Record<string, unknown>;
   /** Microphones as Point features (feature: 'microphone'). */
   microphones?: ReadonlyArray<{ label: string; channel: number; eastMeters: number; northMeters: number; upMeters: number }>;
+  /** Per record, the origin its local x_m, y_m, z_m are about (fixes logged with other arrays); absent: `origin`. */
+  recordOrigins?: ReadonlyArray<GeodeticPosition | undefined>;
 }
 
 export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPosition, includeEllipses: boolean, extras: GeoJsonExtras = {}): string {
@@ -90,21 +92,22 @@ export function fixesToGeoJson(records: readonly FixRecord[], origin: GeodeticPo
     const geodetic = enuToGeodetic({ eastMeters: microphone.eastMeters, northMeters: microphone.northMeters, upMeters: microphone.upMeters }, origin);
     features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [Number(geodetic.longitudeDegrees.toFixed(9)), Number(geodetic.latitudeDegrees.toFixed(9))] }, properties: { feature: 'microphone', label: microphone.label, channel: microphone.channel, alt_m: Number(geodetic.heightMeters.toFixed(3)) } });
   }
-  for (const record of records) {
+  records.forEach((record, index) => {
+    const recordOrigin = extras.recordOrigins?.[index] ?? origin;
     const properties = presentFields(record);
-    if (typeof record.lat !== 'number' || typeof record.lon !== 'number') continue;
+    if (typeof record.lat !== 'number' || typeof record.lon !== 'number') return;
     const fixProperties: Record<string, unknown> = { ...properties, feature: 'fix' };
     features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [record.lon, record.lat] }, properties: fixProperties });
     const { x_m: east, y_m: north, z_m: up, semi_major_m: major, semi_minor_m: minor, major_axis_deg: axis } = record;
     if (includeEllipses && [east, north, up, major, minor, axis].every((value) => typeof value === 'number')) {
-      const outline = validEllipseRing({ eastMeters: east as number, northMeters: north as number, upMeters: up as number, semiMajorMeters: major as number, semiMinorMeters: minor as number, majorAxisDegreesFromEast: axis as number }, origin);
+      const outline = validEllipseRing({ eastMeters: east as number, northMeters: north as number, upMeters: up as number, semiMajorMeters: major as number, semiMinorMeters: minor as number, majorAxisDegreesFromEast: axis as number }, recordOrigin);
       if ('ring' in outline) {
-        features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [outline.ring] }, properties: { event: record.event, feature: 'uncertainty-ellipse', confidence: record.confidence } });
+        features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [outline.ring] }, properties: { ...(record.recording !== undefined ? { recording: record.recording } : {}), event: record.event, feature: 'uncertainty-ellipse', confidence: record.confidence } });
       } else {
         fixProperties.ellipse_warning = `The uncertainty ellipse is left out of this file: ${outline.problem}. Its size is in semi_major_m and semi_minor_m.`;
       }
     }
-  }
+  });
   const collection: Record<string, unknown> = { type: 'FeatureCollection', features };
   if (extras.metadata !== undefined) collection.whence = extras.metadata;
   return JSON.stringify(collection, null, 2) + '\n';

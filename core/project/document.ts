@@ -5,18 +5,20 @@ import { WhenceError } from '../errors';
 import { printableText } from '../text';
 import { WHENCE_VERSION } from '../version';
 import { CURRENT_PROJECT_SCHEMA_VERSION, migrateProjectData } from './migrations';
-import { projectDocumentSchemaV2 } from './schema';
+import { projectDocumentSchemaV3 } from './schema';
 
-export type ProjectDocument = z.infer<typeof projectDocumentSchemaV2>;
+export type ProjectDocument = z.infer<typeof projectDocumentSchemaV3>;
 export type ProjectMedium = ProjectDocument['medium'];
 export type ProjectSettings = ProjectDocument['settings'];
 export type ProjectArray = ProjectDocument['array'];
 export type RecordingReference = NonNullable<ProjectDocument['recording']>;
+export type RecordingIdentity = FixLogEntry['recording'];
+export type FixQuality = NonNullable<FixLogEntry['quality']>;
 export type FixLogEntry = ProjectDocument['fixes'][number];
 export type MapView = NonNullable<ProjectDocument['view']>;
 
 /** The schema of the version this Whence writes. */
-export const projectDocumentSchema = projectDocumentSchemaV2;
+export const projectDocumentSchema = projectDocumentSchemaV3;
 
 export interface ReadProjectResult {
   document: ProjectDocument;

@@ -34,4 +34,5 @@ export {
   type ProjectData,
   type ProjectMigration,
 } from './migrations';
+export { SITE_PICTURE_LIMITS, sitePictureSchema, type SitePicture } from './sitePicture';
 export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV2 } from './schema';

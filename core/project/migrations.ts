@@ -22,7 +22,10 @@ export interface MigrationRegistry {
   migrations: readonly ProjectMigration[];
 }
 
-export const CURRENT_PROJECT_SCHEMA_VERSION = 2;
+export const CURRENT_PROJECT_SCHEMA_VERSION = 3;
+
+/** The recording named on fixes of a version 2 file that named no recording. Size 0 matches no real recording. */
+export const UNKNOWN_RECORDING_NAME = 'recording not named in the project';
 
 /** Verdicts of fixes logged before verdicts existed: judged from their status alone (what version 1 kept). */
 const VERDICT_FROM_V1_STATUS: Record<string, { grade: string; reason: string }> = {
@@ -49,6 +52,24 @@ export const PROJECT_MIGRATIONS: readonly ProjectMigration[] = [
           const verdict = typeof status === 'string' ? VERDICT_FROM_V1_STATUS[status] : undefined;
           return verdict === undefined ? entry : { ...entry, verdict: { ...verdict } };
         }),
+      };
+    },
+  },
+  {
+    fromVersion: 2,
+    summary: "each logged fix names its recording (the project's recording, by name and size) so fixes of different recordings are kept apart; quality figures are kept with fixes logged from now on",
+    migrate: (data) => {
+      const fixes = data.fixes;
+      if (!Array.isArray(fixes)) return data;
+      const reference = data.recording;
+      let identity: Record<string, unknown> = { name: UNKNOWN_RECORDING_NAME, sizeBytes: 0 };
+      if (typeof reference === 'object' && reference !== null && !Array.isArray(reference)) {
+        const { name, sizeBytes } = reference as Record<string, unknown>;
+        if (typeof name === 'string' && name !== '' && typeof sizeBytes === 'number') identity = { name, sizeBytes };
+      }
+      return {
+        ...data,
+        fixes: fixes.map((entry: unknown) => (typeof entry !== 'object' || entry === null || Array.isArray(entry) ? entry : { ...entry, recording: { ...identity } })),
       };
     },
   },

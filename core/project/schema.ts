@@ -1,4 +1,4 @@
-// The zod schema of the project document, schema version 2: array, medium, settings, recording reference, fix log, map view.
+// The zod schema of the project document, schema version 3: array, medium, settings, recording reference, fix log, map view.
 // Positions in local east/north/up metres, times in seconds (from the start of the recording), frequencies in Hz.
 import { z } from 'zod';
 import { gccWeightings, type GccWeighting } from '../dsp';
@@ -98,11 +98,22 @@ export const settingsSchema = z.object({
   detectionBandHz: frequencyBandSchema.optional(),
 });
 
-/** Enough about the recording to find it again and to recognise it after it was moved or renamed. */
-export const recordingReferenceSchema = z.object({
-  path: filePath.optional(),
+/**
+ * A recording's identity (version 3 on): name and size, the BWF start time when the file has one, and the content hash of
+ * its first and last bytes (core/audio recordingFingerprint), which still recognises the file after it was renamed.
+ */
+export const recordingIdentitySchema = z.object({
   name: z.string().min(1).max(MAX_PATH_CHARS),
   sizeBytes: z.number().int().nonnegative(),
+  /** Local time of the first sample, 'YYYY-MM-DDTHH:MM:SS.mmm', when the file carries one. */
+  startTimeIso: z.string().max(MAX_LABEL_CHARS).optional(),
+  /** 16 hex digits: FNV-1a 64 of the size and the first and last 64 KiB (core/audio recordingFingerprint). */
+  contentHash: z.string().regex(/^[0-9a-f]{16}$/, 'a content hash is 16 lower-case hex digits').optional(),
+});
+
+/** Enough about the recording to find it again and to recognise it after it was moved or renamed. */
+export const recordingReferenceSchema = recordingIdentitySchema.extend({
+  path: filePath.optional(),
   channelCount: z.number().int().min(1),
   sampleRateHz: z.number().positive(),
   frameCount: z.number().int().nonnegative(),
@@ -114,7 +125,7 @@ const squareCovariance = z
     message: 'a covariance is a 2x2 (east, north) or 3x3 (east, north, up) matrix in square metres',
   });
 
-export const fixLogEntrySchema = z
+const fixLogEntryFieldsV2 = z
   .object({
     id: z.string().min(1).max(MAX_LABEL_CHARS),
     eventIndex: z.number().int().nonnegative(),
@@ -146,19 +157,62 @@ export const fixLogEntrySchema = z
     note: z.string().max(MAX_NOTE_CHARS),
     accepted: z.boolean(),
     warnings: z.array(z.string().max(MAX_NOTE_CHARS)).max(PROJECT_LIMITS.warningsPerFix).optional(),
-  })
-  .superRefine((entry, context) => {
-    const given = [entry.eastMeters, entry.northMeters, entry.upMeters].filter((value) => value !== undefined).length;
-    if (given !== 0 && given !== 3) {
-      context.addIssue({ code: 'custom', path: ['eastMeters'], message: 'a position needs all of eastMeters, northMeters and upMeters, or none of them' });
-    }
   });
+
+function checkPositionComplete(entry: { eastMeters?: number; northMeters?: number; upMeters?: number }, context: z.RefinementCtx): void {
+  const given = [entry.eastMeters, entry.northMeters, entry.upMeters].filter((value) => value !== undefined).length;
+  if (given !== 0 && given !== 3) {
+    context.addIssue({ code: 'custom', path: ['eastMeters'], message: 'a position needs all of eastMeters, northMeters and upMeters, or none of them' });
+  }
+}
+
+export const fixLogEntrySchemaV2 = fixLogEntryFieldsV2.superRefine(checkPositionComplete);
+
+/**
+ * A fix's own quality figures as the survey log writes them (version 3 on), kept so an export of the log names them for
+ * every fix, whichever recording it came from. Absent in fixes logged with version 2.
+ */
+export const fixQualitySchema = z.object({
+  /** Smallest ratio of a pair's correlation peak to its second peak (survey log `min_peak_ratio`). */
+  minPeakRatio: z.number().nonnegative().optional(),
+  gdop: z.number().nonnegative().optional(),
+  chiSquare: z.number().nonnegative().optional(),
+  chiSquareDof: z.number().int().nonnegative().optional(),
+  timingSigmaSeconds: z.number().nonnegative().optional(),
+  sigmaSource: z.string().max(MAX_LABEL_CHARS).optional(),
+  bandSnrDb: z.number().optional(),
+  medianPairSnrDb: z.number().optional(),
+  channelsTriggered: z.number().int().nonnegative().optional(),
+  /** Pairs the fix left out, "1-3 2-4" (1-based microphone numbers). */
+  pairsDropped: z.string().max(MAX_NOTE_CHARS).optional(),
+  eventFlags: z.string().max(MAX_NOTE_CHARS).optional(),
+  /** What the ellipse is made of (survey log `ellipse_terms`). */
+  ellipseTerms: z.string().max(MAX_NOTE_CHARS).optional(),
+});
+
+/** Version 3: each fix names the recording it came from and keeps its own quality figures. */
+export const fixLogEntrySchema = fixLogEntryFieldsV2
+  .extend({
+    recording: recordingIdentitySchema,
+    quality: fixQualitySchema.optional(),
+    /** The array's WGS84 origin when the fix was logged: its latitude and longitude stay right after the array changes. */
+    origin: geodeticOriginSchema.optional(),
+  })
+  .superRefine(checkPositionComplete);
 
 export const mapViewSchema = z.object({
   centerEastMeters: z.number(),
   centerNorthMeters: z.number(),
   metersPerPixel: z.number().positive(),
 });
+
+function checkFixIdsUnique(document: { fixes: ReadonlyArray<{ id: string }> }, context: z.RefinementCtx): void {
+  const seen = new Set<string>();
+  document.fixes.forEach((entry, index) => {
+    if (seen.has(entry.id)) context.addIssue({ code: 'custom', path: ['fixes', index, 'id'], message: `fix id '${entry.id}' is used twice; each fix needs its own id` });
+    seen.add(entry.id);
+  });
+}
 
 export const projectDocumentSchemaV2 = z
   .object({
@@ -170,13 +224,23 @@ export const projectDocumentSchemaV2 = z
     medium: mediumSchema,
     settings: settingsSchema,
     recording: recordingReferenceSchema.optional(),
+    fixes: z.array(fixLogEntrySchemaV2).max(PROJECT_LIMITS.fixes),
+    view: mapViewSchema.optional(),
+  })
+  .superRefine(checkFixIdsUnique);
+
+/** Version 3: every logged fix carries its recording's identity and its own quality figures. */
+export const projectDocumentSchemaV3 = z
+  .object({
+    schemaVersion: z.literal(3),
+    name: z.string().max(MAX_LABEL_CHARS),
+    /** The Whence that last saved the file (e.g. "Whence 0.1.0"); set when the document is serialized. */
+    writtenBy: z.string().max(MAX_LABEL_CHARS).optional(),
+    array: arraySchema,
+    medium: mediumSchema,
+    settings: settingsSchema,
+    recording: recordingReferenceSchema.optional(),
     fixes: z.array(fixLogEntrySchema).max(PROJECT_LIMITS.fixes),
     view: mapViewSchema.optional(),
   })
-  .superRefine((document, context) => {
-    const seen = new Set<string>();
-    document.fixes.forEach((entry, index) => {
-      if (seen.has(entry.id)) context.addIssue({ code: 'custom', path: ['fixes', index, 'id'], message: `fix id '${entry.id}' is used twice; each fix needs its own id` });
-      seen.add(entry.id);
-    });
-  });
+  .superRefine(checkFixIdsUnique);

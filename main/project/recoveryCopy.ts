@@ -1,5 +1,5 @@
 // The recovery copy of unsaved work, in the app's data folder: written atomically after each change (the page debounces),
-// offered back once on the next start, removed when that same work is saved or when the user discards it.
+// offered back on every start until the user restores or discards it (the page writes none while it is on offer).
 import { mkdir, readFile, rename, unlink } from 'node:fs/promises';
 import { join } from 'node:path';
 import { z } from 'zod';
@@ -8,8 +8,6 @@ import { readProjectText, serializeProjectDocument, type ProjectDocument } from 
 import { errorCode, writeFileAtomic } from '../files';
 
 export const RECOVERY_FILE_NAME = 'recovery.json';
-/** A copy once offered is moved here (not deleted), so a second crash before the user acts loses nothing. */
-export const TAKEN_RECOVERY_FILE_NAME = 'recovery.taken.json';
 export const CORRUPT_RECOVERY_FILE_NAME = 'recovery.corrupt.json';
 
 const recoveryFileSchema = z.object({
@@ -23,7 +21,10 @@ const recoveryFileSchema = z.object({
 export interface RecoveryStore {
   /** Replaces the recovery copy with this document (and where it was last saved, if it was). */
   write(document: ProjectDocument, projectPath?: string): Promise<void>;
-  /** The recovery copy, once: it is moved aside so it is not offered again. Null when there is none or it is unreadable. */
+  /**
+   * The recovery copy, left in place: a second crash before the user chose offers it again. Null when there is none or it
+   * is unreadable (a damaged copy is set aside as CORRUPT_RECOVERY_FILE_NAME).
+   */
   take(): Promise<RecoveryCopy | null>;
   discard(): Promise<void>;
   /** Removes the recovery copy if it holds exactly this document (just saved); a newer unsaved change is kept. */
@@ -84,7 +85,6 @@ export function createRecoveryStore(folder: string, clock: () => Date = () => ne
         await rename(currentPath, join(folder, CORRUPT_RECOVERY_FILE_NAME));
         return null;
       }
-      await rename(currentPath, join(folder, TAKEN_RECOVERY_FILE_NAME));
       return current.copy;
     }),
     discard: () => serial(() => removeIfPresent(currentPath)),

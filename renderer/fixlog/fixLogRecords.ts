@@ -1,7 +1,7 @@
 // Fix log entries as survey-log records (the columns of `whence locate`), and the accepted ones as CSV or GeoJSON text.
 // Written by core/export's own writers (fixRecord, surveyLogCsv, fixesToGeoJson), so the app's files match the command line's.
-import { formatStartTime } from '../../core/audio';
 import { fixesToGeoJson, fixRecord, locatedEventRecord, surveyLogCsv, surveyLogMetadata, type FixRecord, type SurveyLogContext } from '../../core/export';
+import { enuToGeodetic, type GeodeticPosition } from '../../core/geo';
 import type { Fix, SolveResult } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry } from '../../core/project';
@@ -32,6 +32,28 @@ function rounded(value: number | undefined, decimals: number): number | undefine
   return value === undefined || !Number.isFinite(value) ? undefined : Number(value.toFixed(decimals));
 }
 
+function significant(value: number | undefined, digits: number): number | undefined {
+  return value === undefined || !Number.isFinite(value) ? undefined : Number(value.toPrecision(digits));
+}
+
+/** The survey-log columns of the entry's own quality figures, rounded as locatedEventRecord and fixRecord round them. */
+function qualityColumns(entry: FixLogEntry): FixRecord {
+  const q = entry.quality ?? {};
+  return {
+    min_peak_ratio: rounded(q.minPeakRatio, 2), gdop: significant(q.gdop, 6), chi_square: significant(q.chiSquare, 6), chi_square_dof: q.chiSquareDof,
+    timing_sigma_s: significant(q.timingSigmaSeconds, 6), sigma_source: q.sigmaSource, band_snr_db: rounded(q.bandSnrDb, 1), median_pair_snr_db: rounded(q.medianPairSnrDb, 1),
+    channels_triggered: q.channelsTriggered, pairs_dropped: q.pairsDropped, event_flags: q.eventFlags, ellipse_terms: q.ellipseTerms,
+  };
+}
+
+/** The entry's WGS84 position from the origin it was logged with (the array's at that time), rounded as fixRecord rounds it. */
+function entryLatLon(entry: FixLogEntry, fallback: GeodeticPosition | undefined): FixRecord {
+  const origin = entry.origin ?? fallback;
+  if (origin === undefined || entry.eastMeters === undefined || entry.northMeters === undefined || entry.upMeters === undefined) return {};
+  const g = enuToGeodetic({ eastMeters: entry.eastMeters, northMeters: entry.northMeters, upMeters: entry.upMeters }, origin);
+  return { lat: significant(g.latitudeDegrees, 11), lon: significant(g.longitudeDegrees, 11), alt_m: significant(g.heightMeters, 8) };
+}
+
 /** The solver result an entry still describes; unknown parts are NaN, which the record writer leaves empty. */
 function entrySolve(entry: FixLogEntry): SolveResult {
   const result: SolveResult = { status: entry.status, warnings: entry.warnings ?? [] };
@@ -60,21 +82,26 @@ function entrySolve(entry: FixLogEntry): SolveResult {
   return { ...result, fix };
 }
 
-/** One entry's record, as locatedEventRecord writes it; `label` and `note` are added when they are not empty. */
+/**
+ * One entry's record, as locatedEventRecord writes it, always named by the entry's own recording; `label` and `note` are
+ * added when they are not empty. Without its located event at hand (another recording's fix, or a reopened project), the
+ * quality columns come from the entry's own figures and latitude and longitude from the origin it was logged with.
+ */
 function entryRecord(entry: FixLogEntry, context: FixLogContext): FixRecord {
   const located = context.located?.get(entry.id);
   let record: FixRecord;
   if (located !== undefined) {
-    record = locatedEventRecord(located, context);
+    record = locatedEventRecord(located, { ...context, recordingName: entry.recording.name, geometry: { ...context.geometry, origin: entry.origin ?? context.geometry.origin } });
   } else {
-    record = fixRecord(String(entry.eventIndex + 1), entrySolve(entry), context.dimensions, context.geometry.origin, entry.verdict);
+    record = fixRecord(String(entry.eventIndex + 1), entrySolve(entry), context.dimensions, undefined, entry.verdict);
     for (const column of COLUMNS_NEEDING_LOCATED_EVENT) record[column] = undefined;
     if (record.x_m !== undefined) record.confidence = entry.ellipse?.confidence;
-    const arrivalSeconds = entry.firstArrivalSeconds;
-    Object.assign(record, {
+    // Entries of version 2 files kept no origin: the project then had one array, whose origin is the one in use.
+    Object.assign(record, qualityColumns(entry), entryLatLon(entry, context.geometry.origin), {
+      recording: entry.recording.name,
       time_s: rounded(entry.emissionTimeSeconds, 4),
-      arrival_s: rounded(arrivalSeconds, 4),
-      local_time: context.recordingStartTime !== undefined ? formatStartTime(context.recordingStartTime, Math.round(arrivalSeconds * context.sampleRateHz)) : entry.localTime,
+      arrival_s: rounded(entry.firstArrivalSeconds, 4),
+      local_time: entry.localTime,
       band_low_hz: rounded(entry.bandHz?.lowHz, 0),
       band_high_hz: rounded(entry.bandHz?.highHz, 0),
     });
@@ -101,6 +128,13 @@ export function fixLogNotes(entries: readonly FixLogEntry[], accepted: readonly 
   return notes;
 }
 
+/** The log's head names every recording its fixes came from; the start time only when that is the open recording alone. */
+function contextForRecordings(entries: readonly FixLogEntry[], context: FixLogContext): FixLogContext {
+  const names = [...new Set(entries.map((entry) => entry.recording.name))];
+  if (names.length === 1 && names[0] === context.recordingName) return context;
+  return { ...context, recordingName: names.join('; '), recordingStartTime: undefined };
+}
+
 export type FixLogExport = { ok: true; text: string; count: number } | { ok: false; message: string };
 
 /** The accepted entries as a survey log: CSV (surveyLogCsv) or GeoJSON with ellipses (fixesToGeoJson), as `whence locate` writes them. */
@@ -109,9 +143,11 @@ export function fixLogExportText(kind: FixLogExportKind, entries: readonly FixLo
   if (accepted.length === 0) return { ok: false, message: 'No accepted fixes to export: tick the fixes to keep.' };
   const records = fixLogToRecords(accepted, context);
   const notes = fixLogNotes(entries, accepted);
-  if (kind === 'csv') return { ok: true, text: surveyLogCsv(records, context, notes), count: records.length };
-  const origin = context.geometry.origin;
+  const logContext = contextForRecordings(accepted, context);
+  if (kind === 'csv') return { ok: true, text: surveyLogCsv(records, logContext, notes), count: records.length };
+  const origin = context.geometry.origin ?? accepted.find((entry) => entry.origin !== undefined)?.origin;
   if (origin === undefined) return { ok: false, message: 'GeoJSON needs WGS84 positions: set the array\'s origin (latitude, longitude) in the Microphones panel.' };
-  const text = fixesToGeoJson(records, origin, true, { metadata: { ...surveyLogMetadata(context), notes }, microphones: context.geometry.microphones });
+  const recordOrigins = accepted.map((entry) => entry.origin ?? context.geometry.origin);
+  const text = fixesToGeoJson(records, origin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: context.geometry.microphones, recordOrigins });
   return { ok: true, text, count: records.length };
 }

@@ -3,5 +3,6 @@
 export { FixLogPanel, type FixLogPanelProps } from './FixLogPanel';
 export { fixLogExportText, fixLogFileName, fixLogNotes, fixLogToRecords, COLUMNS_NEEDING_LOCATED_EVENT, type FixLogContext, type FixLogExport, type FixLogExportKind } from './fixLogRecords';
 export { fixLogContextFor, settingsForLog, type FixLogSource } from './surveyLogContext';
-export { fixLogEntryFromLocated, minPeakRatio, type EntryOptions } from './entryFromLocated';
+export { fixLogEntryFromLocated, fixQualityOf, minPeakRatio, type EntryOptions } from './entryFromLocated';
+export { ARRIVAL_MATCH_SECONDS, entryIsOfEvent, locatedByEntryId, loggedEventIndices, openRecordingIdentity } from './loggedEvents';
 export { clockOf, fixLogRows, formatAxis, formatResidual, signed, type FixLogRow, type StatusTone } from './fixLogRows';

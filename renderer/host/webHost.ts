@@ -97,13 +97,16 @@ export function createWebHost(baseUrl = './'): Host {
       return Promise.resolve();
     },
     takeRecoveryCopy() {
+      // Left in place until the user restores or discards it: a second crash before that offers it again.
       const stored = localStorage.getItem(RECOVERY_KEY);
       if (stored === null) return Promise.resolve(null);
-      localStorage.removeItem(RECOVERY_KEY);
       try {
         const { savedAtIso, text } = JSON.parse(stored) as { savedAtIso: string; text: string };
         return Promise.resolve({ document: parseProjectDocument(text, 'recovery copy'), savedAtIso });
       } catch {
+        // A damaged copy is set aside (not deleted) so it is not offered on every start.
+        localStorage.setItem(`${RECOVERY_KEY}.damaged`, stored);
+        localStorage.removeItem(RECOVERY_KEY);
         return Promise.resolve(null);
       }
     },

@@ -36,3 +36,4 @@ export {
   type OverlayRaster,
 } from './overlayRaster';
 export { makeColourScale, colourAt, relativeLuminance, cssGradient, type ColourScale, type ColourStop } from './colourScale';
+export { sitePictureMatrix, sitePictureCorners, type CanvasMatrix, type MapSitePicture } from './sitePictureTransform';

@@ -1,6 +1,6 @@
 // Pure derivations from the project document: the speed of sound in use, the locate settings and context for the
 // worker, and the survey-log context of the fix log. Metres, seconds, m/s.
-import { fixLogContextFor, type FixLogContext } from '../fixlog';
+import { fixLogContextFor, locatedByEntryId, openRecordingIdentity, type FixLogContext } from '../fixlog';
 import { describeSpeed } from '../settings';
 import { WhenceError } from '../../core/errors';
 import { mapArrayToRecording, type LocateContext, type LocatedEvent, type LocateSettings } from '../../core/pipeline';
@@ -62,11 +62,8 @@ export function locateReadiness(document: ProjectDocument, recording: { name: st
 export function fixLogContextOf(state: Pick<WorkspaceState, 'document' | 'recording' | 'events'>): FixLogContext | undefined {
   const { document, recording } = state;
   if (recording === undefined) return undefined;
-  const located = new Map<string, LocatedEvent>();
-  for (const fix of document.fixes) {
-    const match = state.events.find((event) => event.event.index === fix.eventIndex);
-    if (match !== undefined) located.set(fix.id, match);
-  }
+  // Only entries of the open recording and the same event: another recording's event 3 is not this one's.
+  const located: Map<string, LocatedEvent> = locatedByEntryId(document.fixes, openRecordingIdentity(recording), state.events);
   try {
     return fixLogContextFor({
       recordingName: recording.name, ...(recording.info.startTime ? { recordingStartTime: recording.info.startTime } : {}), sampleRateHz: recording.info.sampleRateHz,

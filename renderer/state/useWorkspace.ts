@@ -5,13 +5,15 @@ import type { WavInfo } from '../../core/audio';
 import type { MenuCommand } from '../../core/contract';
 import type { CorrelationPlots, EnvelopePyramid, Spectrogram, SpectrogramRequest } from '../../core/overview';
 import type { LocatedEvent, PipelineProgress, PipelineResult } from '../../core/pipeline';
-import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
-import { fixLogExportText, fixLogFileName, type FixLogContext, type FixLogExport, type FixLogExportKind } from '../fixlog';
+import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
+import { fixLogExportText, fixLogFileName, openRecordingIdentity, type FixLogContext, type FixLogExport, type FixLogExportKind } from '../fixlog';
+import { recoveryTimeText } from '../workspace/recoveryTime';
+import { conditionsQuestion, discardWorkQuestion, type Question } from './questions';
 import type { Host, OpenedRecording } from '../host';
 import { PipelineBridge, type WorkerCall } from '../worker/bridge';
 import { fixLogContextOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
-import { initialWorkspace, workspaceReducer, type WorkspaceState } from './workspace';
+import { initialWorkspace, NEW_PROJECT_NAME, workspaceReducer, type WorkspaceState } from './workspace';
 import { maxOf } from '../../core/units';
 
 function message(error: unknown): string {
@@ -63,7 +65,17 @@ export interface WorkspaceController {
   dismissNotice(id: number): void;
   restoreRecovery(): void;
   discardRecovery(): void;
-  recoveryOffer: { savedAtIso: string } | undefined;
+  recoveryOffer: { savedAtIso: string; document: ProjectDocument } | undefined;
+  /** A new, empty project (asks first when there are unsaved changes). */
+  newProject(): Promise<void>;
+  undo(): void;
+  redo(): void;
+  /** What Undo and Redo would do ("log 15 fixes"), undefined when there is nothing. */
+  undoLabel: string | undefined;
+  redoLabel: string | undefined;
+  /** The question waiting for the user's answer (ConfirmDialog), if any. */
+  question: Question | undefined;
+  answerQuestion(choiceId: string): void;
   /** What the fix log's exports say about the run (undefined without a recording or a speed). */
   fixLogContext: FixLogContext | undefined;
 }
@@ -86,6 +98,20 @@ export function useWorkspace(host: Host): WorkspaceController {
 
   const notify = useCallback((level: 'info' | 'warning' | 'error', text: string) => dispatch({ type: 'notice/add', level, text }), []);
 
+  // One question at a time; a second one (rare) waits for the first to be answered.
+  const [question, setQuestion] = useState<Question | undefined>(undefined);
+  const answerRef = useRef<((choiceId: string) => void) | undefined>(undefined);
+  const ask = useCallback((next: Question): Promise<string> => new Promise<string>((resolve) => {
+    answerRef.current = resolve;
+    setQuestion(next);
+  }), []);
+  const answerQuestion = useCallback((choiceId: string) => {
+    const resolve = answerRef.current;
+    answerRef.current = undefined;
+    setQuestion(undefined);
+    resolve?.(choiceId);
+  }, []);
+
   const speed = useMemo(() => currentSpeed(state.document.medium), [state.document.medium]);
   const fixLogContext = useMemo(() => fixLogContextOf({ document: state.document, recording: state.recording, events: state.events }), [state.document, state.recording, state.events]);
 
@@ -95,8 +121,9 @@ export function useWorkspace(host: Host): WorkspaceController {
     worker.setByteReader(opened.byteReader);
     dispatch({ type: 'busy/set', busy: { label: `Reading ${opened.name}`, progress: 0 } });
     let info: WavInfo;
+    let contentHash: string;
     try {
-      info = await worker.call<WavInfo>('open', { source: opened.workerSource }).promise;
+      ({ info, contentHash } = await worker.call<{ info: WavInfo; contentHash: string }>('open', { source: opened.workerSource }).promise);
     } catch (error) {
       // The recording that was open stays open and in use.
       worker.setByteReader(previous?.byteReader);
@@ -108,7 +135,10 @@ export function useWorkspace(host: Host): WorkspaceController {
     recordingRef.current = opened;
     if (previous !== undefined && previous !== opened) await previous.close().catch(() => undefined);
     try {
-      dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info });
+      // Conditions set for another recording do not pass silently to this one (the demo's never do).
+      const current = stateRef.current;
+      const reference = current.document.recording;
+      const identity = openRecordingIdentity({ name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash });
       for (const warning of info.warnings) notify('warning', `${opened.name}: ${warning}`);
       dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: 0 } });
       const call = worker.call<EnvelopePyramid>('envelope', {}, (fraction) => {
@@ -126,7 +156,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       workRef.current = undefined;
       dispatch({ type: 'busy/set', busy: undefined });
     }
-  }, [bridge, notify]);
+  }, [bridge, notify, ask]);
 
   const locateAll = useCallback(async () => {
     const ready = locateReadiness(stateRef.current.document, stateRef.current.recording);
@@ -206,12 +236,13 @@ export function useWorkspace(host: Host): WorkspaceController {
     return () => { live = false; };
   }, [state.selectedEventIndex, state.events, state.recording, speed, bridge, notify]);
 
-  // Keep a recovery copy of unsaved work.
+  // Keep a recovery copy of unsaved work; never while an older copy is on offer (it survives until the user chose).
+  const offerPending = recovery !== undefined;
   useEffect(() => {
-    if (!state.dirty) return;
+    if (!state.dirty || offerPending) return;
     const timer = setTimeout(() => { void host.writeRecoveryCopy(stateRef.current.document, stateRef.current.projectPath).catch(() => undefined); }, 1500);
     return () => clearTimeout(timer);
-  }, [state.document, state.dirty, host]);
+  }, [state.document, state.dirty, host, offerPending]);
 
   const importArrayText = useCallback((name: string, text: string) => {
     try {
@@ -226,12 +257,32 @@ export function useWorkspace(host: Host): WorkspaceController {
     }
   }, [notify]);
 
-  const openDemo = useCallback(async () => {
+  /** Before `what` replaces the document: true to go on (after a save, or a discard the user chose), false to stay. */
+  const mayReplaceWork = useCallback(async (what: string): Promise<boolean> => {
+    const current = stateRef.current;
+    if (!current.dirty) return true;
+    const choice = await ask(discardWorkQuestion(current.document, what));
+    if (choice === 'cancel') return false;
+    if (choice === 'discard') return true;
+    try {
+      const saved = await host.saveProject(current.document, current.projectPath, false);
+      if (saved === null) return false;
+      dispatch({ type: 'project/saved', path: saved.path });
+      await host.discardRecoveryCopy().catch(() => undefined);
+      notify('info', saved.message);
+      return true;
+    } catch (error) {
+      notify('error', `Not saved: ${message(error)} Your work is still here and the previous file is intact.`);
+      return false;
+    }
+  }, [ask, host, notify]);
+
+  const startDemo = useCallback(async () => {
     try {
       dispatch({ type: 'busy/set', busy: { label: 'Opening the demo', progress: 0 } });
       const demo = await host.openDemo();
       const document = parseProjectDocument(demo.project.text, demo.project.name);
-      dispatch({ type: 'document/replace', document, path: undefined, dirty: false });
+      dispatch({ type: 'document/replace', document, path: undefined, dirty: false, fromDemo: true });
       const info = await loadRecording(demo.recording);
       if (info !== undefined) await locateAll();
     } catch (error) {
@@ -240,14 +291,20 @@ export function useWorkspace(host: Host): WorkspaceController {
     }
   }, [host, loadRecording, locateAll, notify]);
 
-  // On start: offer a recovery copy if the last session ended unsaved, and open the demo.
+  const openDemo = useCallback(async () => {
+    if (await mayReplaceWork('open the demo')) await startDemo();
+  }, [mayReplaceWork, startDemo]);
+
+  // On start: offer the recovery copy if the last session ended unsaved (and nothing else until the user chose), else open the demo.
   const started = useRef(false);
   useEffect(() => {
     if (started.current) return;
     started.current = true;
-    void host.takeRecoveryCopy().then((copy) => { if (copy !== null) setRecovery(copy); }, () => undefined);
-    void openDemo();
-  }, [host, openDemo]);
+    void host.takeRecoveryCopy().then((copy) => {
+      if (copy !== null) setRecovery(copy);
+      else void startDemo();
+    }, () => void startDemo());
+  }, [host, startDemo]);
 
   const exportText = useCallback(async (name: string, text: string, kind: 'csv' | 'geojson' | 'json') => {
     try {
@@ -304,6 +361,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     exportArray: (text) => exportText('whence-array.csv', text, 'csv'),
     async openProject() {
       try {
+        if (!(await mayReplaceWork('open a project'))) return;
         const opened = await host.openProject();
         if (opened === null) return;
         dispatch({ type: 'document/replace', document: opened.document, path: opened.path, dirty: false });
@@ -350,12 +408,23 @@ export function useWorkspace(host: Host): WorkspaceController {
       if (recovery === undefined) return;
       dispatch({ type: 'document/replace', document: recovery.document, path: recovery.path, dirty: true });
       setRecovery(undefined);
-      notify('info', `Restored the unsaved work from ${recovery.savedAtIso}. Open its recording to locate again, and save it.`);
+      notify('info', `Restored the unsaved work from ${recoveryTimeText(recovery.savedAtIso)}. Open its recording to locate again, and save it.`);
     },
     discardRecovery() {
       setRecovery(undefined);
-      void host.discardRecoveryCopy().catch(() => undefined);
+      void host.discardRecoveryCopy().catch(() => undefined).then(() => startDemo());
     },
+    async newProject() {
+      if (!(await mayReplaceWork('start a new project'))) return;
+      dispatch({ type: 'document/replace', document: emptyProjectDocument(NEW_PROJECT_NAME), path: undefined, dirty: false });
+      notify('info', 'A new project: open a recording and its array, set the conditions, then Find & locate.');
+    },
+    undo: () => dispatch({ type: 'edit/undo' }),
+    redo: () => dispatch({ type: 'edit/redo' }),
+    undoLabel: state.history.undo[state.history.undo.length - 1]?.label,
+    redoLabel: state.history.redo[state.history.redo.length - 1]?.label,
+    question,
+    answerQuestion,
   };
 
   useEffect(() => host.onMenuCommand((command: MenuCommand) => {
@@ -367,9 +436,27 @@ export function useWorkspace(host: Host): WorkspaceController {
       case 'save-project-as': void controller.saveProject(true); break;
       case 'export-log': void controller.exportLog('csv'); break;
       case 'open-demo': void controller.openDemo(); break;
+      case 'new-project': void controller.newProject(); break;
       default: break;
     }
   }));
+
+  // Ctrl+Z / Ctrl+Shift+Z (and Ctrl+Y; Cmd on macOS) undo and redo array and log edits, except while typing in a field,
+  // where they keep undoing the text.
+  useEffect(() => {
+    function onKey(event: KeyboardEvent) {
+      if (!(event.ctrlKey || event.metaKey) || event.altKey) return;
+      const target = event.target as HTMLElement | null;
+      if (target !== null && (target.isContentEditable || target.tagName === 'TEXTAREA' || target.tagName === 'SELECT' || (target.tagName === 'INPUT' && !['checkbox', 'radio', 'button'].includes((target as HTMLInputElement).type)))) return;
+      const key = event.key.toLowerCase();
+      if (key === 'z' && !event.shiftKey) dispatch({ type: 'edit/undo' });
+      else if ((key === 'z' && event.shiftKey) || key === 'y') dispatch({ type: 'edit/redo' });
+      else return;
+      event.preventDefault();
+    }
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, []);
 
   return controller;
 }

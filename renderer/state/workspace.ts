@@ -3,9 +3,10 @@
 import type { WavInfo } from '../../core/audio';
 import type { EnvelopePyramid } from '../../core/overview';
 import { locatedVerdict, type LocatedEvent } from '../../core/pipeline';
-import type { FixLogEntry, ProjectArray, ProjectDocument, ProjectMedium, ProjectSettings } from '../../core/project';
+import { emptyProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
 import type { SolveResult } from '../../core/locate';
-import { fixLogEntryFromLocated } from '../fixlog';
+import { fixLogEntryFromLocated, loggedEventIndices, openRecordingIdentity } from '../fixlog';
+import { EMPTY_HISTORY, recordEdit, redoEdit, snapshotOf, undoEdit, type EditHistory, type EditSnapshot } from './editHistory';
 
 export interface Notice { id: number; level: 'info' | 'warning' | 'error'; text: string }
 export interface Busy { label: string; progress: number; detail?: string }
@@ -14,7 +15,8 @@ export interface WorkspaceState {
   document: ProjectDocument;
   projectPath: string | undefined;
   dirty: boolean;
-  recording: { name: string; sizeBytes: number; info: WavInfo } | undefined;
+  /** The open recording; contentHash is core/audio recordingFingerprint's (absent until the worker computed it). */
+  recording: { name: string; sizeBytes: number; info: WavInfo; contentHash?: string } | undefined;
   envelope: EnvelopePyramid | undefined;
   envelopeProgress: number | undefined;
   events: LocatedEvent[];
@@ -24,14 +26,22 @@ export interface WorkspaceState {
   busy: Busy | undefined;
   notices: Notice[];
   nextNoticeId: number;
+  /** Undo and redo of array and fix log edits (editHistory.ts). */
+  history: EditHistory;
+  /** The document is the demo's (opened by Demo and not saved since): a recording of one's own starts afresh from it. */
+  fromDemo: boolean;
 }
 
 export type WorkspaceAction =
-  | { type: 'document/replace'; document: ProjectDocument; path: string | undefined; dirty: boolean }
+  | { type: 'document/replace'; document: ProjectDocument; path: string | undefined; dirty: boolean; fromDemo?: boolean }
   | { type: 'array/set'; array: ProjectArray }
   | { type: 'medium/set'; medium: ProjectMedium }
   | { type: 'settings/set'; settings: ProjectSettings }
-  | { type: 'recording/opened'; name: string; sizeBytes: number; info: WavInfo }
+  | { type: 'recording/opened'; name: string; sizeBytes: number; info: WavInfo; contentHash?: string }
+  /** Conditions (medium, settings) back to a new project's; leaving the demo also resets the name and the array. The log stays. */
+  | { type: 'conditions/reset'; leaveDemo: boolean }
+  | { type: 'edit/undo' }
+  | { type: 'edit/redo' }
   | { type: 'envelope/progress'; fraction: number }
   | { type: 'envelope/done'; envelope: EnvelopePyramid }
   | { type: 'events/replace'; events: LocatedEvent[] }
@@ -49,8 +59,16 @@ export type WorkspaceAction =
   | { type: 'project/saved'; path: string | undefined };
 
 export function initialWorkspace(document: ProjectDocument): WorkspaceState {
-  return { document, projectPath: undefined, dirty: false, recording: undefined, envelope: undefined, envelopeProgress: undefined, events: [], selectedEventIndex: undefined, selectedFixId: undefined, selection: undefined, busy: undefined, notices: [], nextNoticeId: 1 };
+  return { document, projectPath: undefined, dirty: false, recording: undefined, envelope: undefined, envelopeProgress: undefined, events: [], selectedEventIndex: undefined, selectedFixId: undefined, selection: undefined, busy: undefined, notices: [], nextNoticeId: 1, history: EMPTY_HISTORY, fromDemo: false };
 }
+
+/** An edit the user can undo: `before` is the part it replaces. */
+function undoableEdit(state: WorkspaceState, document: ProjectDocument, before: EditSnapshot): WorkspaceState {
+  return { ...state, document, dirty: true, history: recordEdit(state.history, before) };
+}
+
+/** The name a project gets when a recording of one's own is opened after the demo. */
+export const NEW_PROJECT_NAME = 'Untitled survey';
 
 function editDocument(state: WorkspaceState, document: ProjectDocument): WorkspaceState {
   return { ...state, document, dirty: true };
@@ -65,18 +83,38 @@ function fixIdFor(state: WorkspaceState, eventIndex: number): string {
 
 export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction): WorkspaceState {
   switch (action.type) {
-    case 'document/replace':
-      return { ...state, document: action.document, projectPath: action.path, dirty: action.dirty, selectedFixId: undefined };
+    case 'document/replace': {
+      // The located events belong to the old document's array: they go; the recording stays open only if the new project names it.
+      const reference = action.document.recording;
+      const keepRecording = state.recording !== undefined && reference !== undefined && sameRecording(recordingIdentityOf(reference), openRecordingIdentity(state.recording));
+      const session = keepRecording ? {} : { recording: undefined, envelope: undefined, envelopeProgress: undefined };
+      return { ...state, ...session, document: action.document, projectPath: action.path, dirty: action.dirty, selectedFixId: undefined, events: [], selectedEventIndex: undefined, selection: undefined, history: EMPTY_HISTORY, fromDemo: action.fromDemo ?? false };
+    }
     case 'array/set':
-      return editDocument(state, { ...state.document, array: action.array });
+      return undoableEdit(state, { ...state.document, array: action.array }, snapshotOf(state.document, 'array', 'array edit'));
+    case 'conditions/reset': {
+      const fresh = emptyProjectDocument(NEW_PROJECT_NAME);
+      const document = { ...state.document, medium: fresh.medium, settings: fresh.settings, ...(action.leaveDemo ? { name: fresh.name, array: fresh.array } : {}) };
+      return { ...state, document, dirty: true, fromDemo: action.leaveDemo ? false : state.fromDemo, ...(action.leaveDemo ? { projectPath: undefined, history: EMPTY_HISTORY } : {}) };
+    }
+    case 'edit/undo':
+    case 'edit/redo': {
+      const step = action.type === 'edit/undo' ? undoEdit(state.document, state.history) : redoEdit(state.document, state.history);
+      return step === undefined ? state : { ...state, document: step.document, history: step.history, dirty: true };
+    }
     case 'medium/set':
       return editDocument(state, { ...state.document, medium: action.medium });
     case 'settings/set':
       return editDocument(state, { ...state.document, settings: action.settings });
     case 'recording/opened': {
       const { info } = action;
-      const recording = { name: action.name, sizeBytes: action.sizeBytes, channelCount: info.channelCount, sampleRateHz: info.sampleRateHz, frameCount: info.frameCount };
-      return { ...state, recording: { name: action.name, sizeBytes: action.sizeBytes, info }, envelope: undefined, envelopeProgress: 0, events: [], selectedEventIndex: undefined, selection: undefined, document: { ...state.document, recording }, dirty: true };
+      const opened = { name: action.name, sizeBytes: action.sizeBytes, info, ...(action.contentHash !== undefined ? { contentHash: action.contentHash } : {}) };
+      const recording = { ...openRecordingIdentity(opened), channelCount: info.channelCount, sampleRateHz: info.sampleRateHz, frameCount: info.frameCount };
+      // Reopening the project's own recording only completes its identity: nothing the user made has changed.
+      const previous = state.document.recording;
+      const same = previous !== undefined && sameRecording(recordingIdentityOf(previous), recordingIdentityOf(recording));
+      const path = same && previous.path !== undefined ? { path: previous.path } : {};
+      return { ...state, recording: opened, envelope: undefined, envelopeProgress: 0, events: [], selectedEventIndex: undefined, selection: undefined, document: { ...state.document, recording: { ...recording, ...path } }, dirty: same ? state.dirty : true };
     }
     case 'envelope/progress':
       return { ...state, envelopeProgress: action.fraction };
@@ -101,23 +139,28 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
     case 'selection/set':
       return { ...state, selection: action.selection };
     case 'fixes/log-events': {
-      let working = state;
+      if (state.recording === undefined) return state;
+      const identity = openRecordingIdentity(state.recording);
+      const alreadyLogged = loggedEventIndices(state.document.fixes, identity, state.events);
       const added: FixLogEntry[] = [];
+      const info = state.recording.info;
+      const origin = state.document.array.origin;
       for (const index of action.indices) {
         const located = state.events[index];
-        if (located === undefined) continue;
-        const id = fixIdFor({ ...working, document: { ...working.document, fixes: [...working.document.fixes, ...added] } }, located.event.index);
-        const info = state.recording?.info;
-        const entry = fixLogEntryFromLocated(located, { id, verdict: locatedVerdict(located, state.document.array), label: `sound ${located.event.index + 1}`, ...(info?.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
+        if (located === undefined || alreadyLogged.has(located.event.index)) continue;
+        alreadyLogged.add(located.event.index);
+        const id = fixIdFor({ ...state, document: { ...state.document, fixes: [...state.document.fixes, ...added] } }, located.event.index);
+        const entry = fixLogEntryFromLocated(located, { id, recording: identity, verdict: locatedVerdict(located, state.document.array), label: `sound ${located.event.index + 1}`, ...(origin !== undefined ? { origin } : {}), ...(info.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
         added.push(entry);
       }
-      working = editDocument(state, { ...state.document, fixes: [...state.document.fixes, ...added] });
-      return added.length > 0 ? { ...working, selectedFixId: added[added.length - 1]!.id } : working;
+      if (added.length === 0) return state;
+      const working = undoableEdit(state, { ...state.document, fixes: [...state.document.fixes, ...added] }, snapshotOf(state.document, 'fixes', added.length === 1 ? 'log a fix' : `log ${added.length} fixes`));
+      return { ...working, selectedFixId: added[added.length - 1]!.id };
     }
     case 'fix/update':
-      return editDocument(state, { ...state.document, fixes: state.document.fixes.map((fix) => (fix.id === action.id ? { ...fix, ...action.patch } : fix)) });
+      return undoableEdit(state, { ...state.document, fixes: state.document.fixes.map((fix) => (fix.id === action.id ? { ...fix, ...action.patch } : fix)) }, snapshotOf(state.document, 'fixes', 'fix log edit'));
     case 'fixes/set':
-      return editDocument(state, { ...state.document, fixes: action.fixes });
+      return undoableEdit(state, { ...state.document, fixes: action.fixes }, snapshotOf(state.document, 'fixes', 'fix log edit'));
     case 'fix/select':
       return { ...state, selectedFixId: action.id };
     case 'busy/set':
@@ -127,6 +170,6 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
     case 'notice/dismiss':
       return { ...state, notices: state.notices.filter((notice) => notice.id !== action.id) };
     case 'project/saved':
-      return { ...state, dirty: false, projectPath: action.path ?? state.projectPath };
+      return { ...state, dirty: false, projectPath: action.path ?? state.projectPath, fromDemo: false };
   }
 }

@@ -1,6 +1,6 @@
 // The workspace's Web Worker: owns the open recording and runs everything heavy on it (overview envelope,
 // spectrograms, detection and location, correlation plots), with progress and cancel. No DOM here.
-import { readWavInfo, type ByteSource, type WavInfo } from '../../core/audio';
+import { readWavInfo, recordingFingerprint, type ByteSource, type WavInfo } from '../../core/audio';
 import { isWhenceError } from '../../core/errors';
 import { manualEvent } from '../../core/detect';
 import { correlationPlots, envelopeFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
@@ -39,9 +39,10 @@ const handlers: Record<string, Handler> = {
     }
     try {
       const info = await readWavInfo(source);
+      const contentHash = await recordingFingerprint(source);
       open = { source, info, recording: recordingAccess(source, info) };
       proxy = nextProxy;
-      return info;
+      return { info, contentHash };
     } catch (error) {
       proxy = previousProxy;
       throw error;

@@ -3,13 +3,13 @@
 import type { Verdict } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
 import { VERDICT_STYLES } from '../verdict';
-import type { FixLogEntry } from '../../core/project';
 
 export interface EventsPanelProps {
   events: LocatedEvent[];
   /** The verdict of each event, in the order of `events`. */
   verdicts: readonly Verdict[];
   selectedIndex: number | undefined;
+  /** Event numbers (event.index) of this recording already in the fix log (renderer/fixlog loggedEventIndices: recording and event). */
   loggedEventIndices: ReadonlySet<number>;
   onSelect(index: number): void;
   onLog(indices: number[]): void;
@@ -62,8 +62,4 @@ export function EventsPanel({ events, verdicts, selectedIndex, loggedEventIndice
       )}
     </section>
   );
-}
-
-export function loggedEventIndices(fixes: readonly FixLogEntry[]): Set<number> {
-  return new Set(fixes.map((fix) => fix.eventIndex));
 }

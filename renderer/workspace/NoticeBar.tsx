@@ -1,6 +1,7 @@
 // Messages for the user (what happened, what is wrong and what to do), and the offer to restore unsaved work.
 import { useEffect } from 'react';
 import type { Notice } from '../state/workspace';
+import { recoveryOfferText } from './recoveryTime';
 
 /** Information fades after this long; warnings and errors stay until dismissed. */
 export const INFO_NOTICE_MILLISECONDS = 8000;
@@ -8,7 +9,7 @@ export const INFO_NOTICE_MILLISECONDS = 8000;
 export interface NoticeBarProps {
   notices: Notice[];
   onDismiss(id: number): void;
-  recoveryOffer: { savedAtIso: string } | undefined;
+  recoveryOffer: { savedAtIso: string; document?: { name: string; fixes: readonly unknown[] } } | undefined;
   onRestore(): void;
   onDiscard(): void;
 }
@@ -23,9 +24,9 @@ export function NoticeBar({ notices, onDismiss, recoveryOffer, onRestore, onDisc
     <div className="notices" aria-live="polite" data-testid="notices">
       {recoveryOffer !== undefined && (
         <div className="notice notice-warning" data-testid="recovery-offer">
-          <span>Unsaved work from {recoveryOffer.savedAtIso} was kept when Whence last closed.</span>
+          <span data-testid="recovery-text">{recoveryOfferText(recoveryOffer)}</span>
           <button type="button" onClick={onRestore} data-testid="recovery-restore">Restore it</button>
-          <button type="button" onClick={onDiscard}>Discard</button>
+          <button type="button" onClick={onDiscard} data-testid="recovery-discard">Discard</button>
         </div>
       )}
       {notices.map((notice) => (

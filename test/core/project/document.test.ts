@@ -46,8 +46,8 @@ describe('parseProjectDocument()', () => {
   it('reads the frozen version-1 fixture with every part of the document', () => {
     const document = parseProjectDocument(fixtureText, 'field-survey.whence');
     // Expected values are those written in the fixture (test/fixtures/projects/v1/field-survey.whence).
-    // Migrated on load to version 2.
-    expect(document.schemaVersion).toBe(2);
+    // Migrated on load to version 3.
+    expect(document.schemaVersion).toBe(3);
     expect(document.name).toBe('Hedgerow survey, night 3');
     expect(document.array.microphones.map((m) => m.channel)).toEqual([1, 2, 3, 4]);
     expect(document.array.microphones[1]).toEqual({ channel: 2, label: 'NE post', eastMeters: 50, northMeters: 50, upMeters: 1.5, surveySigmaMeters: 0.05 });
@@ -61,11 +61,12 @@ describe('parseProjectDocument()', () => {
     expect(document.view).toEqual({ centerEastMeters: 40, centerNorthMeters: 60, metersPerPixel: 0.5 });
   });
 
-  it('migrates the frozen version-1 fixture in one step, judging its fixes from their status alone', () => {
+  it('migrates the frozen version-1 fixture step by step, judging its fixes from their status alone', () => {
     const result = readProjectText(fixtureText, 'field-survey.whence');
     expect(result.fromSchemaVersion).toBe(1);
-    expect(result.migrationSteps).toHaveLength(1);
+    expect(result.migrationSteps).toHaveLength(2);
     expect(result.migrationSteps[0]).toMatch(/verdict/);
+    expect(result.migrationSteps[1]).toMatch(/names its recording/);
     expect(result.document.fixes.map((fix) => fix.verdict)).toEqual([
       { grade: 'doubtful', reason: 'Logged before verdicts: locate it again to judge it.' },
       { grade: 'doubtful', reason: 'Two spots fit equally: check the other one.' },
@@ -73,11 +74,11 @@ describe('parseProjectDocument()', () => {
     ]);
   });
 
-  it('reads the frozen version-2 fixture, with verdicts and the inconsistent status, needing no migration', () => {
+  it('reads the frozen version-2 fixture, with verdicts and the inconsistent status, in one migration step', () => {
     const result = readProjectText(readFileSync(join(__dirname, '../../fixtures/projects/v2/field-survey.whence'), 'utf8'), 'v2.whence');
     // Expected values are those written in the fixture (test/fixtures/projects/v2/field-survey.whence).
     expect(result.fromSchemaVersion).toBe(2);
-    expect(result.migrationSteps).toEqual([]);
+    expect(result.migrationSteps).toHaveLength(1);
     expect(result.document.fixes.map((fix) => [fix.status, fix.verdict.grade])).toEqual([['ok', 'firm'], ['ambiguous', 'doubtful'], ['insufficient', 'unusable'], ['inconsistent', 'unusable']]);
     expect(result.document.fixes[3]!.verdict.reason).toBe('The microphones disagree: no single spot fits.');
   });
@@ -106,7 +107,7 @@ describe('parseProjectDocument()', () => {
   });
 
   it('refuses a file from a newer Whence with project-too-new, saying to update Whence', () => {
-    const error = thrown(() => parseProjectDocument(edited((data) => { data.schemaVersion = 3; data.writtenBy = 'Whence 9.0.0'; }), 'future.whence'));
+    const error = thrown(() => parseProjectDocument(edited((data) => { data.schemaVersion = 4; data.writtenBy = 'Whence 9.0.0'; }), 'future.whence'));
     expect(error.code).toBe('project-too-new');
     expect(error.message).toContain('future.whence');
     expect(error.message).toContain('Update Whence');
@@ -192,7 +193,7 @@ describe('serializeProjectDocument()', () => {
 
   it('puts schemaVersion first and stamps the Whence that wrote it', () => {
     const text = serializeProjectDocument(emptyProjectDocument('x'));
-    expect(text.startsWith('{\n  "schemaVersion": 2,\n  "name": "x",\n')).toBe(true);
+    expect(text.startsWith('{\n  "schemaVersion": 3,\n  "name": "x",\n')).toBe(true);
     expect(JSON.parse(text).writtenBy).toBe(`Whence ${WHENCE_VERSION}`);
     expect(text.endsWith('}\n')).toBe(true);
   });
@@ -207,9 +208,9 @@ describe('serializeProjectDocument()', () => {
 });
 
 describe('emptyProjectDocument()', () => {
-  it('is a valid version-2 document with the locate defaults and an automatic band', () => {
+  it('is a valid version-3 document with the locate defaults and an automatic band', () => {
     const document = emptyProjectDocument('Pond');
-    expect(document).toMatchObject({ schemaVersion: 2, name: 'Pond', array: { microphones: [] }, fixes: [] });
+    expect(document).toMatchObject({ schemaVersion: 3, name: 'Pond', array: { microphones: [] }, fixes: [] });
     // The defaults of core/pipeline's DEFAULT_LOCATE_SETTINGS, so a new project locates as the command line does.
     expect(document.settings).toMatchObject({ confidence: DEFAULT_LOCATE_SETTINGS.confidence, weighting: DEFAULT_LOCATE_SETTINGS.weighting, dimensions: DEFAULT_LOCATE_SETTINGS.dimensions, bandHz: 'automatic' });
     expect(() => serializeProjectDocument(document)).not.toThrow();

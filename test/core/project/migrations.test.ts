@@ -35,8 +35,8 @@ function codeOf(action: () => unknown): string {
 
 describe('PROJECT_MIGRATION_REGISTRY', () => {
   // Expected values: the behaviour this project specifies (schema versions, step order, error codes, messages); no outside reference.
-  it('is complete for the current version (2: verdicts on logged fixes)', () => {
-    expect(CURRENT_PROJECT_SCHEMA_VERSION).toBe(2);
+  it('is complete for the current version (3: each logged fix names its recording)', () => {
+    expect(CURRENT_PROJECT_SCHEMA_VERSION).toBe(3);
     expect(PROJECT_MIGRATION_REGISTRY.currentVersion).toBe(CURRENT_PROJECT_SCHEMA_VERSION);
     expect(() => checkMigrationRegistry(PROJECT_MIGRATION_REGISTRY)).not.toThrow();
   });

@@ -79,7 +79,7 @@ function Harness() {
     return new Map(inventedEvents.map((event, index) => [`fix-${index + 1}`, locate(event, index, c)] as const));
   }, [speed]);
   const [entries, setEntries] = useState<FixLogEntry[]>(() => inventedEvents.map((event, index) => {
-    const entry = fixLogEntryFromLocated(located.get(`fix-${index + 1}`)!, { id: `fix-${index + 1}`, verdict: locatedVerdict(located.get(`fix-${index + 1}`)!, { microphones: inventedArray }), recordingStartTime: startTime, sampleRateHz, label: event.label, note: event.note });
+    const entry = fixLogEntryFromLocated(located.get(`fix-${index + 1}`)!, { id: `fix-${index + 1}`, recording: { name: 'hedgerow-dawn.wav', sizeBytes: 34_560_044 }, verdict: locatedVerdict(located.get(`fix-${index + 1}`)!, { microphones: inventedArray }), recordingStartTime: startTime, sampleRateHz, label: event.label, note: event.note });
     return event.accepted === undefined ? entry : { ...entry, accepted: event.accepted };
   }));
   const [selectedId, setSelectedId] = useState<string | undefined>('fix-1');

@@ -40,6 +40,9 @@ describe('whence locate', () => {
     const table = readCsv(run.stdout, 'stdout');
     const column = (name: string) => table.header.indexOf(name);
     expect(table.rows).toHaveLength(2);
+    // The recording is named on every row, in the first column, as the app's fix log names it (core/export surveyLogColumns).
+    expect(table.header.slice(0, 2)).toEqual(['recording', 'event']);
+    expect(table.rows.map((row) => row.cells[column('recording')])).toEqual(['site.wav', 'site.wav']);
     const fixes = table.rows.map((row) => ({ status: row.cells[column('status')], x: Number(row.cells[column('x_m')]), y: Number(row.cells[column('y_m')]), time: Number(row.cells[column('time_s')]), arrival: Number(row.cells[column('arrival_s')]), local: row.cells[column('local_time')] }));
     expect(fixes.map((f) => f.status)).toEqual(['ok', 'ok']);
     // Verdicts with their reasons (DEVELOPERS.md, "Statuses and verdicts"): the tonal FM call correlates with peaks close in
@@ -80,6 +83,7 @@ describe('whence locate', () => {
     const geojson = JSON.parse(readFileSync(out, 'utf8')) as { type: string; whence: { recording: string }; features: Array<{ geometry: { type: string; coordinates: number[] }; properties: { feature: string } }> };
     expect(geojson.type).toBe('FeatureCollection');
     expect(geojson.whence.recording).toBe('site.wav');
+    expect(geojson.features.filter((f) => f.properties.feature !== 'microphone').every((f) => (f.properties as unknown as { recording: string }).recording === 'site.wav')).toBe(true);
     const kinds = geojson.features.map((f) => `${f.properties.feature}:${f.geometry.type}`);
     expect(kinds.filter((k) => k === 'microphone:Point')).toHaveLength(4);
     expect(kinds.filter((k) => k === 'fix:Point')).toHaveLength(2);

@@ -19,7 +19,7 @@ describe('saveProjectFile()', () => {
     expect(saved).toEqual({ path });
     const opened = await loadProjectFile(path);
     expect(opened.document.fixes).toEqual(fixture().fixes);
-    expect(opened.fromSchemaVersion).toBe(2);
+    expect(opened.fromSchemaVersion).toBe(3);
     expect(readdirSync(folder)).toEqual(['survey.whence']);
   });
 

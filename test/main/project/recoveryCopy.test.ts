@@ -3,14 +3,14 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { emptyProjectDocument } from '../../../core/project';
-import { CORRUPT_RECOVERY_FILE_NAME, createRecoveryStore, RECOVERY_FILE_NAME, TAKEN_RECOVERY_FILE_NAME } from '../../../main/project';
+import { CORRUPT_RECOVERY_FILE_NAME, createRecoveryStore, RECOVERY_FILE_NAME } from '../../../main/project';
 
 const clock = () => new Date('2024-05-14T22:10:00.000Z');
 const recoveryFolder = (): string => join(mkdtempSync(join(tmpdir(), 'whence-userdata-')), 'recovery');
 
 describe('createRecoveryStore()', () => {
   // Expected values: the behaviour this project specifies (what is kept and discarded, when); no outside reference.
-  it('gives back the unsaved document once, with when it was kept and where it was saved before', async () => {
+  it('gives back the unsaved document, with when it was kept and where it was saved before, until it is discarded', async () => {
     const folder = recoveryFolder();
     const store = createRecoveryStore(folder, clock);
     const document = emptyProjectDocument('unsaved pond survey');
@@ -22,8 +22,12 @@ describe('createRecoveryStore()', () => {
     expect(copy!.document.name).toBe('unsaved pond survey');
     expect(copy!.savedAtIso).toBe('2024-05-14T22:10:00.000Z');
     expect(copy!.projectPath).toBe('/surveys/pond.whence');
+    // A second crash before the user chose: the same copy is offered again, by a store started afresh.
+    const again = await createRecoveryStore(folder, clock).take();
+    expect(again?.document.name).toBe('unsaved pond survey');
+    expect(readdirSync(folder)).toEqual([RECOVERY_FILE_NAME]);
+    await store.discard();
     expect(await store.take()).toBeNull();
-    expect(existsSync(join(folder, TAKEN_RECOVERY_FILE_NAME))).toBe(true);
   });
 
   it('has nothing to give when nothing was kept', async () => {

@@ -3,10 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { locatedVerdict } from '../../../core/pipeline';
 import { FixLogPanel } from '../../../renderer/fixlog';
 import { fixLogEntryFromLocated } from '../../../renderer/fixlog/entryFromLocated';
-import { locatedEvent, squareArray, surveyContext } from './locatedFixtures';
+import { locatedEvent, siteRecording, squareArray, surveyContext } from './locatedFixtures';
 
 const entries = [locatedEvent(squareArray, [100, 150, 1.5], 0, 2, 1), locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2)]
-  .map((event, i) => fixLogEntryFromLocated(event, { id: `f${i + 1}`, verdict: locatedVerdict(event, { microphones: squareArray }), label: i === 0 ? 'owl' : '', accepted: i === 0 }));
+  .map((event, i) => fixLogEntryFromLocated(event, { id: `f${i + 1}`, recording: siteRecording, verdict: locatedVerdict(event, { microphones: squareArray }), label: i === 0 ? 'owl' : '', accepted: i === 0 }));
 const noop = () => undefined;
 
 /** The opening tag of the element with this test id. */

@@ -5,10 +5,10 @@ import { locatedVerdict, type LocatedEvent } from '../../../core/pipeline';
 import type { ArrayMicrophone, FixLogEntry } from '../../../core/project';
 import { fixLogEntryFromLocated } from '../../../renderer/fixlog/entryFromLocated';
 import { COLUMNS_NEEDING_LOCATED_EVENT, fixLogExportText, fixLogToRecords, type FixLogContext } from '../../../renderer/fixlog/fixLogRecords';
-import { locatedEvent, squareArray, startTime, surveyContext, tallArray } from './locatedFixtures';
+import { locatedEvent, siteRecording, squareArray, startTime, surveyContext, tallArray } from './locatedFixtures';
 
 function entriesOf(events: LocatedEvent[], microphones: ArrayMicrophone[] = squareArray): FixLogEntry[] {
-  return events.map((event, i) => fixLogEntryFromLocated(event, { id: `fix-${i + 1}`, verdict: locatedVerdict(event, { microphones }), recordingStartTime: startTime, sampleRateHz: 48_000 }));
+  return events.map((event, i) => fixLogEntryFromLocated(event, { id: `fix-${i + 1}`, recording: siteRecording, verdict: locatedVerdict(event, { microphones }), recordingStartTime: startTime, sampleRateHz: 48_000 }));
 }
 
 const events2d = [locatedEvent(squareArray, [100, 150, 1.5], 0, 2, 1), locatedEvent(squareArray, [20, 35, 1.5], 1, 2, 2), locatedEvent(squareArray, [-30, 10, 1.5], 2, 2, 3)];
@@ -28,16 +28,16 @@ describe('fixLogToRecords()', () => {
   });
 
   for (const [dimensions, array, events] of [[2, squareArray, events2d], [3, tallArray, events3d]] as const) {
-    it(`fixLogToRecords() rebuilds a saved ${dimensions}-D entry's columns with the same values as locatedEventRecord, leaving unkept columns empty`, () => {
+    it(`fixLogToRecords() rebuilds every column of a saved ${dimensions}-D entry with the same value as locatedEventRecord, quality figures included`, () => {
       const context = surveyContext(array, dimensions, true);
       const records = fixLogToRecords(entriesOf(events, array), context);
       records.forEach((record, i) => {
         const expected = locatedEventRecord(events[i]!, context);
         expect(events[i]!.solve.fix).toBeDefined();
-        for (const column of surveyLogColumns(dimensions)) {
-          if ((COLUMNS_NEEDING_LOCATED_EVENT as readonly string[]).includes(column)) expect(record[column], column).toBeUndefined();
-          else expect(record[column], column).toEqual(expected[column]);
-        }
+        // An empty text and a missing value are the same empty CSV cell.
+        const cell = (value: unknown) => (value === '' ? undefined : value);
+        for (const column of surveyLogColumns(dimensions)) expect(cell(record[column]), column).toEqual(cell(expected[column]));
+        for (const column of ['gdop', 'chi_square', 'min_peak_ratio']) expect(typeof record[column], column).toBe('number');
       });
     });
   }
@@ -72,7 +72,7 @@ describe('fixLogExportText()', () => {
     if (!result.ok) return;
     const table = readCsv(result.text, 'log.csv');
     expect(table.header).toEqual(surveyLogColumns(2));
-    expect(table.rows.map((row) => row.cells[0])).toEqual(['1', '3']);
+    expect(table.rows.map((row) => row.cells.slice(0, 2))).toEqual([['site.wav', '1'], ['site.wav', '3']]);
     expect(result.text).toContain('# note: exported from the fix log: 2 accepted fixes of 3');
     expect(result.text).toContain('# note: event 3 "dog?": far away');
   });

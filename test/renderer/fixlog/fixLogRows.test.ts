@@ -3,7 +3,7 @@ import type { FixLogEntry } from '../../../core/project';
 import { clockOf, fixLogRows, formatAxis, formatResidual, signed } from '../../../renderer/fixlog/fixLogRows';
 
 const entry: FixLogEntry = {
-  id: 'x', eventIndex: 4, emissionTimeSeconds: 12.41849, firstArrivalSeconds: 12.5, localTime: '2024-05-18T04:12:12.460', status: 'ambiguous',
+  id: 'x', recording: { name: 'site.wav', sizeBytes: 1000 }, eventIndex: 4, emissionTimeSeconds: 12.41849, firstArrivalSeconds: 12.5, localTime: '2024-05-18T04:12:12.460', status: 'ambiguous',
   // IOGP Guidance Note 7-2 (EPSG 9837 example): E -189013.869, N -128642.040, U -4220.171 m about 55°N 5°E h 200 m
   // is 53°48'33.82"N 2°07'46.38"E (53.809394°, 2.129550°).
   eastMeters: -189013.869, northMeters: -128642.04, upMeters: -4220.171,
@@ -26,7 +26,7 @@ describe('fixLogRows()', () => {
   });
 
   it('fixLogRows() shows dashes for what a failed fix lacks, and no latitude/longitude without an origin', () => {
-    const failed: FixLogEntry = { id: 'y', eventIndex: 0, firstArrivalSeconds: 3.25, status: 'insufficient', verdict: { grade: 'unusable', reason: 'Too few usable time differences to place it.' }, pairsUsed: 0, label: '', note: '', accepted: false };
+    const failed: FixLogEntry = { id: 'y', recording: { name: 'site.wav', sizeBytes: 1000 }, eventIndex: 0, firstArrivalSeconds: 3.25, status: 'insufficient', verdict: { grade: 'unusable', reason: 'Too few usable time differences to place it.' }, pairsUsed: 0, label: '', note: '', accepted: false };
     const [row] = fixLogRows([failed], undefined);
     expect(row).toMatchObject({ emissionText: '—', arrivalText: '3.250', clockText: '—', eastText: '—', latLonText: '—', axesText: '—', residualText: '—', statusTone: 'failed', verdictText: '× unusable' });
   });

@@ -55,6 +55,9 @@ export function locatedEvent(array: ArrayMicrophone[], source: [number, number, 
   };
 }
 
+/** The invented recording the fixtures' events come from, as each logged fix names it (surveyContext's recordingName). */
+export const siteRecording = { name: 'site.wav', sizeBytes: 1_234_567, contentHash: '0123456789abcdef' };
+
 export function surveyContext(array: ArrayMicrophone[], dimensions: 2 | 3, withOrigin: boolean): SurveyLogContext {
   return {
     recordingName: 'site.wav',
