@@ -1,5 +1,6 @@
 // The locate pipeline: recording + array + medium + settings -> events -> pair delays -> fixes, with progress and cancel.
-export { recordingAccess, type RecordingAccess } from './recording';
+export { recordingAccess, type RecordingAccess, type WindowAlignment } from './recording';
+export { alignPairs } from './windowAlignment';
 export { mapArrayToRecording, type ChannelMapping } from './channelMap';
 export { measurePairs, type PairMeasurement, type PairSettings } from './measurePairs';
 export { reducePairsToReference, type ReducedDelays } from './reducePairs';

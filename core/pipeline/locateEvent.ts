@@ -11,6 +11,7 @@ import { gateChannels, LONG_CHANNEL_GATE, onsetGatedSpan, SHORT_CHANNEL_GATE, so
 import type { RecordingAccess } from './recording';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { applyReductionCheck } from './reductionCheck';
+import { alignPairs } from './windowAlignment';
 import { MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
 import { eventTiming, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 import { maxOf, minOf } from '../units';
@@ -223,7 +224,10 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   // The speed is taken 2 % low so slow air still fits. Echoes can make a later peak the strongest: each pair's peak is
   // chosen by closure with the others (./directPath.ts).
   const pairSettings = { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds: marginSeconds, peakSearch: DIRECT_PATH_PEAKS };
-  const measureDirect = (channels: Float32Array[]) => chooseDirectPaths(measurePairs(channels, microphones, pairSettings), microphones.length, referenceIndex, { toleranceSeconds: marginSeconds });
+  // Channels from several recorders' clocks (a deployment): each pair corrected by the channels' sub-sample shifts at the onset.
+  const alignment = recording.windowAlignment?.(startFrame, endFrame - startFrame, onset?.seconds ?? startFrame / fs);
+  if (alignment !== undefined && alignment.silentChannels.length > 0) warnings.push(`${alignment.silentChannels.length} microphone${alignment.silentChannels.length === 1 ? ' was' : 's were'} not recording during this event (a gap between files); ${alignment.silentChannels.length === 1 ? 'its pairs were' : 'their pairs were'} left out.`);
+  const measureDirect = (channels: Float32Array[]) => chooseDirectPaths(alignPairs(measurePairs(channels, microphones, pairSettings), alignment, context.channelIndexOfMicrophone), microphones.length, referenceIndex, { toleranceSeconds: marginSeconds });
   const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
   let pairs = measureDirect(window);
   const medianPeak = median(pairs.map((pair) => pair.peakValue));

@@ -14,3 +14,4 @@ export type { SourceWaveform } from './waveform';
 export { soundPaths, DEFAULT_REFLECTION_COEFFICIENT, type SoundPath } from './propagation';
 export { NOISE_TILE_FRAMES } from './noiseTiles';
 export { imageSourcePaths, eyringRt60Seconds, shoeboxRoom, MAX_IMAGE_ORDER, type ImagePath, type ShoeboxOptions } from './imageSources';
+export { prepareDeploymentScene, type DeploymentSceneSpec, type PreparedDeploymentScene, type SimulatedRecorder, type SimulatedRecorderFile } from './deploymentScene';

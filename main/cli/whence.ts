@@ -6,6 +6,7 @@ import { infoHelp, runInfo } from './commands/info';
 import { locateHelp, runLocate } from './commands/locate';
 import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
+import { runSync, syncHelp } from './commands/sync';
 import type { CliIo } from './io';
 import { terminalDataSafe, terminalSafe } from './format';
 import { printableText } from '../../core/text';
@@ -25,6 +26,7 @@ const commands: Record<string, Command> = {
   locate: { summary: 'find each sound in a recording and fix where it came from (survey log)', help: locateHelp, run: runLocate },
   solve: { summary: 'position fixes from a table of measured time differences', help: solveHelp, run: runSolve },
   speed: { summary: 'speed of sound in air, seawater or fresh water', help: speedHelp, run: runSpeed },
+  sync: { summary: 'fit the clocks of separate recorders from calibration sounds', help: syncHelp, run: runSync },
 };
 
 export function overallHelp(): string {

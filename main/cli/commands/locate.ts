@@ -17,6 +17,8 @@ import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, req
 import { chooseSpeed } from '../mediumOptions';
 import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError, type ParsedCommand } from '../parse';
 import { progressLine } from '../progress';
+import { deploymentHelp, deploymentOptionSpec } from '../deploymentOptions';
+import { runLocateDeployment } from './locateDeployment';
 import { readTextFile } from '../readInput';
 
 export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
@@ -47,7 +49,13 @@ export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
   --workers N           worker threads for locating (default: cores - 1)
   --json                JSON survey log on standard output instead of CSV
   --out FILE            write FILE.csv, FILE.json or FILE.geojson (atomically)
-`;
+
+whence locate --deployment D.csv --array ARRAY.csv [--calibration C.csv] [options]
+
+  Locates over separate recorders read as one recording: each recorder's files on its
+  own clock (fitted from --calibration; otherwise its file stamps are taken as true).
+  --from/--to take local ISO times or seconds from the deployment's earliest start.
+${deploymentHelp}`;
 
 const weightings = ['phat', 'phat-beta', 'scot', 'roth', 'ml', 'plain'] as const;
 
@@ -61,7 +69,7 @@ export function parseBand(text: string | undefined): { lowHz: number; highHz: nu
   return { lowHz, highHz };
 }
 
-function settingsFromOptions(values: ParsedCommand['values'], speed: { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number }): LocateSettings {
+export function settingsFromOptions(values: ParsedCommand['values'], speed: { speedMetersPerSecond: number; speedSigmaMetersPerSecond: number }): LocateSettings {
   const settings: LocateSettings = {
     ...speed,
     ...fixShapeFromOptions(values, DEFAULT_LOCATE_SETTINGS.confidence),
@@ -82,7 +90,7 @@ function settingsFromOptions(values: ParsedCommand['values'], speed: { speedMete
   return settings;
 }
 
-function settingsForLog(settings: LocateSettings, values: ParsedCommand['values']): Record<string, string | number | boolean> {
+export function settingsForLog(settings: LocateSettings, values: ParsedCommand['values']): Record<string, string | number | boolean> {
   const logged: Record<string, string | number | boolean> = { dims: settings.dimensions, confidence: settings.confidence, weighting: settings.weighting, band_hz: settings.bandHz ? `${settings.bandHz.lowHz}-${settings.bandHz.highHz}` : 'per event' };
   if (settings.sourceUpMeters !== undefined) logged.height_m = settings.sourceUpMeters;
   if (settings.sourceUpSigmaMeters !== undefined) logged.height_sigma_m = Number(settings.sourceUpSigmaMeters.toPrecision(4));
@@ -95,8 +103,12 @@ function settingsForLog(settings: LocateSettings, values: ParsedCommand['values'
 export async function runLocate(argv: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseCommandArgs('locate', argv, {
     ...fixOptionSpec, array: { type: 'string' }, band: { type: 'string' }, weighting: { type: 'string' }, threshold: { type: 'string' },
-    'min-channels': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' }, workers: { type: 'string' },
+    'min-channels': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' }, workers: { type: 'string' }, ...deploymentOptionSpec,
   });
+  if (values.deployment !== undefined) {
+    if (positionals.length > 0) throw new UsageError(`whence locate --deployment reads the recordings the table lists; remove '${positionals[0]}'.`);
+    return runLocateDeployment(values, io);
+  }
   if (positionals.length !== 1) throw new UsageError(`whence locate takes one recording; got ${positionals.length}. Example: whence locate site.wav --array array.csv`);
   const recordingPath = positionals[0]!;
   const arrayPath = optionalString(values, 'array');

@@ -1,0 +1,188 @@
+// A deployment as one recording (core/pipeline RecordingAccess): windows in deployment (true) time, each channel read from
+// its recorder's files through the recorder's clock, stitched across splits, silent (and flagged) in gaps. Frames at one rate.
+import { readFrames, type ByteSource, type WavInfo, type WavStartTime } from '../audio';
+import type { RecordingAccess, WindowAlignment } from '../pipeline';
+import { clockNominalSeconds, clockTrueSeconds, uncorrectedClock, type RecorderClock } from './clockModel';
+import type { DeploymentLayout, RecorderLayout } from './deploymentLayout';
+import { formatLocalInstant, type LocalInstant } from './localTime';
+
+/** Opens a file of the table (by the path the layout holds) for random access; close() is called when it is evicted. */
+export type OpenDeploymentFile = (file: string) => Promise<ByteSource & { close?(): Promise<void> }>;
+
+export interface DeploymentRecording extends RecordingAccess {
+  readonly layout: DeploymentLayout;
+  readonly clocks: readonly RecorderClock[];
+  /** Per channel: true time of the sample read at `atSeconds` in a window read from `startFrame`, minus its nominal time. */
+  windowAlignment(startFrame: number, frameCount: number, atSeconds: number): WindowAlignment;
+  /**
+   * Frames of one recorder on its own nominal time (no clock correction), from the whole frame nearest `nominalStartSeconds`:
+   * one array per microphone of the recorder, the exact nominal time of the first frame, and whether any frame was in a gap.
+   */
+  readRecorder(recorderIndex: number, nominalStartSeconds: number, frameCount: number): Promise<{ channels: Float32Array[]; firstFrameSeconds: number; silent: boolean }>;
+  /** The same deployment read through other clocks (e.g. fitted ones); it opens its own files. */
+  withClocks(clocks: readonly RecorderClock[]): DeploymentRecording;
+  close(): Promise<void>;
+}
+
+/** Files kept open at once; older ones are closed when more are needed. */
+const MAX_OPEN_FILES = 32;
+
+interface Segment { fileIndex: number; base: number; kStart: number; kEnd: number }
+
+/** The files of `recorder` touched by recorder frames [uStart, uStart + count) read from whole frame round(uStart - U_f) of each. */
+function segmentsOf(recorder: RecorderLayout, uStart: number, count: number): Segment[] {
+  const segments: Segment[] = [];
+  const files = recorder.files;
+  // binary search: the last file starting at or before the window's start
+  let lo = 0;
+  let hi = files.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (files[mid]!.recorderFrame <= uStart) lo = mid; else hi = mid - 1;
+  }
+  for (let f = lo; f < files.length; f++) {
+    const file = files[f]!;
+    if (file.recorderFrame >= uStart + count) break;
+    const base = Math.round(uStart - file.recorderFrame);
+    const kStart = Math.max(0, -base);
+    const kEnd = Math.min(count, file.info.frameCount - base);
+    if (kEnd > kStart) segments.push({ fileIndex: f, base, kStart, kEnd });
+  }
+  return segments;
+}
+
+function pad(value: number, width: number): string {
+  return String(Math.floor(value)).padStart(width, '0');
+}
+
+/** The origin as a BWF start time, so survey logs give absolute local times. */
+export function originStartTime(origin: LocalInstant, sampleRateHz: number): WavStartTime {
+  const iso = formatLocalInstant(origin, 3);
+  const framesSinceMidnight = origin.secondsOfDay * sampleRateHz;
+  const seconds = origin.secondsOfDay;
+  return {
+    isoLocal: iso, originationDate: iso.slice(0, 10), originationTime: `${pad(seconds / 3600, 2)}:${pad((seconds % 3600) / 60, 2)}:${pad(seconds % 60, 2)}`,
+    timeReferenceFrames: Math.round(framesSinceMidnight), basis: 'time-reference', dateIso: iso.slice(0, 10), framesSinceMidnight, sampleRateHz,
+  };
+}
+
+export function deploymentRecording(layout: DeploymentLayout, open: OpenDeploymentFile, clocks?: readonly RecorderClock[]): DeploymentRecording {
+  const fs = layout.sampleRateHz;
+  const recorderClocks = clocks ?? layout.recorders.map((recorder) => uncorrectedClock(recorder.clockStartSeconds));
+  const channelCount = layout.microphones.length;
+  const frameCount = Math.ceil(layout.durationSeconds * fs);
+  const info: WavInfo = {
+    container: 'RIFF', formatTag: 3, formatDescription: `deployment of ${layout.recorders.length} recorders`, sampleFormat: 'ieee-float', channelCount,
+    bitsPerSample: 32, blockAlignBytes: 4 * channelCount, sampleRateHz: fs, validBitsPerSample: 32, channelMask: undefined, dataOffsetBytes: 0,
+    dataLengthBytes: frameCount * 4 * channelCount, frameCount, durationSeconds: frameCount / fs, startTime: originStartTime(layout.origin, fs),
+    infoTags: {}, bextDescription: undefined, warnings: [...layout.warnings],
+  };
+  const openFiles = new Map<string, Promise<ByteSource & { close?(): Promise<void> }>>();
+  const inUse = new Map<string, number>();
+  async function withSource<T>(file: string, use: (source: ByteSource) => Promise<T>): Promise<T> {
+    let source = openFiles.get(file);
+    if (source === undefined) {
+      if (openFiles.size >= MAX_OPEN_FILES) {
+        for (const [name, opened] of openFiles) {
+          if ((inUse.get(name) ?? 0) > 0) continue;
+          openFiles.delete(name);
+          void opened.then((s) => s.close?.(), () => undefined);
+          break;
+        }
+      }
+      source = open(file);
+      openFiles.set(file, source);
+    } else {
+      openFiles.delete(file);
+      openFiles.set(file, source); // most recently used last
+    }
+    inUse.set(file, (inUse.get(file) ?? 0) + 1);
+    try {
+      return await use(await source);
+    } finally {
+      inUse.set(file, inUse.get(file)! - 1);
+    }
+  }
+
+  /** Fills `outs` (one per microphone of the recorder, the recorder's channels in file order) from recorder frames uStart...; returns the segments. */
+  async function fillRecorder(recorderIndex: number, uStart: number, count: number, outs: Array<Float32Array | undefined>): Promise<Segment[]> {
+    const recorder = layout.recorders[recorderIndex]!;
+    for (const out of outs) out?.fill(0, 0, count);
+    const segments = segmentsOf(recorder, uStart, count);
+    for (const segment of segments) {
+      const file = recorder.files[segment.fileIndex]!;
+      const wanted = recorder.microphones.map((microphone, m) => ({ out: outs[m], channel: microphone.channelOfFile[segment.fileIndex] })).filter((w) => w.out !== undefined && w.channel !== undefined);
+      if (wanted.length === 0) continue;
+      const frames = segment.kEnd - segment.kStart;
+      const channels = await withSource(file.file, (source) => readFrames(source, file.info as WavInfo, segment.base + segment.kStart, frames));
+      for (const { out, channel } of wanted) out!.set(channels[channel!]!.subarray(0, frames), segment.kStart);
+    }
+    return segments;
+  }
+
+  const recorderStartFrame = (recorderIndex: number, startFrame: number) => {
+    const recorder = layout.recorders[recorderIndex]!;
+    return (clockNominalSeconds(recorderClocks[recorderIndex]!, startFrame / fs) - recorder.clockStartSeconds) * fs;
+  };
+
+  function covered(segments: readonly Segment[], count: number): boolean {
+    let total = 0;
+    for (const s of segments) total += s.kEnd - s.kStart;
+    return total >= count;
+  }
+
+  return {
+    name: layout.tableName,
+    info,
+    layout,
+    clocks: recorderClocks,
+    async readFrames(startFrame, count, out) {
+      const first = Math.min(startFrame, frameCount);
+      const frames = Math.max(0, Math.min(frameCount, startFrame + count) - first);
+      const channels = Array.from({ length: channelCount }, (_, c) => {
+        const given = out?.[c];
+        return given !== undefined && given.length >= frames ? given.subarray(0, frames) : new Float32Array(frames);
+      });
+      await Promise.all(layout.recorders.map((recorder, r) => {
+        const outs = recorder.microphones.map((_, m) => channels[layout.microphones.findIndex((mic) => mic.recorderIndex === r && mic.indexInRecorder === m)]);
+        return fillRecorder(r, recorderStartFrame(r, first), frames, outs);
+      }));
+      return channels;
+    },
+    windowAlignment(startFrame, count, atSeconds) {
+      const shiftSeconds: number[] = [];
+      const silentChannels: number[] = [];
+      const k = Math.round(atSeconds * fs - startFrame);
+      layout.microphones.forEach((microphone, c) => {
+        const recorder = layout.recorders[microphone.recorderIndex]!;
+        const clock = recorderClocks[microphone.recorderIndex]!;
+        const segments = segmentsOf(recorder, recorderStartFrame(microphone.recorderIndex, startFrame), count)
+          .filter((s) => recorder.microphones[microphone.indexInRecorder]!.channelOfFile[s.fileIndex] !== undefined);
+        if (!covered(segments, count)) silentChannels.push(c);
+        const at = segments.find((s) => k >= s.kStart && k < s.kEnd) ?? segments[0];
+        if (at === undefined) { shiftSeconds.push(0); return; }
+        const file = recorder.files[at.fileIndex]!;
+        const nominal = recorder.clockStartSeconds + (file.recorderFrame + at.base + k) / fs;
+        shiftSeconds.push(clockTrueSeconds(clock, nominal) - (startFrame + k) / fs);
+      });
+      return { shiftSeconds, silentChannels };
+    },
+    async readRecorder(recorderIndex, nominalStartSeconds, count) {
+      const recorder = layout.recorders[recorderIndex]!;
+      const uStart = Math.round((nominalStartSeconds - recorder.clockStartSeconds) * fs);
+      const channels = recorder.microphones.map(() => new Float32Array(count));
+      const segments = await fillRecorder(recorderIndex, uStart, count, channels);
+      const middle = segments.find((s) => s.kEnd > count / 2) ?? segments[0];
+      const firstFrameSeconds = middle === undefined
+        ? recorder.clockStartSeconds + uStart / fs
+        : recorder.clockStartSeconds + (recorder.files[middle.fileIndex]!.recorderFrame + middle.base) / fs;
+      return { channels, firstFrameSeconds, silent: !covered(segments, count) };
+    },
+    withClocks: (fitted) => deploymentRecording(layout, open, fitted),
+    async close() {
+      const all = [...openFiles.values()];
+      openFiles.clear();
+      await Promise.all(all.map((opened) => opened.then((s) => s.close?.(), () => undefined)));
+    },
+  };
+}

@@ -1,0 +1,12 @@
+// Recorder deployments: many recorders, each with its own files and clock, read as one recording on one time line.
+export { addSeconds, formatLocalInstant, parseLocalInstant, requireLocalInstant, secondsBetween, type LocalInstant } from './localTime';
+export { nameTimePattern, type NameTimePattern } from './nameTime';
+export { MAX_DEPLOYMENT_ROWS, parseDeploymentCsv, type DeploymentRow, type DeploymentTable } from './deploymentTable';
+export { describeStartSources, layoutDeployment, type DeploymentFileHeader, type DeploymentLayout, type RecorderFile, type RecorderLayout, type StartSource } from './deploymentLayout';
+export { clockNominalSeconds, clockRelativeTo, clockTrueSeconds, uncorrectedClock, type RecorderClock } from './clockModel';
+export { fitClocks, type ClockFitInput, type ClockFitResult, type ClockObservation, type RecorderClockFit } from './clockFit';
+export { deploymentRecording, originStartTime, type DeploymentRecording, type OpenDeploymentFile } from './deploymentRecording';
+export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from './calibrationTable';
+export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
+export { microphonesByLabel, syncDeployment, type DeploymentSync } from './syncDeployment';
+export { clockFitJson, clockFitLines } from './clockFitReport';

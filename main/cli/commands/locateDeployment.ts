@@ -1,0 +1,78 @@
+// `whence locate --deployment D.csv --array A.csv [--calibration C.csv]`: locates over a recorder deployment read as one
+// recording (core/deployment), optionally over a span (--from/--to: local ISO times or seconds from its earliest start).
+import { basename } from 'node:path';
+import { deploymentSeconds, microphonesByLabel } from '../../../core/deployment';
+import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
+import { parseArrayCsv } from '../../../core/project';
+import { runPipeline, type LocateContext } from '../../../core/pipeline';
+import { printableText } from '../../../core/text';
+import { WHENCE_VERSION } from '../../../core/version';
+import { writeFileAtomic } from '../../files';
+import { deploymentHeadNotes, openDeploymentFromOptions } from '../deploymentOptions';
+import { outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
+import { verdictTally } from '../format';
+import type { CliIo } from '../io';
+import { chooseSpeed } from '../mediumOptions';
+import { optionalString, UsageError, type ParsedCommand } from '../parse';
+import { progressLine } from '../progress';
+import { readTextFile } from '../readInput';
+import { settingsForLog, settingsFromOptions } from './locate';
+
+function spanBound(values: ParsedCommand['values'], name: 'from' | 'to', origin: Parameters<typeof deploymentSeconds>[1]): number | undefined {
+  const text = optionalString(values, name);
+  if (text === undefined) return undefined;
+  const seconds = deploymentSeconds(text, origin);
+  if (seconds === undefined) throw new UsageError(`--${name} needs a local time (YYYY-MM-DDTHH:MM:SS[.fff]) or seconds from the deployment's earliest start; got '${printableText(text, 60)}'.`);
+  return seconds;
+}
+
+export async function runLocateDeployment(values: ParsedCommand['values'], io: CliIo): Promise<number> {
+  const arrayPath = optionalString(values, 'array');
+  if (arrayPath === undefined) throw new UsageError('whence locate needs --array ARRAY.csv (the microphones, labelled as in the deployment table).');
+  const { outPath, kind: outputKind } = outputFromOptions(values);
+  const speed = chooseSpeed(values);
+  const settings = settingsFromOptions(values, speed);
+  const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, parseOrigin(optionalString(values, 'origin')));
+  const geoJsonOrigin = outputKind === 'geojson' ? requireGeoJsonOrigin(geometry.origin) : undefined;
+  const opened = await openDeploymentFromOptions(values, geometry, speed.speedMetersPerSecond, io, optionalString(values, 'band'));
+  const { recording } = opened;
+  try {
+    microphonesByLabel(geometry, recording);
+    const labels = recording.layout.microphones.map((m) => m.label);
+    const unused = labels.filter((label) => !geometry.microphones.some((m) => m.label === label));
+    const warnings = [...recording.info.warnings, ...geometry.warnings, ...speed.warnings];
+    if (unused.length > 0) warnings.push(`The deployment's microphone${unused.length === 1 ? '' : 's'} ${unused.map((l) => `'${l}'`).join(', ')} ${unused.length === 1 ? 'is' : 'are'} not in the array table and ${unused.length === 1 ? 'is' : 'are'} ignored.`);
+    for (const warning of warnings) io.writeStderr(`warning: ${warning}\n`);
+    const context: LocateContext = { geometry, channelIndexOfMicrophone: geometry.microphones.map((m) => labels.indexOf(m.label)), settings };
+    const progress = progressLine(io);
+    const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
+    const fromSeconds = spanBound(values, 'from', recording.layout.origin);
+    const toSeconds = spanBound(values, 'to', recording.layout.origin);
+    if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
+    if (toSeconds !== undefined) options.toSeconds = toSeconds;
+    const result = await runPipeline(recording, context, options);
+    progress.done();
+    const logged = settingsForLog(settings, {});
+    if (fromSeconds !== undefined) logged.from_s = fromSeconds;
+    if (toSeconds !== undefined) logged.to_s = toSeconds;
+    const logContext: SurveyLogContext = {
+      recordingName: basename(optionalString(values, 'deployment')!), recordingStartTime: recording.info.startTime, sampleRateHz: recording.info.sampleRateHz, geometry,
+      medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
+      softwareVersion: WHENCE_VERSION, settings: logged, dimensions: settings.dimensions,
+    };
+    const records = result.located.map((located) => locatedEventRecord(located, logContext));
+    const notes = [...deploymentHeadNotes(opened), ...result.warnings, ...(result.timingNote !== undefined ? [result.timingNote] : []), `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
+    let text: string;
+    if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
+    else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
+    else text = surveyLogCsv(records, logContext, notes);
+    if (outPath !== undefined) await writeFileAtomic(outPath, text);
+    else io.writeStdout(text);
+    const fixed = records.filter((record) => record.status === 'ok').length;
+    io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
+    if (records.length > 0) io.writeStderr(`verdicts: ${verdictTally(records)}.\n`);
+    return 0;
+  } finally {
+    await recording.close();
+  }
+}

@@ -1,0 +1,75 @@
+// `whence sync --deployment D.csv --array A.csv --calibration C.csv`: fits every recorder's clock (offset, drift) from the
+// calibration sounds and prints the fit: per recorder offset, drift ppm, their sigmas, residual RMS; per sound its residuals.
+import { basename } from 'node:path';
+import { clockFitJson, describeStartSources } from '../../../core/deployment';
+import { parseArrayCsv } from '../../../core/project';
+import { writeFileAtomic } from '../../files';
+import { deploymentHelp, deploymentOptionSpec, openDeploymentFromOptions } from '../deploymentOptions';
+import { fixOptionSpec, parseOrigin } from '../fixOptions';
+import { formatTable, jsonForTerminal } from '../format';
+import type { CliIo } from '../io';
+import { chooseSpeed } from '../mediumOptions';
+import { optionalString, parseCommandArgs, UsageError } from '../parse';
+import { readTextFile } from '../readInput';
+
+export const syncHelp = `whence sync --deployment D.csv --array A.csv --calibration C.csv [options]
+
+  Fits each recorder's clock, t_true = t_start + (1 + drift) t_rec + offset, from
+  calibration sounds made at surveyed points: measures every sound's arrival at every
+  microphone, then offsets and drifts by weighted least squares. One recorder is the
+  reference (offset 0, drift 0) unless the calibration table gives emitted_at times.
+
+${deploymentHelp}  --array FILE          microphones (labels as in the deployment table) and positions
+  --sound-speed M_S     speed of sound, or --medium/--temperature as for 'whence locate'
+  --band LO-HI          correlation band in Hz (default 300 Hz to 0.45 of the sample rate)
+  --json                the fit as JSON on standard output
+  --out FILE            write the fit to FILE (.json: JSON, else text), atomically
+`;
+
+export async function runSync(argv: string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parseCommandArgs('sync', argv, { ...fixOptionSpec, ...deploymentOptionSpec, array: { type: 'string' }, band: { type: 'string' } });
+  if (positionals.length > 0) throw new UsageError(`whence sync takes no recording; give --deployment TABLE.csv. Got '${positionals[0]}'.`);
+  const arrayPath = optionalString(values, 'array');
+  if (arrayPath === undefined) throw new UsageError('whence sync needs --array ARRAY.csv (the microphones, labelled as in the deployment table).');
+  if (optionalString(values, 'calibration') === undefined) throw new UsageError('whence sync needs --calibration CALIBRATION.csv (time,x_m,y_m,z_m of the sounds made on purpose).');
+  const outPath = optionalString(values, 'out');
+  if (outPath !== undefined && values.json === true) throw new UsageError('give either --json (standard output) or --out FILE, not both.');
+  const speed = chooseSpeed(values);
+  for (const warning of speed.warnings) io.writeStderr(`warning: ${warning}\n`);
+  const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, parseOrigin(optionalString(values, 'origin')));
+  const opened = await openDeploymentFromOptions(values, geometry, speed.speedMetersPerSecond, io, optionalString(values, 'band'));
+  try {
+    const { recording, sync } = opened;
+    const fit = sync!.fit;
+    const sources = describeStartSources(recording.layout);
+    const asJson = values.json === true || (outPath !== undefined && outPath.toLowerCase().endsWith('.json'));
+    let text: string;
+    if (asJson) {
+      text = JSON.stringify({ deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...clockFitJson(fit, sync!.observations) }, null, 2) + '\n';
+    } else {
+      const rows: Array<readonly [string, string]> = fit.recorders.map((r) => [r.name, `${r.reference ? 'reference  ' : ''}offset ${r.clock.offsetSeconds.toFixed(6)} s ± ${(r.offsetSigmaSeconds * 1e6).toFixed(1)} µs, drift ${(r.clock.drift * 1e6).toFixed(3)} ± ${(r.driftSigma * 1e6).toFixed(3)} ppm, residual RMS ${(r.residualRmsSeconds * 1e6).toFixed(1)} µs (${r.observationCount} arrivals)${r.warnings.length > 0 ? '  POOR FIT' : ''}`]);
+      const soundRows = fit.sounds.map((sound, k) => {
+        const residuals = sync!.observations.map((obs, index) => ({ obs, index })).filter(({ obs }) => obs.soundIndex === k).map(({ obs, index }) => `${obs.microphone} ${(fit.residualsSeconds[index]! * 1e6).toFixed(1)}`);
+        return [sound.label, `emitted ${sound.emittedSeconds.toFixed(6)} s; residuals µs: ${residuals.join(', ')}`] as const;
+      });
+      text = [
+        `deployment ${basename(optionalString(values, 'deployment')!)}: ${recording.layout.recorders.length} recorders, time 0 = ${recording.info.startTime?.isoLocal ?? '?'}`,
+        'start times:', ...sources.map((line) => `  ${line}`),
+        `time base: ${fit.timeBase}`,
+        'clocks:', formatTable(rows).trimEnd(),
+        'calibration sounds:', formatTable(soundRows).trimEnd(),
+        `chi-square ${fit.chiSquare.toFixed(1)} on ${fit.degreesOfFreedom} degrees of freedom; sigmas scaled by ${fit.sigmaScale.toFixed(2)}`,
+        ...fit.warnings.map((warning) => `warning: ${warning}`),
+      ].join('\n') + '\n';
+    }
+    if (outPath !== undefined) {
+      await writeFileAtomic(outPath, text);
+      io.writeStderr(`wrote ${outPath}\n`);
+    } else {
+      io.writeStdout(values.json === true ? jsonForTerminal(JSON.parse(text)) : text);
+    }
+    return 0;
+  } finally {
+    await opened.recording.close();
+  }
+}

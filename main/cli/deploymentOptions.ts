@@ -1,0 +1,58 @@
+// Options shared by the commands that read a recorder deployment (sync, locate --deployment): the table, file-name
+// times, the calibration sounds and how they are looked for; opens the deployment and fits its clocks when asked.
+import { basename } from 'node:path';
+import { clockFitLines, nameTimePattern, parseCalibrationCsv, syncDeployment, type DeploymentRecording, type DeploymentSync } from '../../core/deployment';
+import type { ArrayGeometry } from '../../core/project';
+import { openDeployment } from '../pipeline';
+import type { CliIo } from './io';
+import { optionalNumber, optionalString, UsageError, type OptionSpec, type ParsedCommand } from './parse';
+import { parseBand } from './commands/locate';
+import { readTextFile } from './readInput';
+
+export const deploymentOptionSpec: OptionSpec = {
+  deployment: { type: 'string' }, calibration: { type: 'string' }, 'name-time': { type: 'string' }, reference: { type: 'string' }, search: { type: 'string' },
+};
+
+export const deploymentHelp = `  --deployment FILE     deployment table: recorder,file,file_channel,microphone[,start_time]
+                        (files relative to the table; microphone = label in the array table)
+  --name-time PATTERN   start times in file names: YYYY MM DD hh mm ss [fff], * = any text,
+                        e.g. 'REC_YYYYMMDD_hhmmss*' (used when a file has no BWF start time)
+  --calibration FILE    calibration sounds: time,x_m,y_m[,z_m][,emitted_at][,label][,sigma_m]
+                        (time: rough local ISO time or seconds from the deployment's start)
+  --reference NAME      recorder whose clock is the time base (default: the table's first)
+  --search S            how far from its rough time a calibration sound is looked for (default 3 s)
+`;
+
+export interface OpenedDeployment { recording: DeploymentRecording; sync?: DeploymentSync }
+
+/** Opens --deployment; with --calibration measures the calibration sounds and reopens it through the fitted clocks. */
+export async function openDeploymentFromOptions(values: ParsedCommand['values'], geometry: ArrayGeometry, speedMetersPerSecond: number, io: CliIo, bandText?: string): Promise<OpenedDeployment> {
+  const tablePath = optionalString(values, 'deployment');
+  if (tablePath === undefined) throw new UsageError('give --deployment TABLE.csv (one row per recorder file channel: recorder,file,file_channel,microphone).');
+  const nameTimeText = optionalString(values, 'name-time');
+  const searchSeconds = optionalNumber(values, 'search', 'seconds');
+  if (searchSeconds !== undefined && !(searchSeconds >= 0.1 && searchSeconds <= 600)) throw new UsageError(`--search must be 0.1 to 600 seconds; got ${searchSeconds}.`);
+  const recording = await openDeployment(tablePath, nameTimeText !== undefined ? { nameTime: nameTimePattern(nameTimeText) } : {});
+  const calibrationPath = optionalString(values, 'calibration');
+  if (calibrationPath === undefined) return { recording };
+  try {
+    const sounds = parseCalibrationCsv(await readTextFile(calibrationPath, 'calibration table'), basename(calibrationPath), recording.layout.origin);
+    const band = parseBand(bandText);
+    const reference = optionalString(values, 'reference');
+    const sync = await syncDeployment(recording, geometry, sounds, {
+      speedMetersPerSecond, ...(searchSeconds !== undefined ? { searchSeconds } : {}), ...(band !== undefined ? { bandHz: band } : {}), ...(reference !== undefined ? { referenceRecorder: reference } : {}),
+    });
+    for (const warning of sync.warnings) io.writeStderr(`warning: ${warning}\n`);
+    return { recording: recording.withClocks(sync.fit.recorders.map((r) => r.clock)), sync };
+  } finally {
+    await recording.close();
+  }
+}
+
+/** Head lines of a survey log for a deployment: the table, the time base and one clock line per recorder. */
+export function deploymentHeadNotes(opened: OpenedDeployment): string[] {
+  const { recording, sync } = opened;
+  const lines = [`deployment: ${recording.layout.tableName}, ${recording.layout.recorders.length} recorders, ${recording.layout.microphones.length} microphones; time_s from its earliest start ${recording.info.startTime?.isoLocal ?? ''}`];
+  if (sync === undefined) return [...lines, 'clocks: not fitted (no --calibration): each recorder\'s file stamps taken as true'];
+  return [...lines, `clock time base: ${sync.fit.timeBase}`, ...clockFitLines(sync.fit)];
+}

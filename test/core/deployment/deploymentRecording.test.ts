@@ -1,0 +1,88 @@
+import { describe, expect, it } from 'vitest';
+import { encodeWavFile, memoryByteSource, readWavInfo } from '../../../core/audio';
+import { deploymentRecording, describeStartSources, layoutDeployment, nameTimePattern, parseDeploymentCsv, type DeploymentFileHeader } from '../../../core/deployment';
+import { expectWhenceError } from '../../helpers/expectWhenceError';
+
+const FS = 1000;
+
+/** A mono float file whose samples are (recorder frame + 1) / 10000, with a bext start `secondsOfDay` after midnight of 2026-05-14 (or none). */
+function file(firstRecorderFrame: number, frames: number, secondsOfDay: number | undefined): Uint8Array {
+  const samples = Float32Array.from({ length: frames }, (_, i) => (firstRecorderFrame + i + 1) / 10000);
+  const bext = secondsOfDay === undefined ? undefined : { description: '', originator: '', originationDate: '2026-05-14', originationTime: '05:00:00', timeReferenceFrames: Math.round(secondsOfDay * FS) };
+  return encodeWavFile([samples], { channelCount: 1, sampleRateHz: FS, bitsPerSample: 32, sampleFormat: 'ieee-float', ...(bext ? { bext } : {}) });
+}
+
+const T0 = 5 * 3600;
+const files: Record<string, Uint8Array> = {
+  'a1.wav': file(0, 1000, T0), 'a2.wav': file(1000, 1000, T0 + 1.0004), // joined: stamped 0.4 ms after a1 ends
+  'b1.wav': file(0, 1000, T0 + 0.5), 'b2.wav': file(1500, 1000, T0 + 2.0), // gap from 1.5 s to 2.0 s
+};
+const TABLE = 'recorder,file,file_channel,microphone\nA,a1.wav,1,MA\nA,a2.wav,1,MA\nB,b1.wav,1,MB\nB,b2.wav,1,MB\n';
+
+async function layout(table = TABLE, pattern?: string, overrides: Record<string, Uint8Array> = {}) {
+  const all = { ...files, ...overrides };
+  const headers: DeploymentFileHeader[] = await Promise.all(Object.entries(all).filter(([name]) => table.includes(name)).map(async ([name, bytes]) => ({ file: name, baseName: name, info: await readWavInfo(memoryByteSource(bytes, name)) })));
+  return { layout: layoutDeployment(parseDeploymentCsv(table, 'd.csv'), headers, pattern === undefined ? undefined : nameTimePattern(pattern)), open: (name: string) => Promise.resolve(memoryByteSource(all[name]!, name)) };
+}
+
+describe('layoutDeployment()', () => {
+  it('joins a file stamped within the stamp resolution of the previous end, keeps a gap, and says where each start came from', async () => {
+    const { layout: l } = await layout();
+    const [a, b] = l.recorders;
+    expect(a!.files.map((f) => [f.recorderFrame, f.joined])).toEqual([[0, false], [1000, true]]);
+    expect(b!.clockStartSeconds).toBeCloseTo(0.5, 12);
+    expect(b!.gaps).toEqual([{ fromSeconds: 1.5, toSeconds: 2.0 }]);
+    expect(l.durationSeconds).toBeCloseTo(3.0, 9);
+    expect(describeStartSources(l)[0]).toMatch(/a1\.wav starts 2026-05-14T05:00:00\.000000 \(bext TimeReference\)/);
+  });
+
+  it('takes start_time over bext, the file name when there is no bext, and refuses a file with no start at all', async () => {
+    const noBext = { 'c1.wav': file(0, 100, undefined) };
+    const overridden = await layout('recorder,file,file_channel,microphone,start_time\nA,a1.wav,1,MA,2026-05-14T04:59:59.5\n');
+    expect(overridden.layout.recorders[0]!.files[0]!.startSource).toBe('start_time column');
+    const named = await layout('recorder,file,file_channel,microphone\nC,c1.wav,1,MC\n', 'c1.wav', noBext).catch((error: Error) => error);
+    expect(String(named)).toMatch(/YYYY/); // a pattern without tokens is refused
+    const { layout: l } = await layout('recorder,file,file_channel,microphone\nC,20260514_050001_c1.wav,1,MC\n', 'YYYYMMDD_hhmmss_*', { '20260514_050001_c1.wav': file(0, 100, undefined) });
+    expect(l.recorders[0]!.files[0]!.startSource).toBe('file name');
+    await expect(layout('recorder,file,file_channel,microphone\nC,c1.wav,1,MC\n', undefined, noBext)).rejects.toThrow(/no BWF start time.*--name-time/);
+  });
+
+  it('refuses overlapping files of one recorder and mixed sample rates', async () => {
+    const overlap = { 'a3.wav': file(0, 1000, T0 + 0.5) };
+    await expect(layout('recorder,file,file_channel,microphone\nA,a1.wav,1,MA\nA,a3.wav,1,MA\n', undefined, overlap)).rejects.toThrow(/before a1\.wav ends/);
+    const info = (sampleRateHz: number) => ({ sampleRateHz, channelCount: 1, frameCount: 10 }) as unknown as DeploymentFileHeader['info'];
+    const table = parseDeploymentCsv('recorder,file,file_channel,microphone\nA,a1.wav,1,MA\nX,x.wav,1,MX\n', 'd.csv');
+    expectWhenceError(() => layoutDeployment(table, [{ file: 'a1.wav', baseName: 'a1.wav', info: info(1000) }, { file: 'x.wav', baseName: 'x.wav', info: info(2000) }]), 'mixed-sample-rates', ['resample']);
+  });
+});
+
+describe('deploymentRecording()', () => {
+  it('reads a window across a file split as one continuous stream, and a gap as silence flagged in the alignment', async () => {
+    const { layout: l, open } = await layout();
+    const recording = deploymentRecording(l, open);
+    const [a, b] = await recording.readFrames(990, 20);
+    expect(Array.from(a!)).toEqual(Array.from({ length: 20 }, (_, i) => Math.fround((990 + i + 1) / 10000))); // continuous across a1/a2
+    expect(b![0]).toBeCloseTo((490 + 1) / 10000, 7); // B starts 0.5 s after the origin
+    const [, gapped] = await recording.readFrames(1990, 20);
+    // deployment frames 1990..1999 are B's recorder frames 1490..1499, in its gap (1000..1500); then b2 begins
+    expect(Array.from(gapped!.subarray(0, 10))).toEqual(new Array(10).fill(0));
+    expect(gapped![10]).toBeCloseTo(1501 / 10000, 7);
+    expect(recording.windowAlignment(1985, 15, 1.99).silentChannels).toEqual([1]); // A still records (to 2.0 s), B is in its gap
+    expect(recording.windowAlignment(1990, 20, 1.995).silentChannels).toEqual([0, 1]); // A's recording ends at 2.0 s
+    expect(recording.windowAlignment(100, 20, 0.105).silentChannels).toEqual([1]); // B had not started yet
+    expect(recording.windowAlignment(600, 20, 0.605).silentChannels).toEqual([]);
+  });
+
+  it('maps deployment time through each clock to the nearest whole frame and reports the fractional remainder as a shift', async () => {
+    const { layout: l, open } = await layout();
+    const recording = deploymentRecording(l, open, [{ clockStartSeconds: 0, offsetSeconds: 0, drift: 0 }, { clockStartSeconds: 0.5, offsetSeconds: 0.0103, drift: 1e-3 }]);
+    const [, b] = await recording.readFrames(700, 10);
+    // true time t = n + 0.0103 + 1e-3 (n - 0.5) for nominal n: at t = 0.7 s, n = 0.5 + (0.2 - 0.0103) / 1.001 = 0.689510... s,
+    // recorder frame 189.51 -> whole frame 190 (value 191/10000); computed by hand from the model's definition
+    expect(b![0]).toBeCloseTo(191 / 10000, 7);
+    const shift = recording.windowAlignment(700, 10, 0.7).shiftSeconds[1]!;
+    // true time of recorder frame 190 (n = 0.69 s): 0.69 + 0.0103 + 1e-3 * 0.19 = 0.70049 s; minus 0.7 s nominal
+    expect(shift).toBeCloseTo(0.00049, 9);
+    expect(recording.windowAlignment(700, 10, 0.7).shiftSeconds[0]).toBe(0);
+  });
+});
