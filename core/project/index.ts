@@ -14,12 +14,14 @@ export {
   UNKNOWN_TEMPERATURE_SIGMA_KELVIN,
   validateProjectDocument,
   type FixLogEntry,
+  type FixQuality,
   type MapView,
   type ProjectArray,
   type ProjectDocument,
   type ProjectMedium,
   type ProjectSettings,
   type ReadProjectResult,
+  type RecordingIdentity,
   type RecordingReference,
 } from './document';
 export {
@@ -29,10 +31,12 @@ export {
   PROJECT_MIGRATION_REGISTRY,
   PROJECT_MIGRATIONS,
   readSchemaVersion,
+  UNKNOWN_RECORDING_NAME,
   type MigrationRegistry,
   type MigrationResult,
   type ProjectData,
   type ProjectMigration,
 } from './migrations';
+export { recordingIdentityOf, sameRecording } from './recordingIdentity';
 export { SITE_PICTURE_LIMITS, sitePictureSchema, type SitePicture } from './sitePicture';
-export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV2 } from './schema';
+export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV2, projectDocumentSchemaV3 } from './schema';

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { gccWeightings, type GccWeighting } from '../dsp';
 import { VERDICT_GRADES, type FixStatus, type VerdictGrade } from '../locate';
 import { MAX_MICROPHONES } from './arrayGeometry';
+import { sitePictureSchema } from './sitePicture';
 
 const MAX_LABEL_CHARS = 200;
 const MAX_PATH_CHARS = 4096;
@@ -242,5 +243,7 @@ export const projectDocumentSchemaV3 = z
     recording: recordingReferenceSchema.optional(),
     fixes: z.array(fixLogEntrySchema).max(PROJECT_LIMITS.fixes),
     view: mapViewSchema.optional(),
+    /** A picture of the site drawn under the map (optional; a file without it loads as before). */
+    sitePicture: sitePictureSchema.optional(),
   })
   .superRefine(checkFixIdsUnique);
