@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SITE_PICTURE_LIMITS, sitePictureSchema } from '../../../core/project';
+import { emptyProjectDocument, readProjectText, serializeProjectDocument, SITE_PICTURE_LIMITS, sitePictureSchema } from '../../../core/project';
 
 const PICTURE = {
   name: 'plan.png',
@@ -28,5 +28,16 @@ describe('sitePictureSchema', () => {
     expect(over.error?.issues[0]?.message).toBe('a site picture is at most 20 MiB');
     const tooMany = sitePictureSchema.safeParse({ ...PICTURE, widthPixels: 10_000, heightPixels: 5_000 });
     expect(tooMany.error?.issues[0]?.message).toBe('a site picture has at most 40 million pixels');
+  });
+});
+
+describe('a project with a site picture', () => {
+  it('saves the picture with the project and reads it back; a project without one loads without one', () => {
+    const document = { ...emptyProjectDocument('site'), sitePicture: { ...PICTURE } };
+    const text = serializeProjectDocument(document);
+    expect(readProjectText(text, 'site.whence').document.sitePicture).toEqual(PICTURE);
+    expect(readProjectText(serializeProjectDocument(emptyProjectDocument('bare')), 'bare.whence').document.sitePicture).toBeUndefined();
+    const broken = text.replace('"opacity": 0.8', '"opacity": 2');
+    expect(() => readProjectText(broken, 'site.whence')).toThrow(/sitePicture\.opacity/);
   });
 });
