@@ -2,7 +2,7 @@
 // solve (core/locate). Times in seconds from the start of the recording.
 import { chooseBand, type DetectedEvent } from '../detect';
 import type { FrequencyBand } from '../dsp';
-import { median, solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
+import { median, physicalLimitViolations, solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
 import type { ArrayGeometry } from '../project';
 import { maxArrayDelaySeconds } from './channelMap';
 import { chooseDirectPaths, closureAgreement } from './directPath';
@@ -96,11 +96,13 @@ export interface LocatedTiming {
 /**
  * What the event's residuals say about its arrival-time noise: one solve at the correlation's sigmas (with their floor and
  * the closure scatter of reducePairs), no outlier rejection; its residual sum in seconds² and degrees of freedom. Closure
- * residuals are not used: an arrival biased at one microphone (a merged reflection) closes every triplet.
+ * residuals are not used: an arrival biased at one microphone (a merged reflection) closes every triplet. Delays beyond
+ * the physical limit are left out, as the fix leaves them out whatever its sigma: their scatter is not in the fix.
  */
 export function timingEvidenceOf(microphones: Microphone[], reduced: ReducedDelays, options: SolveOptions): TimingEvidence {
   const { monteCarlo: _skipped, ...plain } = options;
-  const first = solveFix(microphones, reduced.delays, { ...plain, rejectOutliers: false });
+  const beyond = new Set(physicalLimitViolations(microphones, reduced.delays, options.speedMetersPerSecond, options.speedSigmaMetersPerSecond ?? 0, (k) => options.lagToleranceSeconds ?? 3 * (reduced.delays[k]!.sigmaSeconds ?? 0)).map((v) => v.delayIndex));
+  const first = solveFix(microphones, reduced.delays.filter((_, k) => !beyond.has(k)), { ...plain, rejectOutliers: false });
   const chi = first.fix?.chiSquare;
   const sigma = reduced.arrivalSigmaSeconds;
   if (chi === undefined || !Number.isFinite(chi.statistic)) return { priorArrivalSigmaSeconds: sigma, residualSumSeconds2: Number.NaN, degreesOfFreedom: 0 };

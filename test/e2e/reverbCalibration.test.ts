@@ -21,10 +21,10 @@ describe('95 % ellipses on reverberant scenes', () => {
   }, 240_000);
 
   // The issue's targets: coverage 95 ± 3 % and median Mahalanobis² within 25 % of chi-square's (1.04..1.73), over all
-  // fixes (>= 200) and inside the hull. Coverage is met both ways. The median is NOT: 0.95 over all fixes, 1.02 inside
-  // (measured with bench/reverb.ts). The echo-biased fixes are heavy-tailed (a few arrivals off by a reflection's delay):
-  // their mean M² is 1.95 (chi-square's 2, carried by a few far out), yet their median is 0.79; no one variance scale gives
-  // chi-square's median and its 95 % point together. The floor asserted here is 0.65 of chi-square's median.
+  // fixes (>= 200) and inside the hull. Measured with bench/reverb.ts: coverage 94.2 % of all fixes and 97.9 % inside,
+  // median Mahalanobis² 1.05 over all fixes and 1.12 inside. The median is close to its lower bound: the echo-biased
+  // fixes are heavy-tailed (arrivals off by part of a reflection's delay), so their ellipses are wide for the typical one
+  // and narrow for a few far out (most of the misses are outside the hull; the courtyard's coverage is 88 %).
   it('hold the truth for 95 ± 3 % of all fixes (at least 200) and of those inside the array', () => {
     const fixed = outcomes.filter((o) => Number.isFinite(o.mahalanobis2));
     expect(fixed.length).toBeGreaterThanOrEqual(200);
@@ -36,11 +36,11 @@ describe('95 % ellipses on reverberant scenes', () => {
     expect(coverage(inside)).toBeLessThanOrEqual(0.98);
   });
 
-  it('are not too large: median Mahalanobis² at least 0.65 and at most 1.25 of chi-square\'s, over all fixes and inside the array', () => {
+  it('are the right size: median Mahalanobis² within 25 % of chi-square\'s, over all fixes and inside the array', () => {
     const fixed = outcomes.filter((o) => Number.isFinite(o.mahalanobis2));
     for (const list of [fixed, fixed.filter((o) => o.insideHull)]) {
       const medianMahalanobis2 = median(list.map((o) => o.mahalanobis2));
-      expect(medianMahalanobis2).toBeGreaterThanOrEqual(CHI2_2DOF_50 * 0.65);
+      expect(medianMahalanobis2).toBeGreaterThanOrEqual(CHI2_2DOF_50 * 0.75);
       expect(medianMahalanobis2).toBeLessThanOrEqual(CHI2_2DOF_50 * 1.25);
     }
   });
