@@ -139,6 +139,15 @@ export function useWorkspace(host: Host): WorkspaceController {
       const current = stateRef.current;
       const reference = current.document.recording;
       const identity = openRecordingIdentity({ name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash });
+      if (reference !== undefined && !sameRecording(recordingIdentityOf(reference), identity)) {
+        if (current.fromDemo) {
+          dispatch({ type: 'conditions/reset', leaveDemo: true });
+          notify('info', `A new project for ${opened.name}: the demo's conditions, array and name are not carried over (set them for this recording). The demo's fixes stay in the log, each with its recording's name.`);
+        } else if (await ask(conditionsQuestion(current.document, opened.name)) === 'reset') {
+          dispatch({ type: 'conditions/reset', leaveDemo: false });
+        }
+      }
+      dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash });
       for (const warning of info.warnings) notify('warning', `${opened.name}: ${warning}`);
       dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: 0 } });
       const call = worker.call<EnvelopePyramid>('envelope', {}, (fraction) => {
