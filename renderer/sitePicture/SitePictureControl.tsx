@@ -32,7 +32,7 @@ export function SitePictureControl({ picture, origin, onChange }: SitePictureCon
       ) : (
         <>
           <span className="site-picture-name" title={`${picture.name}, placed by ${picture.placedBy === 'two-points' ? 'two pinned points' : `its ${picture.placedBy === 'geotiff' ? 'GeoTIFF georeference' : 'world file'} in ${picture.frameText}`}`}>
-            site picture
+            picture
           </span>
           <input
             type="range"
@@ -46,7 +46,7 @@ export function SitePictureControl({ picture, origin, onChange }: SitePictureCon
             onChange={(event) => onChange({ ...picture, opacity: Number(event.target.value) / 100 })}
           />
           <button type="button" className="small" data-testid="site-picture-replace" onClick={() => setOpen(true)} title="Place another picture instead">
-            Replace…
+            Change…
           </button>
           <button type="button" className="small" data-testid="site-picture-remove" onClick={() => onChange(undefined)} title="Take the picture off the map (Save keeps the project without it)">
             Remove

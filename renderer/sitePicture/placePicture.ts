@@ -52,7 +52,7 @@ function pinToLocal(pin: PinInput, origin: GeodeticPosition | undefined, name: s
 }
 
 /** The site picture for the project; WhenceError (site-picture-*) with what to do when it cannot be placed. */
-export function placePicture(candidate: PictureCandidate, choice: PlacementChoice, origin: GeodeticPosition | undefined, opacity = 0.8): SitePicture {
+export function placePicture(candidate: PictureCandidate, choice: PlacementChoice, origin: GeodeticPosition | undefined, opacity = 0.7): SitePicture {
   const name = printableText(candidate.name, 120);
   const size = { widthPixels: candidate.widthPixels, heightPixels: candidate.heightPixels };
   let affine: PixelAffine;
