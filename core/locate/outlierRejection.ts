@@ -22,6 +22,8 @@ export interface OutlierOptions {
   canDrop: (row: number) => boolean;
   /** Words for a row in messages, e.g. "pair A-B". */
   describeRow: (row: number) => string;
+  /** Part of the cost at a position that a nuisance parameter explains (2-D source height within its sigma); stated sigmas only. */
+  explainedCost?: (p: ArrayLike<number>) => number;
 }
 
 export interface OutlierOutcome {
@@ -81,7 +83,7 @@ export function deletionStatistics(problem: TdoaProblem, p: ArrayLike<number>): 
 
 /** True when the residual test fails at cost `cost` (cheap, linearised for the residual-sigma mode). */
 function residualTestFails(problem: TdoaProblem, p: ArrayLike<number>, cost: number, dof: number, options: OutlierOptions): boolean {
-  if (options.sigmaMode !== 'residuals') return chiSquareUpperTail(cost, dof) < options.level;
+  if (options.sigmaMode !== 'residuals') return chiSquareUpperTail(cost - (options.explainedCost?.(p) ?? 0), dof) < options.level;
   const deletion = deletionStatistics(problem, p);
   let active = 0;
   let largest = 0;
@@ -113,15 +115,17 @@ export function rejectOutlierRows(problem: TdoaProblem, start: ArrayLike<number>
     const suspects: number[] = [];
     for (let k = 0; k < problem.rowCount; k++) if (problem.active[k] && options.canDrop(k)) suspects.push(k);
     suspects.sort((a, b) => deletion[b] - deletion[a]);
-    const trials: { row: number; cost: number; position: Float64Array }[] = [];
+    // `judged`: the cost the tests see (less what a nuisance parameter explains, with stated sigmas).
+    const trials: { row: number; cost: number; judged: number; position: Float64Array }[] = [];
     for (const k of suspects.slice(0, SUSPECTS_REFITTED)) {
       problem.active[k] = 0;
       const result = refinePosition(problem, position, { maxIterations: 40 });
+      const explained = options.sigmaMode !== 'residuals' && Number.isFinite(result.cost) ? options.explainedCost?.(result.position) ?? 0 : 0;
       problem.active[k] = 1;
-      if (Number.isFinite(result.cost)) trials.push({ row: k, cost: result.cost, position: result.position });
+      if (Number.isFinite(result.cost)) trials.push({ row: k, cost: result.cost, judged: result.cost - explained, position: result.position });
     }
     if (trials.length === 0) break;
-    trials.sort((a, b) => a.cost - b.cost);
+    trials.sort((a, b) => a.judged - b.judged);
     const best = trials[0];
     const unit = options.sigmaMode === 'residuals' ? best.cost / (dof - 1) : 1;
     if (options.sigmaMode === 'residuals') {
@@ -130,7 +134,7 @@ export function rejectOutlierRows(problem: TdoaProblem, start: ArrayLike<number>
     }
     const runnerUp = trials[1];
     const margin = chiSquareQuantile(1 - options.level, 1);
-    if (runnerUp && (runnerUp.cost - best.cost) / unit <= margin) {
+    if (runnerUp && (runnerUp.judged - best.judged) / unit <= margin) {
       warnings.push(
         `The residuals fail the consistency test, but no single delay can be singled out ` +
           `(${options.describeRow(best.row)} or ${options.describeRow(runnerUp.row)} fit about equally well when left out); nothing more was dropped.`,

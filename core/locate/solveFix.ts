@@ -10,6 +10,7 @@ import { connectedComponents, graphRank } from './delayGraph';
 import { errorEllipse, errorEllipsoid } from './errorEllipse';
 import { median } from './median';
 import { monteCarloCovariance } from './monteCarlo';
+import { heightExplainedCost } from './heightNuisance';
 import { findSolutions, samePosition, type Candidate } from './multiStart';
 import { rejectOutlierRows } from './outlierRejection';
 import { conditionNumberSymmetric, toNested } from './smallMatrix';
@@ -53,6 +54,7 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
   const level = options.residualTestLevel ?? 0.01;
   const conditionLimit = options.conditionNumberLimit ?? 1e6;
   const sourceUpMeters = options.sourceUpMeters ?? microphones.reduce((sum, mic) => sum + mic.upMeters, 0) / Math.max(microphones.length, 1);
+  const heightSigma = dims === 2 ? options.sourceUpSigmaMeters ?? 0 : 0;
   const label = (i: number): string => microphones[i].label || `#${i}`;
   const pairName = (k: number): string => `pair ${label(delays[k].indexA)}-${label(delays[k].indexB)} (delays[${k}])`;
 
@@ -172,6 +174,7 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
     const outcome = rejectOutlierRows(problem, candidates[0].position, {
       sigmaMode: sigmaMode(),
       level,
+      explainedCost: (q) => heightExplainedCost(problem, q, heightSigma),
       maxDrops: Math.max(1, Math.floor(initialDof / 2)),
       describeRow,
       canDrop: (row) => {
@@ -219,7 +222,8 @@ export function solveFix(microphones: readonly Microphone[], delays: readonly De
     }
     timingSigmaSeconds = Math.sqrt(sum / Math.max(count, 1));
   }
-  const statistic = cost * weightScale;
+  // 2-D with the source height known within a sigma: the height is a nuisance parameter of the test, not a misfit.
+  const statistic = mode === 'residuals' ? cost * weightScale : Math.max(0, cost * weightScale - heightExplainedCost(problem, p, heightSigma, weightScale));
   const pValue = chiSquareUpperTail(statistic, dof);
   const consistent = pValue >= level;
   if (dof === 0) warnings.push('No redundant delays: the fit passes through every delay exactly and cannot be checked.');
