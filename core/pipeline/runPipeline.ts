@@ -29,6 +29,8 @@ export interface PipelineOptions {
   cancel?: CancelSignal;
   /** Locates one event; defaults to locating in this thread. The command line passes a worker pool. */
   locator?: (event: DetectedEvent) => Promise<LocatedEvent>;
+  /** Called once every event has been handed to the locator, before waiting for them: this thread is free from then on. */
+  onScanEnd?: () => void;
 }
 
 export interface PipelineResult {
@@ -124,6 +126,7 @@ export async function runPipeline(recording: RecordingAccess, context: LocateCon
     }
     if (!cancelled) emit(detector.finish());
   }
+  options.onScanEnd?.();
   // Second pass: the timing noise of the whole recording from every event's residuals, then each event solved again with it.
   const pooled = poolTimingNoise(await Promise.all(pending), context, sampleRateHz);
   const located = pooled.located;

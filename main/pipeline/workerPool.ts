@@ -1,4 +1,5 @@
-// A pool of locate workers (worker_threads) for the command line: events go to the least busy worker.
+// A pool of locate workers (worker_threads) for the command line: events wait in one queue, each worker holds at most
+// two, and once the scan is over this thread takes from the queue too, so neither core idles while events remain.
 // Falls back to locating in this thread when the bundled worker script is not there (e.g. running from sources).
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -11,10 +12,19 @@ import type { FromWorker, ToWorker, WorkerInit } from './messages';
 export interface LocatePool {
   readonly workerCount: number;
   locate(event: DetectedEvent): Promise<LocatedEvent>;
+  /**
+   * Lends this thread (free once the scan is over) to the queue: locates waiting events with `locateHere` until none
+   * is left. Resolves when the queue is empty; each event's own promise carries its result or error.
+   */
+  locateHereToo(locateHere: (event: DetectedEvent) => Promise<LocatedEvent>): Promise<void>;
   close(): Promise<void>;
 }
 
-interface Slot { worker: Worker; busy: number; ready: Promise<void> }
+interface Job { event: DetectedEvent; resolve: (located: LocatedEvent) => void; reject: (error: Error) => void }
+interface Slot { worker: Worker; busy: number; ready: boolean; failed: boolean }
+
+/** Events posted to a worker ahead of its results: two, so it never waits for this thread to send the next one. */
+const EVENTS_AHEAD_PER_WORKER = 2;
 
 export function bundledWorkerPath(): string | undefined {
   try {
@@ -26,39 +36,62 @@ export function bundledWorkerPath(): string | undefined {
 }
 
 export function createLocatePool(recordingPath: string, context: LocateContext, workerCount: number, workerPath: string): LocatePool {
-  const waiting = new Map<number, { resolve: (located: LocatedEvent) => void; reject: (error: Error) => void; slot: Slot }>();
+  const queue: Job[] = [];
+  const posted = new Map<number, Job & { slot: Slot }>();
   let nextId = 0;
   const init: WorkerInit = { recordingPath, context };
+
+  function feed(slot: Slot): void {
+    while (slot.ready && !slot.failed && slot.busy < EVENTS_AHEAD_PER_WORKER && queue.length > 0) {
+      const job = queue.shift()!;
+      const id = nextId++;
+      posted.set(id, { ...job, slot });
+      slot.busy++;
+      slot.worker.postMessage({ kind: 'locate', id, event: job.event } satisfies ToWorker);
+    }
+  }
+
   const slots: Slot[] = Array.from({ length: workerCount }, () => {
-    const worker = new Worker(workerPath, { workerData: init });
-    let markReady: () => void = () => undefined;
-    const slot: Slot = { worker, busy: 0, ready: new Promise<void>((resolve) => { markReady = resolve; }) };
-    worker.on('message', (message: FromWorker) => {
-      if (message.kind === 'ready') { markReady(); return; }
-      const entry = waiting.get(message.id);
-      if (entry === undefined) return;
-      waiting.delete(message.id);
-      entry.slot.busy--;
-      if (message.kind === 'located') entry.resolve(message.located);
-      else entry.reject(message.code !== undefined ? new WhenceError(message.code, message.message) : new Error(message.message));
+    const slot: Slot = { worker: new Worker(workerPath, { workerData: init }), busy: 0, ready: false, failed: false };
+    slot.worker.on('message', (message: FromWorker) => {
+      if (message.kind === 'ready') {
+        slot.ready = true;
+        feed(slot);
+        return;
+      }
+      const job = posted.get(message.id);
+      if (job === undefined) return;
+      posted.delete(message.id);
+      slot.busy--;
+      if (message.kind === 'located') job.resolve(message.located);
+      else job.reject(message.code !== undefined ? new WhenceError(message.code, message.message) : new Error(message.message));
+      feed(slot);
     });
-    worker.on('error', (error) => {
-      for (const [id, entry] of waiting) if (entry.slot === slot) { waiting.delete(id); slot.busy--; entry.reject(error); }
+    slot.worker.on('error', (error) => {
+      slot.failed = true;
+      for (const [id, job] of posted) if (job.slot === slot) { posted.delete(id); slot.busy--; job.reject(error); }
+      // With no worker left, the waiting events fail too rather than wait for ever.
+      if (slots.every((s) => s.failed)) for (const job of queue.splice(0)) job.reject(error);
     });
     return slot;
   });
+
   return {
     workerCount,
-    async locate(event) {
-      const slot = slots.reduce((best, candidate) => (candidate.busy < best.busy ? candidate : best));
-      slot.busy++;
-      await slot.ready;
-      const id = nextId++;
+    locate(event) {
       return new Promise<LocatedEvent>((resolve, reject) => {
-        waiting.set(id, { resolve, reject, slot });
-        const message: ToWorker = { kind: 'locate', id, event };
-        slot.worker.postMessage(message);
+        queue.push({ event, resolve, reject });
+        for (const slot of slots) feed(slot);
       });
+    },
+    async locateHereToo(locateHere) {
+      for (let job = queue.shift(); job !== undefined; job = queue.shift()) {
+        try {
+          job.resolve(await locateHere(job.event));
+        } catch (error) {
+          job.reject(error instanceof Error ? error : new Error(String(error)));
+        }
+      }
     },
     async close() {
       await Promise.all(slots.map(async (slot) => {

@@ -6,7 +6,7 @@ import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
-import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
+import { DEFAULT_LOCATE_SETTINGS, locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
 import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
@@ -139,7 +139,12 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
     if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
     if (toSeconds !== undefined) options.toSeconds = toSeconds;
-    if (pool !== undefined) options.locator = pool.locate.bind(pool);
+    if (pool !== undefined) {
+      const sharing = pool;
+      options.locator = sharing.locate.bind(sharing);
+      // Once the scan is over this thread locates waiting events too (the workers were the critical path).
+      options.onScanEnd = () => void sharing.locateHereToo((event) => locateEvent(recording, event, context));
+    }
     const result = await runPipeline(recording, context, options);
     progress.done();
 

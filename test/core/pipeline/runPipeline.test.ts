@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest';
+import { encodeWavFile, memoryByteSource, readWavInfo } from '../../../core/audio';
+import type { DetectedEvent } from '../../../core/detect';
+import { locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocatedEvent, type LocateContext } from '../../../core/pipeline';
+import { prepareScene, renderScene, sceneFrameCount, type SceneSpec } from '../../../core/simulate';
+import { geometryOf } from '../../helpers/sceneRecording';
+
+// Invented scene: four microphones, two calls 3 s apart.
+const spec: SceneSpec = {
+  sampleRateHz: 48_000, durationSeconds: 8, seed: 2, speedMetersPerSecond: 343,
+  microphones: [[0, 0], [30, 0], [30, 30], [0, 30]].map(([e, n], i) => ({ label: `M${i + 1}`, channel: i + 1, eastMeters: e!, northMeters: n!, upMeters: 1.5 })),
+  groundUpMeters: 0,
+  sources: [2, 5].map((t, i) => ({ id: `s${i}`, kind: 'fm-call' as const, eastMeters: 10 + 8 * i, northMeters: 12, upMeters: 1, emissionTimeSeconds: t, levelDb: -10, durationSeconds: 0.2, startFrequencyHz: 2000, endFrequencyHz: 4000 })),
+  background: { noiseLevelDb: -56, noiseColor: 'pink' },
+};
+
+describe('runPipeline()', () => {
+  it('calls onScanEnd once every event is handed to the locator, before it waits for them', async () => {
+    const frames = sceneFrameCount(spec);
+    const channels = spec.microphones.map(() => new Float32Array(frames));
+    renderScene(prepareScene(spec), 0, frames, channels);
+    const source = memoryByteSource(encodeWavFile(channels, { channelCount: 4, sampleRateHz: 48_000, bitsPerSample: 24, sampleFormat: 'pcm-int' }), 'scene.wav');
+    const recording = recordingAccess(source, await readWavInfo(source));
+    const geometry = geometryOf(spec);
+    const context: LocateContext = { geometry, channelIndexOfMicrophone: mapArrayToRecording(geometry, 4, 'scene.wav').channelIndexOfMicrophone, settings: { speedMetersPerSecond: 343, speedSigmaMetersPerSecond: 0, dimensions: 2, confidence: 0.95, weighting: 'phat', sourceUpMeters: 1 } };
+    // A locator that only works once the scan has ended (as the command line's pool lends this thread then): if the
+    // pipeline waited for its events before calling onScanEnd, it would never finish.
+    const held: Array<{ event: DetectedEvent; resolve: (located: LocatedEvent) => void }> = [];
+    let dispatchedAtScanEnd = -1;
+    const result = await runPipeline(recording, context, {
+      locator: (event) => new Promise<LocatedEvent>((resolve) => held.push({ event, resolve })),
+      onScanEnd: () => {
+        dispatchedAtScanEnd = held.length;
+        for (const { event, resolve } of held) void locateEvent(recording, event, context).then(resolve);
+      },
+    });
+    expect(result.eventsFound).toBe(2);
+    expect(dispatchedAtScanEnd).toBe(2);
+    expect(result.located.filter((located) => located.solve.fix !== undefined)).toHaveLength(2);
+  });
+});
