@@ -15,6 +15,7 @@ export {
 } from './envelope';
 export { envelopeColumns, envelopeLevelFor, envelopePeak } from './envelopeColumns';
 export { envelopeFromSource, type EnvelopePassOptions } from './envelopeFromSource';
+export { envelopePreviewFromSource, envelopePreviewWorthwhile, type EnvelopePreviewOptions } from './envelopePreview';
 export { detailEnvelope, type DetailEnvelope } from './detailEnvelope';
 export {
   planSpectrogram,
