@@ -23,13 +23,21 @@ function messageOf(error: unknown): string {
 
 export function SitePictureControl({ picture, origin, onChange }: SitePictureControlProps) {
   const [open, setOpen] = useState(false);
+  // The picture last removed, so Remove can be taken back (it is the only copy unless the project was saved with it).
+  const [removed, setRemoved] = useState<SitePicture | undefined>(undefined);
   return (
     <span className="site-picture-control">
       {picture === undefined ? (
         <button type="button" className="small" data-testid="site-picture-open" onClick={() => setOpen(true)} title="Place a picture of the site under the map">
           Site picture…
         </button>
-      ) : (
+      ) : null}
+      {picture === undefined && removed !== undefined && (
+        <button type="button" className="small" data-testid="site-picture-restore" onClick={() => { onChange(removed); setRemoved(undefined); }} title={`Put ${removed.name} back under the map`}>
+          Put back
+        </button>
+      )}
+      {picture !== undefined && (
         <>
           <span className="site-picture-name" title={`${picture.name}, placed by ${picture.placedBy === 'two-points' ? 'two pinned points' : `its ${picture.placedBy === 'geotiff' ? 'GeoTIFF georeference' : 'world file'} in ${picture.frameText}`}`}>
             picture
@@ -48,7 +56,7 @@ export function SitePictureControl({ picture, origin, onChange }: SitePictureCon
           <button type="button" className="small" data-testid="site-picture-replace" onClick={() => setOpen(true)} title="Place another picture instead">
             Change…
           </button>
-          <button type="button" className="small" data-testid="site-picture-remove" onClick={() => onChange(undefined)} title="Take the picture off the map (Save keeps the project without it)">
+          <button type="button" className="small" data-testid="site-picture-remove" onClick={() => { setRemoved(picture); onChange(undefined); }} title="Take the picture off the map (Put back returns it)">
             Remove
           </button>
         </>
@@ -58,6 +66,7 @@ export function SitePictureControl({ picture, origin, onChange }: SitePictureCon
           origin={origin}
           onCancel={() => setOpen(false)}
           onPlace={(placed) => {
+            setRemoved(undefined);
             onChange(placed);
             setOpen(false);
           }}
