@@ -6,7 +6,7 @@ import { dirname, join } from 'node:path';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const selected = process.argv.slice(2);
-const benchmarks = ['reader', 'memory', 'gcc', 'detect', 'solve', 'locate', 'reverb'].filter((name) => selected.length === 0 || selected.includes(name));
+const benchmarks = ['reader', 'memory', 'gcc', 'detect', 'solve', 'locate', 'reverb', 'deployment'].filter((name) => selected.length === 0 || selected.includes(name));
 
 console.log(`Whence benchmarks on ${process.platform}/${process.arch}, Node ${process.version}, ${(await import('node:os')).cpus().length} cores\n`);
 let failed = 0;

@@ -10,3 +10,4 @@ export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from '.
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
 export { microphonesByLabel, syncDeployment, type DeploymentSync } from './syncDeployment';
 export { clockFitJson, clockFitLines } from './clockFitReport';
+export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';

@@ -7,6 +7,7 @@ import { locateHelp, runLocate } from './commands/locate';
 import { runSolve, solveHelp } from './commands/solve';
 import { runSpeed, speedHelp } from './commands/speed';
 import { runSync, syncHelp } from './commands/sync';
+import { mergeHelp, runMerge } from './commands/merge';
 import type { CliIo } from './io';
 import { terminalDataSafe, terminalSafe } from './format';
 import { printableText } from '../../core/text';
@@ -24,6 +25,7 @@ interface Command {
 const commands: Record<string, Command> = {
   info: { summary: 'what a recording holds: format, channels, rate, duration, start time', help: infoHelp, run: runInfo },
   locate: { summary: 'find each sound in a recording and fix where it came from (survey log)', help: locateHelp, run: runLocate },
+  merge: { summary: 'join the survey logs of spans of one deployment into one', help: mergeHelp, run: runMerge },
   solve: { summary: 'position fixes from a table of measured time differences', help: solveHelp, run: runSolve },
   speed: { summary: 'speed of sound in air, seawater or fresh water', help: speedHelp, run: runSpeed },
   sync: { summary: 'fit the clocks of separate recorders from calibration sounds', help: syncHelp, run: runSync },

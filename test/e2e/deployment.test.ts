@@ -1,7 +1,7 @@
 // End to end: a scene heard by six separate recorders (core/simulate deployment: invented test scene), each with its own
 // clock offset (up to 2 s) and drift (up to ±50 ppm), a file split each and a gap in one; `whence sync` and
 // `whence locate --deployment` against the truth and against a synchronized multichannel file of the same scene.
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -50,7 +50,7 @@ describe('recorder deployments end to end', () => {
       expect(Math.abs(recorder.driftPpm - truth.drift * 1e6)).toBeLessThan(0.5); // issue 9's bound
     });
     expect(fit.startTimes.every((line) => /bext TimeReference/.test(line))).toBe(true);
-  });
+  }, 120_000);
 
   it('whence locate --deployment fixes the sounds in between as accurately as the synchronized multichannel file (median within 20 %)', async () => {
     const deployment = await runCliInProcess(['locate', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--calibration', written.calibrationPath!, '--sound-speed', '343', '--height', '1', '--json']);
@@ -65,5 +65,28 @@ describe('recorder deployments end to end', () => {
     expect(median(deploymentErrors)).toBeLessThan(0.01); // inside the array at ~20 dB SNR (locatePipeline.test.ts: ≤ 0.1 m)
     expect(deploymentLog.log.notes.filter((note) => note.startsWith('clock R'))).toHaveLength(6);
     expect(deploymentLog.fixes.some((fix) => fix.local_time?.startsWith('2026-05-14T05:0'))).toBe(true);
-  });
+  }, 300_000);
+
+  it('spans located separately (--from/--to as seconds and local times) merge into one log; a log made with other settings is refused', async () => {
+    const common = ['--deployment', written.deploymentPath, '--array', written.arrayPath, '--calibration', written.calibrationPath!, '--sound-speed', '343', '--height', '1'];
+    const whole = await runCliInProcess(['locate', ...common, '--json']);
+    const first = join(folder, 'span1.csv');
+    const second = join(folder, 'span2.csv');
+    expect((await runCliInProcess(['locate', ...common, '--to', '60', '--out', first])).exitCode).toBe(0);
+    const secondRun = await runCliInProcess(['locate', ...common, '--from', '2026-05-14T05:00:55', '--out', second]);
+    expect(secondRun.exitCode, secondRun.stderr).toBe(0);
+    const merged = await runCliInProcess(['merge', first, second]);
+    expect(merged.exitCode, merged.stderr).toBe(0);
+    const rows = merged.stdout.split('\n').filter((line) => line !== '' && !line.startsWith('#')).slice(1);
+    // the spans overlap by 5 s: events found twice are kept once, so the merged log has the whole run's events
+    expect(rows).toHaveLength((JSON.parse(whole.stdout) as { fixes: unknown[] }).fixes.length);
+    expect(merged.stdout).toMatch(/# note: merged 2 spans/);
+    expect(merged.stdout.match(/# note: clock R\d/g)).toHaveLength(6);
+    const otherArray = join(folder, 'other-height.csv');
+    await runCliInProcess(['locate', ...common.map((arg) => (arg === '1' ? '2' : arg)), '--to', '30', '--out', otherArray]);
+    const refused = await runCliInProcess(['merge', first, otherArray]);
+    expect(refused.exitCode).toBe(1);
+    expect(refused.stderr).toMatch(/does not belong with .*span1\.csv: their settings differ/);
+    expect(readFileSync(first, 'utf8')).toMatch(/^# Whence/); // inputs untouched
+  }, 300_000);
 });
