@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import type { WavInfo } from '../../core/audio';
 import type { MenuCommand } from '../../core/contract';
-import type { CorrelationPlots, EnvelopePyramid, Spectrogram, SpectrogramRequest } from '../../core/overview';
+import { envelopePreviewWorthwhile, type CorrelationPlots, type EnvelopePyramid, type Spectrogram, type SpectrogramRequest } from '../../core/overview';
 import type { LocatedEvent, PipelineProgress, PipelineResult } from '../../core/pipeline';
 import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
 import { fixLogExportText, fixLogFileName, openRecordingIdentity, type FixLogContext, type FixLogExport, type FixLogExportKind } from '../fixlog';
@@ -87,6 +87,8 @@ export function useWorkspace(host: Host): WorkspaceController {
   const bridgeRef = useRef<PipelineBridge | undefined>(undefined);
   const recordingRef = useRef<OpenedRecording | undefined>(undefined);
   const workRef = useRef<WorkerCall<unknown> | undefined>(undefined);
+  /** Spectrogram reads wait for a long recording's first overview, so they do not compete with its reads. */
+  const previewShownRef = useRef<Promise<void>>(Promise.resolve());
   const [correlations, setCorrelations] = useState<CorrelationPlots | undefined>(undefined);
   const [recovery, setRecovery] = useState<{ document: ProjectDocument; savedAtIso: string; path?: string } | undefined>(undefined);
 
@@ -150,6 +152,13 @@ export function useWorkspace(host: Host): WorkspaceController {
       dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash });
       for (const warning of info.warnings) notify('warning', `${opened.name}: ${warning}`);
       dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: 0 } });
+      if (envelopePreviewWorthwhile(info.frameCount)) {
+        // A long recording: a sampled overview within seconds, then the exact one from a pass over every frame.
+        const preview = worker.call<EnvelopePyramid>('envelopePreview', {});
+        workRef.current = preview;
+        previewShownRef.current = preview.promise.then(() => undefined, () => undefined);
+        dispatch({ type: 'envelope/done', envelope: await preview.promise });
+      }
       const call = worker.call<EnvelopePyramid>('envelope', {}, (fraction) => {
         dispatch({ type: 'envelope/progress', fraction: fraction as number });
         dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: fraction as number } });
@@ -411,7 +420,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     selectFix: (id) => dispatch({ type: 'fix/select', id }),
     exportLog,
     exportText,
-    requestSpectrogram: (request) => bridge().call<Spectrogram>('spectrogram', { request }).promise,
+    requestSpectrogram: (request) => previewShownRef.current.then(() => bridge().call<Spectrogram>('spectrogram', { request }).promise),
     dismissNotice: (id) => dispatch({ type: 'notice/dismiss', id }),
     restoreRecovery() {
       if (recovery === undefined) return;

@@ -3,7 +3,7 @@
 import { readWavInfo, recordingFingerprint, type ByteSource, type WavInfo } from '../../core/audio';
 import { isWhenceError } from '../../core/errors';
 import { manualEvent } from '../../core/detect';
-import { correlationPlots, envelopeFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
+import { correlationPlots, envelopeFromSource, envelopePreviewFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
 import { locateEvent, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
 import { blobByteSource } from '../io';
 import { proxyByteSource, type ProxyReads } from './proxyByteSource';
@@ -50,7 +50,18 @@ const handlers: Record<string, Handler> = {
   },
   async envelope(_params: Record<string, never>, progress, cancel) {
     const { source, info } = requireRecording();
-    return envelopeFromSource(source, info, { onProgress: (fraction) => progress(fraction), cancel });
+    // Progress every half per cent at most: a long recording has thousands of blocks, each a re-render of the page.
+    let shown = -1;
+    const onProgress = (fraction: number) => {
+      if (fraction < 1 && fraction - shown < 0.005) return;
+      shown = fraction;
+      progress(fraction);
+    };
+    return envelopeFromSource(source, info, { onProgress, cancel });
+  },
+  async envelopePreview(_params: Record<string, never>, _progress, cancel) {
+    const { source, info } = requireRecording();
+    return envelopePreviewFromSource(source, info, { cancel });
   },
   async spectrogram(params: { request: SpectrogramRequest }) {
     const { source, info } = requireRecording();
