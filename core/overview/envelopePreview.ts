@@ -10,6 +10,8 @@ export interface EnvelopePreviewOptions {
   columns?: number;
   /** Frames read per column (default 2048, about 43 ms at 48 kHz). */
   blockFrames?: number;
+  /** Blocks read at once (default 8): on a cold disk each read waits for a seek, and reads in flight overlap. */
+  parallelReads?: number;
   /** Checked between blocks; when set the pass stops with a WhenceError 'overview-cancelled'. */
   cancel?: { readonly cancelled: boolean };
 }
@@ -26,7 +28,8 @@ export function envelopePreviewWorthwhile(frameCount: number, options: EnvelopeP
 export async function envelopePreviewFromSource(source: ByteSource, info: WavInfo, options: EnvelopePreviewOptions = {}): Promise<EnvelopePyramid> {
   const columns = options.columns ?? 1024;
   const blockFrames = options.blockFrames ?? 2048;
-  for (const [value, what] of [[columns, 'The preview column count'], [blockFrames, 'The preview block size in frames']] as const) {
+  const parallelReads = options.parallelReads ?? 8;
+  for (const [value, what] of [[columns, 'The preview column count'], [blockFrames, 'The preview block size in frames'], [parallelReads, 'The number of parallel reads']] as const) {
     if (!Number.isSafeInteger(value) || value < 1) throw new WhenceError('overview-options', `${what} must be a whole number of at least 1, got ${value}.`);
   }
   const strideFrames = Math.max(blockFrames, Math.ceil(info.frameCount / columns));
@@ -37,15 +40,16 @@ export async function envelopePreviewFromSource(source: ByteSource, info: WavInf
     expectedFrameCount: columnCount * blockFrames,
     baseBucketFrames: blockFrames,
   });
-  const buffers: Float32Array[] = Array.from({ length: info.channelCount }, () => new Float32Array(blockFrames));
-  for (let column = 0; column < columnCount; column++) {
+  const slots: Float32Array[][] = Array.from({ length: parallelReads }, () => Array.from({ length: info.channelCount }, () => new Float32Array(blockFrames)));
+  for (let first = 0; first < columnCount; first += parallelReads) {
     if (options.cancel?.cancelled === true) throw new WhenceError('overview-cancelled', 'The overview pass was cancelled before it finished.');
-    const start = column * strideFrames;
-    const count = Math.min(blockFrames, info.frameCount - start);
-    if (count <= 0) break;
-    const block = await readFrames(source, info, start, count, buffers);
-    // Each block fills exactly one bucket (a short last block closes the last one).
-    builder.push(block, count);
+    const batch = slots.slice(0, Math.min(parallelReads, columnCount - first)).map((buffers, k) => {
+      const start = (first + k) * strideFrames;
+      const count = Math.min(blockFrames, info.frameCount - start);
+      return readFrames(source, info, start, count, buffers).then((block) => ({ block, count }));
+    });
+    // In column order: each block fills exactly one bucket (a short last block closes the last one).
+    for (const { block, count } of await Promise.all(batch)) builder.push(block, count);
   }
   const sampled = builder.finish();
   // Relabel: bucket b of level l stands for frames b * stride * factor^l onwards of the whole recording.
