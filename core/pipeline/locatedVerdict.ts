@@ -8,9 +8,13 @@ export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | '
   const { solve, pairs, reduced, timing } = located;
   const dropped = new Set(reduced.droppedPairs.map((pair) => `${pair.indexA}-${pair.indexB}`));
   const kept = pairs.filter((pair) => !dropped.has(`${pair.indexA}-${pair.indexB}`));
+  // A reduced delay is one microphone's arrival against the reference: dropped beyond the physical limit, that
+  // microphone's arrival is what was dropped (it disagrees with the rest), not one pair among many.
+  const beyondLimit = (solve.fix?.droppedPairs ?? []).filter((pair) => (pair.reason ?? '').includes('physical limit')).map((pair) => (pair.indexA === reduced.referenceIndex ? pair.indexB : pair.indexA));
+  const fix = solve.fix !== undefined && beyondLimit.length > 0 ? { ...solve.fix, droppedArrivals: [...new Set([...(solve.fix.droppedArrivals ?? []), ...beyondLimit])] } : solve.fix;
   return fixVerdict({
     status: solve.status,
-    ...(solve.fix !== undefined ? { fix: solve.fix } : {}),
+    ...(fix !== undefined ? { fix } : {}),
     microphones: geometry.microphones,
     peakToSecondRatios: kept.map((pair) => pair.peakToSecondRatio),
     pairsDroppedBefore: reduced.droppedPairs,
