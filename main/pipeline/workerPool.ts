@@ -7,7 +7,7 @@ import { Worker } from 'node:worker_threads';
 import type { DetectedEvent } from '../../core/detect';
 import { WhenceError } from '../../core/errors';
 import type { LocateContext, LocatedEvent } from '../../core/pipeline';
-import type { FromWorker, ToWorker, WorkerInit } from './messages';
+import type { FromWorker, ToWorker, WorkerDeployment, WorkerInit } from './messages';
 
 export interface LocatePool {
   readonly workerCount: number;
@@ -35,11 +35,11 @@ export function bundledWorkerPath(): string | undefined {
   }
 }
 
-export function createLocatePool(recordingPath: string, context: LocateContext, workerCount: number, workerPath: string): LocatePool {
+export function createLocatePool(recordingPath: string, context: LocateContext, workerCount: number, workerPath: string, deployment?: WorkerDeployment): LocatePool {
   const queue: Job[] = [];
   const posted = new Map<number, Job & { slot: Slot }>();
   let nextId = 0;
-  const init: WorkerInit = { recordingPath, context };
+  const init: WorkerInit = deployment === undefined ? { recordingPath, context } : { recordingPath, context, deployment };
 
   function feed(slot: Slot): void {
     while (slot.ready && !slot.failed && slot.busy < EVENTS_AHEAD_PER_WORKER && queue.length > 0) {

@@ -1,5 +1,6 @@
 // `whence locate --deployment D.csv --array A.csv [--calibration C.csv]`: locates over a recorder deployment read as one
 // recording (core/deployment), optionally over a span (--from/--to: local ISO times or seconds from its earliest start).
+import { availableParallelism } from 'node:os';
 import { basename } from 'node:path';
 import { deploymentSeconds, microphonesByLabel } from '../../../core/deployment';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
@@ -8,12 +9,13 @@ import { runPipeline, type LocateContext } from '../../../core/pipeline';
 import { printableText } from '../../../core/text';
 import { WHENCE_VERSION } from '../../../core/version';
 import { writeFileAtomic } from '../../files';
+import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
 import { deploymentHeadNotes, openDeploymentFromOptions } from '../deploymentOptions';
 import { outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
 import { verdictTally } from '../format';
 import type { CliIo } from '../io';
 import { chooseSpeed } from '../mediumOptions';
-import { optionalString, UsageError, type ParsedCommand } from '../parse';
+import { optionalNumber, optionalString, UsageError, type ParsedCommand } from '../parse';
 import { progressLine } from '../progress';
 import { readTextFile } from '../readInput';
 import { settingsForLog, settingsFromOptions } from './locate';
@@ -34,8 +36,11 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
   const settings = settingsFromOptions(values, speed);
   const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, parseOrigin(optionalString(values, 'origin')));
   const geoJsonOrigin = outputKind === 'geojson' ? requireGeoJsonOrigin(geometry.origin) : undefined;
+  const workersOption = optionalNumber(values, 'workers', 'a number of threads');
+  if (workersOption !== undefined && (!Number.isInteger(workersOption) || workersOption < 0 || workersOption > 64)) throw new UsageError(`--workers must be a whole number from 0 to 64; got ${workersOption}.`);
   const opened = await openDeploymentFromOptions(values, geometry, speed.speedMetersPerSecond, io, optionalString(values, 'band'));
   const { recording } = opened;
+  let pool: LocatePool | undefined;
   try {
     microphonesByLabel(geometry, recording);
     const labels = recording.layout.microphones.map((m) => m.label);
@@ -44,8 +49,14 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     if (unused.length > 0) warnings.push(`The deployment's microphone${unused.length === 1 ? '' : 's'} ${unused.map((l) => `'${l}'`).join(', ')} ${unused.length === 1 ? 'is' : 'are'} not in the array table and ${unused.length === 1 ? 'is' : 'are'} ignored.`);
     for (const warning of warnings) io.writeStderr(`warning: ${warning}\n`);
     const context: LocateContext = { geometry, channelIndexOfMicrophone: geometry.microphones.map((m) => labels.indexOf(m.label)), settings };
+    // Worker threads open the deployment's files themselves, through the same layout and clocks.
+    const workerCount = workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
+    const workerPath = bundledWorkerPath();
+    const tablePath = optionalString(values, 'deployment')!;
+    if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(tablePath, context, workerCount, workerPath, { tablePath, layout: recording.layout, clocks: [...recording.clocks] });
     const progress = progressLine(io);
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
+    if (pool !== undefined) options.locator = pool.locate.bind(pool);
     const fromSeconds = spanBound(values, 'from', recording.layout.origin);
     const toSeconds = spanBound(values, 'to', recording.layout.origin);
     if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
@@ -73,6 +84,7 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     if (records.length > 0) io.writeStderr(`verdicts: ${verdictTally(records)}.\n`);
     return 0;
   } finally {
+    await pool?.close();
     await recording.close();
   }
 }
