@@ -13,8 +13,8 @@ export interface LocatePool {
   readonly workerCount: number;
   locate(event: DetectedEvent): Promise<LocatedEvent>;
   /**
-   * Lends this thread (free once the scan is over) to the queue: locates waiting events with `locateHere` until none
-   * is left. Resolves when the queue is empty; each event's own promise carries its result or error.
+   * Lends this thread (free once the scan is over) to the queue when at least MIN_WAITING_TO_LEND events wait: locates
+   * them with `locateHere` until none is left. Resolves then; each event's own promise carries its result or error.
    */
   locateHereToo(locateHere: (event: DetectedEvent) => Promise<LocatedEvent>): Promise<void>;
   close(): Promise<void>;
@@ -25,6 +25,11 @@ interface Slot { worker: Worker; busy: number; ready: boolean; failed: boolean }
 
 /** Events posted to a worker ahead of its results: two, so it never waits for this thread to send the next one. */
 const EVENTS_AHEAD_PER_WORKER = 2;
+/**
+ * This thread's first events run cold code (the workers' is warm): a few events cost it more than the workers take to
+ * finish them (the 1-minute bench file took more CPU and no less time), so it helps only with a longer queue.
+ */
+const MIN_WAITING_TO_LEND = 4;
 
 export function bundledWorkerPath(): string | undefined {
   try {
@@ -85,6 +90,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
       });
     },
     async locateHereToo(locateHere) {
+      if (queue.length < MIN_WAITING_TO_LEND) return;
       for (let job = queue.shift(); job !== undefined; job = queue.shift()) {
         try {
           job.resolve(await locateHere(job.event));

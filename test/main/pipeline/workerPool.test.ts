@@ -48,6 +48,19 @@ describe('createLocatePool()', () => {
     }
   });
 
+  it('locateHereToo() leaves a short queue to the worker', async () => {
+    const pool = createLocatePool('unused.wav', context, 1, workerPath);
+    try {
+      await pool.locate(event(100)); // the worker has started
+      const results = Array.from({ length: 5 }, (_, i) => pool.locate(event(i))); // two posted, three waiting
+      await pool.locateHereToo(async (e) => ({ by: 'here', index: e.index }) as unknown as LocatedEvent);
+      const answers = (await Promise.all(results)) as unknown as Answer[];
+      expect(answers.every((a) => a.by === 'worker')).toBe(true);
+    } finally {
+      await pool.close();
+    }
+  });
+
   it('rejects the events of a worker that fails, and those still waiting when no worker is left', async () => {
     const pool = createLocatePool('unused.wav', context, 1, workerPath);
     try {
