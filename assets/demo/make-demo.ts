@@ -10,6 +10,7 @@ import { sceneTruth } from '../../core/simulate';
 import { CURRENT_PROJECT_SCHEMA_VERSION, serializeProjectDocument, type ProjectDocument } from '../../core/project';
 import { writeFileAtomic } from '../../main/files';
 import { writeSceneWav } from '../../main/simulate';
+import { makeDeploymentDemo } from './make-deployment-demo';
 import { DEMO_MICROPHONES, DEMO_SCENE, DEMO_SITE } from './scenario';
 
 export const DEMO_FILES = Object.freeze({
@@ -119,6 +120,8 @@ export async function makeDemo(outFolder: string): Promise<MakeDemoResult> {
   await writeFileAtomic(join(folder, DEMO_FILES.truth), demoTruthCsv());
   await writeFileAtomic(join(folder, DEMO_FILES.delays), demoDelaysCsv());
   await writeFileAtomic(join(folder, DEMO_FILES.project), serializeProjectDocument(demoProject({ sizeBytes: wav.fileLengthBytes, frameCount: wav.frameCount })));
+  // The second scenario: the same dawn heard by six separate recorders with their own clocks (./make-deployment-demo.ts).
+  await makeDeploymentDemo(join(folder, 'deployment'));
   return {
     folder,
     files: Object.values(DEMO_FILES),

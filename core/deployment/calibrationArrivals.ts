@@ -72,7 +72,7 @@ export async function measureCalibrationArrivals(recording: DeploymentRecording,
     }));
     const heard = used.map((_, i) => i).filter((i) => coarse[i]!.peakToMedian >= MIN_PEAK_TO_MEDIAN);
     for (const i of used.map((_, index) => index).filter((index) => !heard.includes(index))) {
-      warnings.push(`Calibration sound '${sound.label}' (line ${sound.lineNumber}) was not heard clearly at microphone '${used[i]!.label}'${coarse[i]!.silent ? ' (its recorder has a gap there)' : ''}; that arrival is left out.`);
+      warnings.push(`Calibration sound '${sound.label}' (line ${sound.lineNumber}) was not heard clearly at microphone '${used[i]!.label}'${coarse[i]!.silent ? ' (its recorder was not recording all that time: a gap, or before its first file or after its last)' : ''}; that arrival is left out.`);
     }
     if (heard.length === 0) continue;
     const reference = heard.reduce((a, b) => (coarse[b]!.peakToMedian > coarse[a]!.peakToMedian ? b : a));
