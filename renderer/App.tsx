@@ -1,6 +1,6 @@
-// The workspace: a toolbar, the array and conditions on the left, the map with the recording and correlations in
-// the middle, the sounds found and the survey log on the right. Heavy work runs in the pipeline worker.
-import { useMemo, useState, type DragEvent } from 'react';
+// The workspace: a toolbar, the array and settings on the left, the map (the largest panel), the recording and
+// correlations under both, the events and the fix log on the right; panels resize and collapse. Work runs in the pipeline worker.
+import { useEffect, useMemo, useState, type DragEvent } from 'react';
 import { WHENCE_VERSION } from '../core/version';
 import { locatedVerdict } from '../core/pipeline';
 import { CorrelationsView } from './correlations';
@@ -11,17 +11,47 @@ import { MicrophonesPanel } from './microphones';
 import { CautionsPanel } from './panels/CautionsPanel';
 import { RecordingView } from './recording';
 import { SettingsPanel } from './settings';
+import { SitePictureControl, useSitePictureImage } from './sitePicture';
 import { useWorkspace } from './state/useWorkspace';
 import { EventsPanel } from './workspace/EventsPanel';
 import { ConfirmDialog } from './workspace/ConfirmDialog';
 import { mapFixes, mapHyperbolae, mapMicrophones, meanUpMeters, planeHeightMeters, precisionOverlay, srpOverlay } from './workspace/mapModel';
 import { Toolbar } from './workspace/Toolbar';
 import { NoticeBar } from './workspace/NoticeBar';
+import { clampPanelLayout, defaultPanelLayout, panelGridTracks, type PanelLayout } from './workspace/panelLayout';
+import { Splitter } from './workspace/Splitter';
 
-type SideTab = 'microphones' | 'conditions';
+type SideTab = 'microphones' | 'settings';
 type BottomTab = 'recording' | 'correlations' | 'safety';
 
 const host = detectHost();
+
+function windowSize(): { widthPixels: number; heightPixels: number } {
+  return { widthPixels: window.innerWidth, heightPixels: window.innerHeight };
+}
+
+/** The panel layout, kept within its limits when the window changes size. */
+function usePanelLayout(): [PanelLayout, (change: (layout: PanelLayout) => PanelLayout) => void] {
+  const [layout, setLayout] = useState<PanelLayout>(() => { const size = windowSize(); return defaultPanelLayout(size.widthPixels, size.heightPixels); });
+  useEffect(() => {
+    const onResize = () => { const size = windowSize(); setLayout((current) => clampPanelLayout(current, size.widthPixels, size.heightPixels)); };
+    window.addEventListener('resize', onResize);
+    return () => window.removeEventListener('resize', onResize);
+  }, []);
+  const change = (edit: (layout: PanelLayout) => PanelLayout) => setLayout((current) => { const size = windowSize(); return clampPanelLayout(edit(current), size.widthPixels, size.heightPixels); });
+  return [layout, change];
+}
+
+/** The title bar of a panel with its collapse (or expand) button. */
+function PanelBar({ title, open, side, onToggle, testId }: { title: string; open: boolean; side: 'left' | 'right' | 'bottom'; onToggle(): void; testId: string }) {
+  const arrow = side === 'left' ? (open ? '‹' : '›') : side === 'right' ? (open ? '›' : '‹') : (open ? '⌄' : '⌃');
+  return (
+    <button type="button" className={`panel-collapse panel-collapse-${side}${open ? '' : ' panel-collapsed'}`} onClick={onToggle} aria-expanded={open} data-testid={testId}
+      title={open ? `Hide ${title.toLowerCase()} (more room for the map)` : `Show ${title.toLowerCase()}`}>
+      <span aria-hidden="true">{arrow}</span>{open ? '' : <span className="panel-collapse-title">{title}</span>}
+    </button>
+  );
+}
 
 export function App() {
   const workspace = useWorkspace(host);
@@ -29,6 +59,8 @@ export function App() {
   const [sideTab, setSideTab] = useState<SideTab>('microphones');
   const [bottomTab, setBottomTab] = useState<BottomTab>('recording');
   const [overlayKind, setOverlayKind] = useState<'none' | 'precision' | 'srp'>('none');
+  const [layout, changeLayout] = usePanelLayout();
+  const tracks = panelGridTracks(layout);
   const speedMetersPerSecond = 'error' in workspace.speed ? 343 : workspace.speed.speedMetersPerSecond;
   const selected = state.selectedEventIndex === undefined ? undefined : state.events[state.selectedEventIndex];
 
@@ -39,13 +71,14 @@ export function App() {
   const verdicts = useMemo(() => state.events.map((located) => locatedVerdict(located, state.document.array)), [state.events, state.document.array]);
   const fixes = useMemo(() => mapFixes(state.events, state.selectedEventIndex, verdicts), [state.events, state.selectedEventIndex, verdicts]);
   const planeUp = planeHeightMeters(state.document, selected);
+  const sitePicture = useSitePictureImage(state.document.sitePicture);
   const overlay = useMemo(() => {
     if (overlayKind === 'precision') return precisionOverlay(state.document, speedMetersPerSecond);
     if (overlayKind === 'srp') return srpOverlay(state.document, workspace.correlations, speedMetersPerSecond, planeUp);
     return undefined;
   }, [overlayKind, state.document, speedMetersPerSecond, workspace.correlations, planeUp]);
   const logged = useMemo(() => loggedEventIndices(state.document.fixes, state.recording === undefined ? undefined : openRecordingIdentity(state.recording), state.events), [state.document.fixes, state.recording, state.events]);
-  const recordingEvents = useMemo(() => state.events.map((located, index) => ({ index, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, status: located.solve.status, selected: index === state.selectedEventIndex })), [state.events, state.selectedEventIndex]);
+  const recordingEvents = useMemo(() => state.events.map((located, index) => ({ index, number: located.event.index + 1, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, status: located.solve.status, selected: index === state.selectedEventIndex })), [state.events, state.selectedEventIndex]);
   const channelLabels = useMemo(() => {
     const count = state.recording?.info.channelCount ?? 0;
     return Array.from({ length: count }, (_, channel) => state.document.array.microphones.find((m) => m.channel === channel + 1)?.label ?? `ch ${channel + 1}`);
@@ -85,11 +118,12 @@ export function App() {
         onCancel={workspace.cancelWork}
       />
       <NoticeBar notices={state.notices} onDismiss={workspace.dismissNotice} recoveryOffer={workspace.recoveryOffer} onRestore={workspace.restoreRecovery} onDiscard={workspace.discardRecovery} />
-      <div className="workspace-body">
-        <aside className="side">
+      <div className="workspace-body" style={{ gridTemplateColumns: tracks.columns, gridTemplateRows: tracks.rows }} data-testid="workspace-body">
+        <aside className={`side left${layout.leftOpen ? '' : ' collapsed'}`} data-testid="panel-left">
           <nav className="tabs" role="tablist">
+            <PanelBar title="Microphones and settings" side="left" open={layout.leftOpen} onToggle={() => changeLayout((l) => ({ ...l, leftOpen: !l.leftOpen }))} testId="collapse-left" />
             <button type="button" role="tab" aria-selected={sideTab === 'microphones'} onClick={() => setSideTab('microphones')} data-testid="tab-microphones">Microphones</button>
-            <button type="button" role="tab" aria-selected={sideTab === 'conditions'} onClick={() => setSideTab('conditions')} data-testid="tab-conditions">Conditions</button>
+            <button type="button" role="tab" aria-selected={sideTab === 'settings'} onClick={() => setSideTab('settings')} data-testid="tab-settings">Settings</button>
           </nav>
           <div className="tab-body">
             {sideTab === 'microphones' ? (
@@ -106,30 +140,36 @@ export function App() {
             )}
           </div>
         </aside>
-        <main className="centre">
-          <section className="map-area" aria-label="Map">
-            <label className="map-toggle">layer{' '}
-              <select value={overlayKind} onChange={(event) => setOverlayKind(event.target.value as 'none' | 'precision' | 'srp')} data-testid="map-layer">
-                <option value="none">none</option>
-                <option value="precision">precision of the array</option>
-                <option value="srp">SRP-PHAT of the selected sound</option>
-              </select>
-            </label>
+        {layout.leftOpen ? <Splitter orientation="vertical" label="Drag to resize the microphones panel" testId="splitter-left" onDrag={(d) => changeLayout((l) => ({ ...l, leftPixels: l.leftPixels + d }))} /> : <span className="splitter-gap" />}
+          <section className="map-area" aria-label="Map" data-testid="map-area">
             <MapView
+              controls={(<>
+                <label className="map-toggle">layer{' '}
+                  <select value={overlayKind} onChange={(event) => setOverlayKind(event.target.value as 'none' | 'precision' | 'srp')} data-testid="map-layer">
+                    <option value="none">none</option>
+                    <option value="precision" title="Expected error of a fix at each place, from the array's geometry">precision</option>
+                    <option value="srp" title="SRP-PHAT of the selected event, normalised to its peak">SRP-PHAT</option>
+                  </select>
+                </label>
+                <SitePictureControl picture={state.document.sitePicture} origin={state.document.array.origin} onChange={workspace.setSitePicture} />
+              </>)}
               microphones={microphones}
               hyperbolae={hyperbolae}
               speedMetersPerSecond={speedMetersPerSecond}
               planeUpMeters={planeUp}
               fixes={fixes}
               {...(overlay !== undefined ? { overlay } : {})}
+              {...(sitePicture !== undefined ? { sitePicture } : {})}
               {...(state.document.array.origin !== undefined ? { origin: state.document.array.origin } : {})}
               editable
               onMoveMicrophone={workspace.moveMicrophone}
               onSelectFix={(id) => workspace.selectEvent(Number(id.replace('event-', '')))}
             />
           </section>
-          <section className="bottom-area">
+          {layout.bottomOpen ? <Splitter orientation="horizontal" label="Drag to resize the recording panel" testId="splitter-bottom" onDrag={(d) => changeLayout((l) => ({ ...l, bottomPixels: l.bottomPixels - d }))} /> : <span className="splitter-gap splitter-gap-bottom" />}
+          <section className={`bottom-area${layout.bottomOpen ? '' : ' collapsed'}`} data-testid="panel-bottom">
             <nav className="tabs" role="tablist">
+              <PanelBar title="Recording" side="bottom" open={layout.bottomOpen} onToggle={() => changeLayout((l) => ({ ...l, bottomOpen: !l.bottomOpen }))} testId="collapse-bottom" />
               <button type="button" role="tab" aria-selected={bottomTab === 'recording'} onClick={() => setBottomTab('recording')} data-testid="tab-recording">Recording</button>
               <button type="button" role="tab" aria-selected={bottomTab === 'correlations'} onClick={() => setBottomTab('correlations')} data-testid="tab-correlations">Correlations</button>
               <button type="button" role="tab" aria-selected={bottomTab === 'safety'} onClick={() => setBottomTab('safety')} data-testid="tab-safety">Safety &amp; about</button>
@@ -155,8 +195,9 @@ export function App() {
               {bottomTab === 'safety' && <CautionsPanel />}
             </div>
           </section>
-        </main>
-        <aside className="side right">
+        {layout.rightOpen ? <Splitter orientation="vertical" label="Drag to resize the events and fix log panel" testId="splitter-right" onDrag={(d) => changeLayout((l) => ({ ...l, rightPixels: l.rightPixels - d }))} /> : <span className="splitter-gap splitter-gap-right" />}
+        <aside className={`side right${layout.rightOpen ? '' : ' collapsed'}`} data-testid="panel-right">
+          <PanelBar title="Events and fix log" side="right" open={layout.rightOpen} onToggle={() => changeLayout((l) => ({ ...l, rightOpen: !l.rightOpen }))} testId="collapse-right" />
           <EventsPanel events={state.events} verdicts={verdicts} selectedIndex={state.selectedEventIndex} loggedEventIndices={logged} onSelect={workspace.selectEvent} onLog={workspace.logEvents} />
           <FixLogPanel
             entries={state.document.fixes}
@@ -164,7 +205,7 @@ export function App() {
             context={workspace.fixLogContext}
             onChange={workspace.setFixes}
             onSelect={workspace.selectFix}
-            onExport={(kind, text) => void workspace.exportText(fixLogFileName(kind), text, kind)}
+            onExport={(kind, text) => void workspace.exportText(fixLogFileName(kind, state.document.name, new Date()), text, kind)}
           />
         </aside>
       </div>

@@ -25,7 +25,15 @@ const LOCATE_COLUMNS = ['time_s', 'arrival_s', 'local_time', 'band_low_hz', 'ban
 /** The survey log's columns, the same for `whence locate` and the app's fix log: the recording's name first, then the event. */
 export function surveyLogColumns(dimensions: 2 | 3): string[] {
   const base = dimensions === 3 ? [...FIX_COLUMNS_3D] : [...FIX_COLUMNS_2D];
-  return ['recording', ...base.slice(0, 4), ...LOCATE_COLUMNS, ...base.slice(4)];
+  return ['recording', ...base.slice(0, 4), ...LOCATE_COLUMNS, ...base.slice(4), ...NOTE_COLUMNS];
+}
+
+/** The user's own words for a fix (the app's fix log fills them; `whence locate` leaves them empty), last. */
+const NOTE_COLUMNS = ['label', 'note'] as const;
+
+/** What a locate run adds to the head of its log, the same for `whence locate` and the app: its warnings, the timing model and the span scanned. */
+export function surveyLogRunNotes(run: { warnings: readonly string[]; timingNote?: string | undefined; scannedFromSeconds: number; scannedToSeconds: number; eventsFound: number }): string[] {
+  return [...run.warnings, ...(run.timingNote !== undefined ? [run.timingNote] : []), `scanned ${run.scannedFromSeconds.toFixed(3)} s to ${run.scannedToSeconds.toFixed(3)} s; ${run.eventsFound} event${run.eventsFound === 1 ? '' : 's'} found`];
 }
 
 export function locatedEventRecord(located: LocatedEvent, context: SurveyLogContext): FixRecord {

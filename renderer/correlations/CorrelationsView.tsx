@@ -23,13 +23,16 @@ const autoBox: PlotBox = { widthPixels: 232, heightPixels: 92, left: 6, right: 6
 const weakPeakRatio = 1.5;
 
 export function CorrelationsView({ pairs, autocorrelations, bandHz, weighting }: CorrelationsViewProps) {
-  const used = pairs.filter((p) => p.used).length;
+  const kept = pairs.filter((p) => p.used).length;
+  // The independent delays the fix uses (pairs_used in the survey log): the kept pairs reduced to arrival times, one fewer than their microphones.
+  const keptMicrophones = new Set(pairs.filter((p) => p.used).flatMap((p) => [p.indexA, p.indexB])).size;
+  const independent = Math.max(0, keptMicrophones - 1);
   return (
     <section className="cv" data-testid="correlations-view" aria-label="Correlations of the selected event">
       <header className="cv-header">
         <h2>Correlations</h2>
         <span className="cv-facts">
-          {weightingName(weighting)} · band {formatHz(bandHz.lowHz)}–{formatHz(bandHz.highHz)} · {pairs.length} pairs{pairs.length > 0 ? `, ${used} used in the fix` : ''}
+          {weightingName(weighting)} · band {formatHz(bandHz.lowHz)}–{formatHz(bandHz.highHz)} · {pairs.length} pairs{pairs.length > 0 ? `, ${kept} kept (${pairs.length - kept} dropped) → ${independent} independent delays used in the fix` : ''}
         </span>
       </header>
       {pairs.length === 0 && autocorrelations.length === 0 ? (
@@ -67,7 +70,7 @@ function PairCard({ plot }: { plot: PairCorrelationPlot }) {
     <figure className={`cv-card${plot.used ? '' : ' cv-unused'}`} data-testid={`correlation-pair-${plot.indexA}-${plot.indexB}`}>
       <figcaption className="cv-card-title">
         <span>{shape.title}</span>
-        {!plot.used && <span className="cv-badge">not used</span>}
+        {!plot.used && <span className="cv-badge" title="Dropped: its delay broke closure with the others">dropped</span>}
         {shape.beyondSpacing && <span className="cv-badge cv-badge-warn">beyond d/c</span>}
       </figcaption>
       <svg viewBox={`0 0 ${pairBox.widthPixels} ${pairBox.heightPixels}`} width="100%" className="cv-svg" role="img" aria-label={`${shape.title}: ${shape.delayText}, ${shape.qualityText}`}>

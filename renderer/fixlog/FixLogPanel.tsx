@@ -1,4 +1,4 @@
-// The fix log: one row per fix with time, position, ellipse and quality; accept toggles, inline label and note, row selection;
+// The fix log: one row per fix, key columns first (keep, event, verdict, position, ellipse), then time and quality; accept toggles, inline label and note, row selection;
 // export of the accepted fixes as the survey-log CSV or GeoJSON through core/export's writers.
 import { useRef, useState, type KeyboardEvent, type MouseEvent } from 'react';
 import type { FixLogEntry } from '../../core/project';
@@ -26,7 +26,9 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
   const rows = fixLogRows(entries, origin, context?.located);
   const acceptedCount = entries.filter((entry) => entry.accepted).length;
   const showUp = context?.dimensions === 3 || entries.some((entry) => entry.covarianceMeters2?.length === 3);
-  const geo = origin !== undefined;
+  const geo = origin !== undefined || entries.some((entry) => entry.origin !== undefined);
+  // A log holding fixes of several recordings names each fix's recording beside its event number.
+  const mixed = new Set(entries.map((entry) => entry.recording.name)).size > 1;
 
   function update(id: string, patch: Partial<Pick<FixLogEntry, 'accepted' | 'label' | 'note'>>): void {
     onChange(entries.map((entry) => (entry.id === id ? { ...entry, ...patch } : entry)));
@@ -69,28 +71,28 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
             <thead>
               <tr className="fl-groups">
                 <th colSpan={3} />
-                <th colSpan={2} className="fl-group">Time</th>
-                <th colSpan={(showUp ? 3 : 2) + (geo ? 1 : 0)} className="fl-group">Position</th>
+                <th colSpan={showUp ? 3 : 2} className="fl-group">Position</th>
                 <th colSpan={3} className="fl-group">Ellipse</th>
+                <th colSpan={2 + (geo ? 1 : 0)} className="fl-group">Time{geo ? ', WGS84' : ''}</th>
                 <th colSpan={4} className="fl-group">Quality</th>
                 <th colSpan={2} />
               </tr>
               <tr>
                 <th scope="col" title="Accepted fixes are exported">Keep</th>
-                <th scope="col" className="fl-num" title="Event number, as in the survey log">#</th>
+                <th scope="col" className="fl-num" title="Event number, as in the survey log, under its recording's name when the log holds several recordings">#</th>
                 <th scope="col" title="Plain-words verdict: firm (act on it), doubtful (check it first), unusable (do not act on it), with its main reason">Verdict</th>
-                <th scope="col" className="fl-num" title="Emission time, seconds from the start of the recording">Emitted (s)</th>
-                <th scope="col" className="fl-num" title="Local clock time of the first arrival, when the recording carries a start time">Clock</th>
                 <th scope="col" className="fl-num">E (m)</th>
                 <th scope="col" className="fl-num">N (m)</th>
                 {showUp && <th scope="col" className="fl-num">U (m)</th>}
-                {geo && <th scope="col" className="fl-num">Lat, Lon (°)</th>}
-                <th scope="col" className="fl-num" title="Semi-major × semi-minor axis">a × b (m)</th>
+                <th scope="col" className="fl-num" title="Semi-axes of the ellipse: semi-major × semi-minor">a × b (m)</th>
                 <th scope="col" className="fl-num" title="Major axis, counter-clockwise from east">Axis (°)</th>
                 <th scope="col" className="fl-num">Conf.</th>
+                <th scope="col" className="fl-num" title="Emission time, seconds from the start of the recording">Emitted (s)</th>
+                <th scope="col" className="fl-num" title="Local clock time of the first arrival, when the recording carries a start time">Clock</th>
+                {geo && <th scope="col" className="fl-num">Lat, Lon (°)</th>}
                 <th scope="col">Status</th>
                 <th scope="col" className="fl-num" title="Root-mean-square residual of the time differences">RMS resid.</th>
-                <th scope="col" className="fl-num" title="Microphone pairs used in the fix">Pairs</th>
+                <th scope="col" className="fl-num" title="Independent delays used in the fix (pairs_used in the survey log): the kept pairs reduced to arrival times, one fewer than the microphones heard">Delays used</th>
                 <th scope="col" className="fl-num" title="Smallest ratio of a pair's correlation peak to its second peak (1 = no clear peak)">Min peak ratio</th>
                 <th scope="col">Label</th>
                 <th scope="col">Note</th>
@@ -98,7 +100,7 @@ export function FixLogPanel({ entries, context, selectedId, onChange, onSelect, 
             </thead>
             <tbody>
               {rows.map((row, index) => (
-                <FixRow key={row.id} row={row} entry={entries[index]!} selected={row.id === selectedId} showUp={showUp} geo={geo} onSelect={onSelect} onUpdate={update} />
+                <FixRow key={row.id} row={row} entry={entries[index]!} selected={row.id === selectedId} showUp={showUp} geo={geo} mixed={mixed} onSelect={onSelect} onUpdate={update} />
               ))}
             </tbody>
           </table>
@@ -114,11 +116,13 @@ interface FixRowProps {
   selected: boolean;
   showUp: boolean;
   geo: boolean;
+  /** The log holds several recordings: show this fix's. */
+  mixed: boolean;
   onSelect(id: string): void;
   onUpdate(id: string, patch: Partial<Pick<FixLogEntry, 'accepted' | 'label' | 'note'>>): void;
 }
 
-function FixRow({ row, entry, selected, showUp, geo, onSelect, onUpdate }: FixRowProps) {
+function FixRow({ row, entry, selected, showUp, geo, mixed, onSelect, onUpdate }: FixRowProps) {
   const classes = ['fl-row', selected ? 'fl-selected' : '', row.accepted ? '' : 'fl-rejected'].filter(Boolean).join(' ');
   const select = () => onSelect(row.id);
   const stop = (event: MouseEvent) => event.stopPropagation();
@@ -127,24 +131,25 @@ function FixRow({ row, entry, selected, showUp, geo, onSelect, onUpdate }: FixRo
       <td className="fl-keep" onClick={stop}>
         <input type="checkbox" checked={row.accepted} data-testid={`fixlog-accept-${row.id}`} aria-label={`Keep event ${row.eventNumber} (accepted fixes are exported)`} onChange={(event) => onUpdate(row.id, { accepted: event.target.checked })} />
       </td>
-      <td className="fl-num fl-event">
-        <button type="button" className="fl-link" onClick={select} aria-label={`Show event ${row.eventNumber}`}>{row.eventNumber}</button>
+      <td className="fl-num fl-event" title={`Event ${row.eventNumber} of ${row.recordingName}`} data-recording={row.recordingName} data-testid={`fixlog-event-${row.id}`}>
+        {mixed && <span className="fl-recording" style={{ display: 'block', maxWidth: '9em', overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap', fontSize: '0.8em', opacity: 0.75 }}>{row.recordingName}</span>}
+        <button type="button" className="fl-link" onClick={select} aria-label={`Show event ${row.eventNumber} of ${row.recordingName}`}>{row.eventNumber}</button>
       </td>
-      <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict}>
+      <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict} title={row.verdictReason}>
         <span className="fl-verdict-grade"><span className="fl-verdict-symbol" style={{ color: row.verdictColour }} aria-hidden="true">{row.verdictText.slice(0, 1)}</span> {row.verdict}</span>
         <span className="fl-verdict-reason">{row.verdictReason}</span>
       </td>
+      <td className="fl-num">{row.eastText}</td>
+      <td className="fl-num">{row.northText}</td>
+      {showUp && <td className="fl-num">{row.upText}</td>}
+      <td className="fl-num">{row.axesText}</td>
+      <td className="fl-num">{row.angleText}</td>
+      <td className="fl-num">{row.confidenceText}</td>
       <td className="fl-num" title={row.emissionText === '—' ? `First arrival ${row.arrivalText} s (no emission time: the fix has no position)` : `First arrival ${row.arrivalText} s`}>
         {row.emissionText === '—' ? <span className="fl-muted">arr. {row.arrivalText}</span> : row.emissionText}
       </td>
       <td className="fl-num fl-clock" title={row.clockTitle}>{row.clockText}</td>
-      <td className="fl-num">{row.eastText}</td>
-      <td className="fl-num">{row.northText}</td>
-      {showUp && <td className="fl-num">{row.upText}</td>}
       {geo && <td className="fl-num fl-latlon">{row.latLonText}</td>}
-      <td className="fl-num">{row.axesText}</td>
-      <td className="fl-num">{row.angleText}</td>
-      <td className="fl-num">{row.confidenceText}</td>
       <td>
         <span className={`fl-status fl-tone-${row.statusTone}`}>{row.statusText}</span>
         {row.warnings.length > 0 && (

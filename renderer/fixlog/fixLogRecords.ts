@@ -5,6 +5,7 @@ import { enuToGeodetic, type GeodeticPosition } from '../../core/geo';
 import type { Fix, SolveResult } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
 import type { FixLogEntry } from '../../core/project';
+import { exportFileName } from '../workspace/exportFileName';
 
 /** How to write the log: the survey-log context of the command line, and this session's located events by entry id. */
 export interface FixLogContext extends SurveyLogContext {
@@ -13,13 +14,15 @@ export interface FixLogContext extends SurveyLogContext {
    * record is exactly the command line's; without, the columns a log entry does not keep (chi-square, GDOP, ...) are left empty.
    */
   located?: ReadonlyMap<string, LocatedEvent>;
+  /** The head notes of the open recording's last locate run, as `whence locate` writes them (core/export surveyLogRunNotes). */
+  runNotes?: readonly string[];
 }
 
 export type FixLogExportKind = 'csv' | 'geojson';
 
-/** The file name an export of the log is offered under. */
-export function fixLogFileName(kind: FixLogExportKind): string {
-  return kind === 'csv' ? 'whence-log.csv' : 'whence-log.geojson';
+/** The file name an export of the log is offered under: the project's name, "log" and the local date. */
+export function fixLogFileName(kind: FixLogExportKind, projectName: string, date: Date): string {
+  return exportFileName(projectName, 'log', kind, date);
 }
 
 /** Columns a fix log entry does not keep: written only when the located event is at hand. */
@@ -116,16 +119,13 @@ export function fixLogToRecords(entries: readonly FixLogEntry[], context: FixLog
   return entries.map((entry) => entryRecord(entry, context));
 }
 
-/** The notes written at the head of an exported log: what was exported, and each fix's label and note. */
-export function fixLogNotes(entries: readonly FixLogEntry[], accepted: readonly FixLogEntry[]): string[] {
-  const notes = [`exported from the fix log: ${accepted.length} accepted fix${accepted.length === 1 ? '' : 'es'} of ${entries.length}`];
-  for (const entry of accepted) {
-    const label = entry.label.trim();
-    const note = entry.note.trim();
-    if (label === '' && note === '') continue;
-    notes.push(`event ${entry.eventIndex + 1}${label !== '' ? ` "${label}"` : ''}${note !== '' ? `: ${note}` : ''}`);
-  }
-  return notes;
+/**
+ * The notes at the head of an exported log: those `whence locate` writes for the run (core/export surveyLogRunNotes), when
+ * every exported fix comes from the open recording's run; none otherwise. Labels and notes are columns, not head lines.
+ */
+export function fixLogNotes(accepted: readonly FixLogEntry[], context: FixLogContext): string[] {
+  if (context.runNotes === undefined || !accepted.every((entry) => entry.recording.name === context.recordingName)) return [];
+  return [...context.runNotes];
 }
 
 /** The log's head names every recording its fixes came from; the start time only when that is the open recording alone. */
@@ -142,7 +142,7 @@ export function fixLogExportText(kind: FixLogExportKind, entries: readonly FixLo
   const accepted = entries.filter((entry) => entry.accepted);
   if (accepted.length === 0) return { ok: false, message: 'No accepted fixes to export: tick the fixes to keep.' };
   const records = fixLogToRecords(accepted, context);
-  const notes = fixLogNotes(entries, accepted);
+  const notes = fixLogNotes(accepted, context);
   const logContext = contextForRecordings(accepted, context);
   if (kind === 'csv') return { ok: true, text: surveyLogCsv(records, logContext, notes), count: records.length };
   const origin = context.geometry.origin ?? accepted.find((entry) => entry.origin !== undefined)?.origin;

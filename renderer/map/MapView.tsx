@@ -1,5 +1,6 @@
 // The map view: array, pair hyperbolae, fixes with their uncertainty ellipses and an optional SRP or precision raster,
 // with a metric grid, scale bar and north arrow; wheel/keyboard zoom, drag to pan, draggable microphones when editable.
+// Controls sit in a bar above the canvas and the legend in a strip below it, so nothing covers the map's content.
 // Units: local east/north metres in the props, pixels only here and through the one MapScale.
 
 import type Konva from 'konva';
@@ -11,11 +12,13 @@ import { fixShapes, type FixShape } from './fixShapes';
 import { mapGrid } from './gridLines';
 import { hyperbolaShapes } from './hyperbolaShapes';
 import { MapCursorReadout, type CursorSink } from './MapCursorReadout';
-import { contentBounds } from './mapExtent';
+import { edgeMarkers, frameArrayAndFixes, scaleShowing } from './mapFraming';
 import { MapLegend } from './MapLegend';
 import { MapNorthArrow } from './MapNorthArrow';
 import { MapScale, type MapBounds } from './mapScale';
 import { MapScaleBar } from './MapScaleBar';
+import { SitePictureImage } from './SitePictureImage';
+import { sitePictureCorners } from './sitePictureTransform';
 import { microphoneMarkers } from './microphoneMarkers';
 import { overlayRaster, type OverlayRaster } from './overlayRaster';
 import type { MapViewProps } from './types';
@@ -30,19 +33,16 @@ const keyPanFraction = 0.1;
 /** A press that moves less than this is a click, not a pan. */
 const clickSlopPixels = 4;
 const micRadiusPixels = 6.5;
-/** Grid labels are left out where the toolbar (top right) and the scale box (bottom left) would cover them. */
-const gridLabelClearRightPixels = 150;
-const gridLabelClearBottomPixels = 80;
 const emptyBounds: MapBounds = { minEastMeters: -50, maxEastMeters: 50, minNorthMeters: -50, maxNorthMeters: 50 };
 
-/** Where the floating panels cover the map (toolbar and north arrow, scale box, legend), for label placement. */
-function panelBoxes(scale: MapScale): LabelBox[] {
+/** Where edge markers sit along the canvas border: curve labels keep clear of that band. */
+function edgeBand(scale: MapScale): LabelBox[] {
   const w = scale.widthPixels;
   const h = scale.heightPixels;
+  const band = 34;
   return [
-    { xPixels: w - 150, yPixels: 0, widthPixels: 150, heightPixels: 110 },
-    { xPixels: 0, yPixels: h - 80, widthPixels: 230, heightPixels: 80 },
-    { xPixels: w - 275, yPixels: h - 120, widthPixels: 275, heightPixels: 120 },
+    { xPixels: 0, yPixels: 0, widthPixels: w, heightPixels: band / 2 },
+    { xPixels: 0, yPixels: h - band / 2, widthPixels: w, heightPixels: band / 2 },
   ];
 }
 
@@ -61,9 +61,10 @@ function rasterCanvas(raster: OverlayRaster): HTMLCanvasElement | null {
 }
 
 export function MapView(props: MapViewProps) {
-  const { microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, fixes, overlay, origin, editable } = props;
+  const { microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, fixes, overlay, origin, editable, controls, sitePicture } = props;
   const containerRef = useRef<HTMLDivElement>(null);
-  const size = useElementSize(containerRef);
+  const canvasRef = useRef<HTMLDivElement>(null);
+  const size = useElementSize(canvasRef);
   const [scale, setScale] = useState<MapScale | null>(null);
   const [hoveredFixId, setHoveredFixId] = useState<string | null>(null);
   const [hoveredMicrophone, setHoveredMicrophone] = useState<number | null>(null);
@@ -80,35 +81,46 @@ export function MapView(props: MapViewProps) {
   const fitted = useRef(false);
   const fitScale = useCallback((widthPixels: number, heightPixels: number): MapScale => {
     const { microphones: mics, fixes: fx } = latest.current.props;
-    const bounds = contentBounds(mics, fx);
+    const { bounds } = frameArrayAndFixes(mics, fx);
     return MapScale.fit(bounds ?? emptyBounds, widthPixels, heightPixels, fitPadding(widthPixels, heightPixels));
   }, []);
 
-  // First fit once there is a size and something to show; afterwards a resize keeps the centre and zoom.
+  // Fit when there is a size and something to show, again on a resize or when the first fixes arrive, until the user
+  // zooms or pans (`fitted` then holds the view: a resize keeps its centre and zoom).
   const hasContent = microphones.length + fixes.length > 0;
+  const hasFixes = fixes.length > 0;
   useLayoutEffect(() => {
     if (size === null) return;
     setScale((previous) => {
       if (previous !== null && (fitted.current || !hasContent)) return previous.resized(size.widthPixels, size.heightPixels);
-      if (hasContent) fitted.current = true;
       return fitScale(size.widthPixels, size.heightPixels);
     });
-  }, [size, hasContent, fitScale]);
+  }, [size, hasContent, hasFixes, fitScale]);
 
   const fitView = useCallback(() => {
     if (size === null) return;
-    fitted.current = true;
+    fitted.current = false;
     setScale(fitScale(size.widthPixels, size.heightPixels));
   }, [size, fitScale]);
+
+  // A newly selected fix is brought into view (panned to, the zoom kept) when it lies outside the canvas.
+  const selectedFix = fixes.find((fix) => fix.selected);
+  const selectedKey = selectedFix === undefined ? '' : selectedFix.id;
+  useEffect(() => {
+    const chosen = latest.current.props.fixes.find((fix) => fix.selected);
+    if (chosen === undefined) return;
+    setScale((previous) => (previous === null ? previous : scaleShowing(previous, chosen)));
+  }, [selectedKey]);
 
   // View-models: each recomputed only when its own inputs change.
   const grid = useMemo(() => (scale ? mapGrid(scale) : null), [scale]);
   const curves = useMemo(
-    () => (scale ? hyperbolaShapes(microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale, { labelAvoid: panelBoxes(scale) }) : []),
+    () => (scale ? hyperbolaShapes(microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale, { labelAvoid: edgeBand(scale) }) : []),
     [microphones, hyperbolae, speedMetersPerSecond, planeUpMeters, scale],
   );
   const markers = useMemo(() => (scale ? microphoneMarkers(microphones, scale) : []), [microphones, scale]);
   const fixList = useMemo(() => (scale ? fixShapes(fixes, scale) : []), [fixes, scale]);
+  const offView = useMemo(() => (scale ? edgeMarkers(scale, fixes) : []), [fixes, scale]);
   const rasterResult = useMemo((): { raster: OverlayRaster | null; error: string | null } => {
     if (overlay === undefined) return { raster: null, error: null };
     try {
@@ -120,6 +132,7 @@ export function MapView(props: MapViewProps) {
   }, [overlay]);
   const overlayImage = useMemo(() => (rasterResult.raster ? rasterCanvas(rasterResult.raster) : null), [rasterResult]);
   const overlayRect = scale && rasterResult.raster ? scale.toScreenRect(rasterResult.raster.bounds) : null;
+  const peakPoint = scale && rasterResult.raster && overlay?.peak !== undefined ? { xPixels: scale.xPixels(overlay.peak.eastMeters), yPixels: scale.yPixels(overlay.peak.northMeters) } : null;
 
   // Cursor readout, fed without re-rendering the map.
   const cursorSink = useRef<CursorSink | null>(null);
@@ -305,6 +318,30 @@ export function MapView(props: MapViewProps) {
       data-center-north-meters={scale?.centerNorthMeters}
       style={{ cursor }}
     >
+      <div className="map-bar">
+        <div className="map-bar-controls">{controls}</div>
+        {scale !== null && (
+          <div className="map-footer">
+            <MapScaleBar metersPerPixel={scale.metersPerPixel} />
+            <MapCursorReadout sinkRef={cursorSink} scale={scale} origin={origin} planeUpMeters={planeUpMeters} />
+          </div>
+        )}
+        <div className="map-toolbar">
+          <button type="button" onClick={() => { fitted.current = true; setScale((s) => s?.zoomed(keyZoomFactor) ?? s); }} aria-label="Zoom in" title="Zoom in (+)">
+            +
+          </button>
+          <button type="button" onClick={() => { fitted.current = true; setScale((s) => s?.zoomed(1 / keyZoomFactor) ?? s); }} aria-label="Zoom out" title="Zoom out (−)">
+            −
+          </button>
+          <button type="button" data-testid="map-fit" onClick={fitView} title="Fit the array and the fixes near it (F); far fixes are marked on the edge">
+            Fit
+          </button>
+        </div>
+        <div className="map-north">
+          <MapNorthArrow sizePixels={28} />
+        </div>
+      </div>
+      <div className="map-canvas" ref={canvasRef}>
       <div className="map-stage" data-testid="map-stage">
         {scale !== null && width > 0 && height > 0 && (
           <Stage
@@ -318,6 +355,7 @@ export function MapView(props: MapViewProps) {
           >
             <Layer listening={false}>
               <Rect x={0} y={0} width={width} height={height} fill="#fbf9f4" />
+              {sitePicture !== undefined && <SitePictureImage picture={sitePicture} scale={scale} />}
               {overlayImage && overlayRect && (
                 <KonvaImage
                   image={overlayImage}
@@ -449,7 +487,7 @@ export function MapView(props: MapViewProps) {
                   />
                 ),
               )}
-              {grid?.eastLines.filter((line) => line.positionPixels < width - gridLabelClearRightPixels).map((line) => (
+              {grid?.eastLines.map((line) => (
                 <HaloText
                   key={`le${line.valueMeters}`}
                   x={line.positionPixels + 3}
@@ -459,7 +497,7 @@ export function MapView(props: MapViewProps) {
                   fill="#5d6b70"
                 />
               ))}
-              {grid?.northLines.filter((line) => line.positionPixels < height - gridLabelClearBottomPixels).map((line) => (
+              {grid?.northLines.map((line) => (
                 <HaloText
                   key={`ln${line.valueMeters}`}
                   x={4}
@@ -470,31 +508,26 @@ export function MapView(props: MapViewProps) {
                 />
               ))}
             </Layer>
+            <Layer>
+              {offView.map((marker) => (
+                <Group key={`edge/${marker.ids[0]}`} x={marker.xPixels} y={marker.yPixels} onClick={() => selectFix(marker.ids[0]!)} onTap={() => selectFix(marker.ids[0]!)}
+                  onMouseEnter={() => setHoverCursor('pointer')} onMouseLeave={() => setHoverCursor(null)}>
+                  <Circle radius={12} fill="rgba(255,253,248,0.92)" stroke="#5d6b70" strokeWidth={1} />
+                  <Line points={[9, 0, -6, -6.5, -2.5, 0, -6, 6.5]} closed rotation={marker.rotationDegrees} fill={marker.ids.some((id) => fixes.find((f) => f.id === id)?.selected) ? '#d1432f' : '#1d2a2f'} />
+                  {marker.text !== undefined && <HaloText x={marker.text.xPixels} y={marker.text.yPixels} text={marker.text.value} fontSize={11} fill="#1d2a2f" />}
+                </Group>
+              ))}
+              {peakPoint !== null && (
+                <Group x={peakPoint.xPixels} y={peakPoint.yPixels} listening={false}>
+                  <RegularPolygon sides={4} radius={8} stroke="#fffdf8" strokeWidth={4} />
+                  <RegularPolygon sides={4} radius={8} stroke="#6a3d9a" strokeWidth={2} />
+                  <HaloText x={10} y={-16} text="SRP peak" fontSize={11} fill="#6a3d9a" />
+                </Group>
+              )}
+            </Layer>
           </Stage>
         )}
       </div>
-
-      <div className="map-toolbar">
-        <button type="button" onClick={() => setScale((s) => s?.zoomed(keyZoomFactor) ?? s)} aria-label="Zoom in" title="Zoom in (+)">
-          +
-        </button>
-        <button type="button" onClick={() => setScale((s) => s?.zoomed(1 / keyZoomFactor) ?? s)} aria-label="Zoom out" title="Zoom out (−)">
-          −
-        </button>
-        <button type="button" data-testid="map-fit" onClick={fitView} title="Fit the array and fixes (F)">
-          Fit
-        </button>
-      </div>
-      <div className="map-north">
-        <MapNorthArrow />
-      </div>
-      {scale !== null && (
-        <div className="map-footer">
-          <MapScaleBar metersPerPixel={scale.metersPerPixel} />
-          <MapCursorReadout sinkRef={cursorSink} scale={scale} origin={origin} planeUpMeters={planeUpMeters} />
-        </div>
-      )}
-      <MapLegend showHyperbolae={hyperbolae.length > 0} showFixes={fixList.length > 0} overlay={rasterResult.raster?.legend ?? null} overlayError={rasterResult.error} />
       {hoveredFix !== null && (
         <div className="map-tooltip" data-testid="map-fix-tooltip" style={{ left: hoveredFix.xPixels + 14, top: hoveredFix.yPixels + 14 }}>
           <strong>{hoveredFix.label}</strong> <span className={`map-status map-status-${hoveredFix.status}`}>{hoveredFix.status}</span>
@@ -511,8 +544,17 @@ export function MapView(props: MapViewProps) {
           {editable && draggedMicrophone === null && <div className="muted">drag to move</div>}
         </div>
       )}
+      </div>
+      <div className="map-foot">
+        <MapLegend showHyperbolae={hyperbolae.length > 0} showFixes={fixList.length > 0} overlay={rasterResult.raster?.legend ?? null} overlayError={rasterResult.error} srpPeak={peakPoint !== null} />
+      </div>
 
       <ul className="map-probe" aria-hidden="true">
+        {sitePicture !== undefined && scale !== null && (
+          <li data-testid="map-site-picture" data-opacity={sitePicture.opacity} data-corners-pixels={JSON.stringify(sitePictureCorners(sitePicture.affine, sitePicture.widthPixels, sitePicture.heightPixels, scale).map((p) => [p.xPixels, p.yPixels]))}>
+            site picture
+          </li>
+        )}
         {markers.map((marker) => (
           <li
             key={marker.index}
@@ -527,6 +569,14 @@ export function MapView(props: MapViewProps) {
             {marker.title}
           </li>
         ))}
+        {offView.map((marker) => (
+          <li key={`edge/${marker.ids[0]}`} data-testid={`map-edge-marker-${marker.ids[0]}`} data-ids={marker.ids.join(' ')} data-x-pixels={marker.xPixels} data-y-pixels={marker.yPixels} data-distance-meters={marker.distanceMeters}>
+            {marker.label} off the view, {formatDistance(marker.distanceMeters)} from its centre
+          </li>
+        ))}
+        {peakPoint !== null && overlay?.peak !== undefined && (
+          <li data-testid="map-srp-peak" data-east-meters={overlay.peak.eastMeters} data-north-meters={overlay.peak.northMeters} data-x-pixels={peakPoint.xPixels} data-y-pixels={peakPoint.yPixels}>SRP peak</li>
+        )}
         {fixList.map((fix) => (
           <li
             key={fix.id}
@@ -637,6 +687,11 @@ function FixMarker({ marker, x, y, arm, colour, widthPixels }: FixMarkerProps) {
       {strokes.map((points, k) => <Line key={`mark-${k}`} points={points} stroke={colour} strokeWidth={widthPixels} lineCap="round" />)}
     </>
   );
+}
+
+/** A distance for an edge marker: metres below 10 km, else kilometres. */
+function formatDistance(distanceMeters: number): string {
+  return distanceMeters < 10_000 ? `${distanceMeters.toFixed(0)} m` : `${(distanceMeters / 1000).toFixed(1)} km`;
 }
 
 /** Map text on a light halo, readable over curves, the grid and the overlay. */

@@ -1,6 +1,8 @@
 // The plain data the map view is drawn from: microphones, pair delays as hyperbolae, fixes and a raster overlay.
 // Units: local east/north/up metres about the array origin, seconds, m/s; WGS84 degrees for the optional origin.
+import type { ReactNode } from 'react';
 import type { VerdictGrade } from '../../core/locate';
+import type { MapSitePicture } from './sitePictureTransform';
 
 export interface MapMicrophone {
   label: string;
@@ -49,6 +51,8 @@ export interface MapOverlay {
   /** Value of point (i east, j north) at j·countEast + i (east fastest). */
   values: Float64Array;
   unitLabel: string;
+  /** Where the map peaks (the SRP map's best point), marked on the map. */
+  peak?: { eastMeters: number; northMeters: number };
 }
 
 export interface MapOrigin {
@@ -68,4 +72,7 @@ export interface MapViewProps {
   editable: boolean;
   onMoveMicrophone?: (index: number, eastMeters: number, northMeters: number) => void;
   onSelectFix?: (id: string) => void;
+  /** The parent's own map controls (e.g. the layer choice), shown in the bar above the canvas. */
+  controls?: ReactNode;
+  sitePicture?: MapSitePicture;
 }

@@ -5,9 +5,12 @@ import type { WavInfo } from '../../core/audio';
 import type { MenuCommand } from '../../core/contract';
 import { envelopePreviewWorthwhile, type CorrelationPlots, type EnvelopePyramid, type Spectrogram, type SpectrogramRequest } from '../../core/overview';
 import type { LocatedEvent, PipelineProgress, PipelineResult } from '../../core/pipeline';
-import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
+import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
 import { fixLogExportText, fixLogFileName, openRecordingIdentity, type FixLogContext, type FixLogExport, type FixLogExportKind } from '../fixlog';
 import { recoveryTimeText } from '../workspace/recoveryTime';
+import { duplicateLocateQuestion, loggedFixesInSpan } from '../workspace/duplicateLocate';
+import { exportFileName } from '../workspace/exportFileName';
+import { surveyLogRunNotes } from '../../core/export';
 import { conditionsQuestion, discardWorkQuestion, type Question } from './questions';
 import type { Host, OpenedRecording } from '../host';
 import { PipelineBridge, type WorkerCall } from '../worker/bridge';
@@ -52,6 +55,8 @@ export interface WorkspaceController {
   moveMicrophone(index: number, eastMeters: number, northMeters: number): void;
   setMedium(medium: ProjectMedium): void;
   setSettings(settings: ProjectSettings): void;
+  /** Places, changes (opacity) or removes (undefined) the site picture under the map. */
+  setSitePicture(sitePicture: SitePicture | undefined): void;
   selectEvent(index: number | undefined): void;
   selectSpan(startSeconds: number, endSeconds: number): void;
   logEvents(indices: number[]): void;
@@ -115,7 +120,12 @@ export function useWorkspace(host: Host): WorkspaceController {
   }, []);
 
   const speed = useMemo(() => currentSpeed(state.document.medium), [state.document.medium]);
-  const fixLogContext = useMemo(() => fixLogContextOf({ document: state.document, recording: state.recording, events: state.events }), [state.document, state.recording, state.events]);
+  // The head notes of the last locate run (as `whence locate` writes them), for the recording it ran over.
+  const [runNotes, setRunNotes] = useState<{ recordingName: string; notes: string[] } | undefined>(undefined);
+  const fixLogContext = useMemo(() => {
+    const context = fixLogContextOf({ document: state.document, recording: state.recording, events: state.events });
+    return context !== undefined && runNotes !== undefined && runNotes.recordingName === state.recording?.name ? { ...context, runNotes: runNotes.notes } : context;
+  }, [state.document, state.recording, state.events, runNotes]);
 
   const loadRecording = useCallback(async (opened: OpenedRecording): Promise<WavInfo | undefined> => {
     const previous = recordingRef.current;
@@ -180,17 +190,18 @@ export function useWorkspace(host: Host): WorkspaceController {
     const ready = locateReadiness(stateRef.current.document, stateRef.current.recording);
     if ('problems' in ready) { notify('warning', `Cannot locate yet: ${ready.problems.join(' ')}`); return; }
     const { context } = ready;
-    dispatch({ type: 'busy/set', busy: { label: 'Finding and locating sounds', progress: 0 } });
+    dispatch({ type: 'busy/set', busy: { label: 'Finding and locating events', progress: 0 } });
     const call = bridge().call<PipelineResult>('run', { context }, (progress) => {
       const p = progress as PipelineProgress;
-      dispatch({ type: 'busy/set', busy: { label: 'Finding and locating sounds', progress: p.fraction, detail: `${p.eventsFound} found, ${p.eventsLocated} located` } });
+      dispatch({ type: 'busy/set', busy: { label: 'Finding and locating events', progress: p.fraction, detail: `${p.eventsFound} found, ${p.eventsLocated} located` } });
     });
     workRef.current = call as WorkerCall<unknown>;
     try {
       const result = await call.promise;
       dispatch({ type: 'events/replace', events: result.located });
+      if (stateRef.current.recording !== undefined) setRunNotes({ recordingName: stateRef.current.recording.name, notes: surveyLogRunNotes(result) });
       const fixed = result.located.filter((l) => l.solve.status === 'ok').length;
-      notify(result.cancelled ? 'warning' : 'info', `${result.cancelled ? 'Stopped: ' : ''}${result.eventsFound} sound${result.eventsFound === 1 ? '' : 's'} found, ${fixed} fixed.`);
+      notify(result.cancelled ? 'warning' : 'info', `${result.cancelled ? 'Stopped: ' : ''}${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok.`);
       for (const warning of result.warnings) notify('warning', warning);
     } catch (error) {
       notify('error', `Locating failed: ${message(error)}`);
@@ -204,19 +215,29 @@ export function useWorkspace(host: Host): WorkspaceController {
     const current = stateRef.current;
     const ready = locateReadiness(current.document, current.recording);
     if ('problems' in ready) { notify('warning', `Cannot locate yet: ${ready.problems.join(' ')}`); return; }
+    // A span whose event is already logged: the user chooses to replace that fix or keep both (or not to locate).
+    const span = { startSeconds, endSeconds };
+    const duplicates = loggedFixesInSpan(current.document.fixes, current.recording === undefined ? undefined : openRecordingIdentity(current.recording), span);
+    let replaceIds = new Set<string>();
+    if (duplicates.length > 0) {
+      const choice = await ask(duplicateLocateQuestion(duplicates, span));
+      if (choice === 'cancel') return;
+      if (choice === 'replace') replaceIds = new Set(duplicates.map((entry) => entry.id));
+    }
     dispatch({ type: 'busy/set', busy: { label: 'Locating the selection', progress: 0.5 } });
     try {
       const index = Math.max(-1, maxOf(current.events.map((e) => e.event.index))) + 1;
       const located = await bridge().call<LocatedEvent>('locateSpan', { context: ready.context, startSeconds, endSeconds, index }).promise;
+      if (replaceIds.size > 0) dispatch({ type: 'fixes/set', fixes: stateRef.current.document.fixes.filter((entry) => !replaceIds.has(entry.id)) });
       dispatch({ type: 'events/add', event: located });
       dispatch({ type: 'fixes/log-events', indices: [current.events.length] });
-      notify(located.solve.status === 'ok' ? 'info' : 'warning', `Selection ${startSeconds.toFixed(2)}-${endSeconds.toFixed(2)} s: ${located.solve.status}${located.solve.status === 'ok' ? '' : ` (${located.solve.warnings[0] ?? 'no fix'})`}; added to the log.`);
+      notify(located.solve.status === 'ok' ? 'info' : 'warning', `Selection ${startSeconds.toFixed(2)}-${endSeconds.toFixed(2)} s: ${located.solve.status}${located.solve.status === 'ok' ? '' : ` (${located.solve.warnings[0] ?? 'no fix'})`}; ${replaceIds.size > 0 ? `it replaces the logged fix of event ${duplicates.map((entry) => entry.eventIndex + 1).join(', ')} in the log` : duplicates.length > 0 ? 'added to the log beside the one already there' : 'added to the log'}.`);
     } catch (error) {
       notify('error', `Locating the selection failed: ${message(error)}`);
     } finally {
       dispatch({ type: 'busy/set', busy: undefined });
     }
-  }, [bridge, notify]);
+  }, [bridge, notify, ask]);
 
   // Re-solve the located events whenever the array, the medium or the settings change (delays stay as measured):
   // the selected event at once, the others just after (a pending batch is replaced by the next change only).
@@ -343,7 +364,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       return;
     }
     if (!result.ok) { notify('warning', result.message); return; }
-    await exportText(fixLogFileName(kind), result.text, kind);
+    await exportText(fixLogFileName(kind, stateRef.current.document.name, new Date()), result.text, kind);
   }, [exportText, notify, fixLogContext]);
 
   const controller: WorkspaceController = {
@@ -376,7 +397,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       }
     },
     importArrayText,
-    exportArray: (text) => exportText('whence-array.csv', text, 'csv'),
+    exportArray: (text) => exportText(exportFileName(stateRef.current.document.name, 'array', 'csv', new Date()), text, 'csv'),
     async openProject() {
       try {
         if (!(await mayReplaceWork('open a project'))) return;
@@ -412,6 +433,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     },
     setMedium: (medium) => dispatch({ type: 'medium/set', medium }),
     setSettings: (settings) => dispatch({ type: 'settings/set', settings }),
+    setSitePicture: (sitePicture) => dispatch({ type: 'sitePicture/set', sitePicture }),
     selectEvent: (index) => dispatch({ type: 'event/select', index }),
     selectSpan: (startSeconds, endSeconds) => dispatch({ type: 'selection/set', selection: { startSeconds, endSeconds } }),
     logEvents: (indices) => dispatch({ type: 'fixes/log-events', indices }),

@@ -3,12 +3,13 @@
 import type { WavInfo } from '../../core/audio';
 import type { EnvelopePyramid } from '../../core/overview';
 import { locatedVerdict, type LocatedEvent } from '../../core/pipeline';
-import { emptyProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings } from '../../core/project';
+import { emptyProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
 import type { SolveResult } from '../../core/locate';
 import { fixLogEntryFromLocated, loggedEventIndices, openRecordingIdentity } from '../fixlog';
 import { EMPTY_HISTORY, recordEdit, redoEdit, snapshotOf, undoEdit, type EditHistory, type EditSnapshot } from './editHistory';
+import { addNotice, type NoticeItem } from '../workspace/noticeList';
 
-export interface Notice { id: number; level: 'info' | 'warning' | 'error'; text: string }
+export type Notice = NoticeItem;
 export interface Busy { label: string; progress: number; detail?: string }
 
 export interface WorkspaceState {
@@ -37,6 +38,7 @@ export type WorkspaceAction =
   | { type: 'array/set'; array: ProjectArray }
   | { type: 'medium/set'; medium: ProjectMedium }
   | { type: 'settings/set'; settings: ProjectSettings }
+  | { type: 'sitePicture/set'; sitePicture: SitePicture | undefined }
   | { type: 'recording/opened'; name: string; sizeBytes: number; info: WavInfo; contentHash?: string }
   /** Conditions (medium, settings) back to a new project's; leaving the demo also resets the name and the array. The log stays. */
   | { type: 'conditions/reset'; leaveDemo: boolean }
@@ -54,7 +56,7 @@ export type WorkspaceAction =
   | { type: 'fixes/set'; fixes: FixLogEntry[] }
   | { type: 'fix/select'; id: string | undefined }
   | { type: 'busy/set'; busy: Busy | undefined }
-  | { type: 'notice/add'; level: Notice['level']; text: string }
+  | { type: 'notice/add'; level: Notice['level']; text: string; cause?: string }
   | { type: 'notice/dismiss'; id: number }
   | { type: 'project/saved'; path: string | undefined };
 
@@ -106,6 +108,10 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
       return editDocument(state, { ...state.document, medium: action.medium });
     case 'settings/set':
       return editDocument(state, { ...state.document, settings: action.settings });
+    case 'sitePicture/set': {
+      const { sitePicture: _previous, ...rest } = state.document;
+      return editDocument(state, action.sitePicture === undefined ? rest : { ...rest, sitePicture: action.sitePicture });
+    }
     case 'recording/opened': {
       const { info } = action;
       const opened = { name: action.name, sizeBytes: action.sizeBytes, info, ...(action.contentHash !== undefined ? { contentHash: action.contentHash } : {}) };
@@ -150,7 +156,7 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
         if (located === undefined || alreadyLogged.has(located.event.index)) continue;
         alreadyLogged.add(located.event.index);
         const id = fixIdFor({ ...state, document: { ...state.document, fixes: [...state.document.fixes, ...added] } }, located.event.index);
-        const entry = fixLogEntryFromLocated(located, { id, recording: identity, verdict: locatedVerdict(located, state.document.array), label: `sound ${located.event.index + 1}`, ...(origin !== undefined ? { origin } : {}), ...(info.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
+        const entry = fixLogEntryFromLocated(located, { id, recording: identity, verdict: locatedVerdict(located, state.document.array), label: '', ...(origin !== undefined ? { origin } : {}), ...(info.startTime !== undefined ? { recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz } : {}) });
         added.push(entry);
       }
       if (added.length === 0) return state;
@@ -166,7 +172,7 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
     case 'busy/set':
       return { ...state, busy: action.busy };
     case 'notice/add':
-      return { ...state, notices: [...state.notices.slice(-4), { id: state.nextNoticeId, level: action.level, text: action.text }], nextNoticeId: state.nextNoticeId + 1 };
+      return { ...state, notices: addNotice(state.notices, { id: state.nextNoticeId, level: action.level, text: action.text, ...(action.cause !== undefined ? { cause: action.cause } : {}) }), nextNoticeId: state.nextNoticeId + 1 };
     case 'notice/dismiss':
       return { ...state, notices: state.notices.filter((notice) => notice.id !== action.id) };
     case 'project/saved':

@@ -7,6 +7,7 @@ import type { LocatedEvent } from '../../core/pipeline';
 import type { ProjectDocument } from '../../core/project';
 import type { MapFix, MapHyperbola, MapMicrophone, MapOverlay } from '../map';
 import { maxOf, minOf } from '../../core/units';
+import { slidingMaximum } from './lagPooling';
 
 export function mapMicrophones(document: ProjectDocument): MapMicrophone[] {
   return document.array.microphones.map((m) => ({ label: m.label, channel: m.channel, eastMeters: m.eastMeters, northMeters: m.northMeters, upMeters: m.upMeters }));
@@ -62,6 +63,19 @@ function overlaySquare(mics: readonly { eastMeters: number; northMeters: number 
 
 const PRECISION_TIMING_SIGMA_SECONDS = 50e-6;
 
+/**
+ * Scales `values` in place so the largest finite one is 1 (the minimum is left where it falls, so 0 keeps meaning no
+ * coherent power); returns the index of that largest value, or undefined when none is finite and positive.
+ */
+export function normaliseToPeak(values: Float64Array): number | undefined {
+  let best = -1;
+  for (let k = 0; k < values.length; k++) if (Number.isFinite(values[k]!) && (best < 0 || values[k]! > values[best]!)) best = k;
+  if (best < 0 || !(values[best]! > 0)) return undefined;
+  const peak = values[best]!;
+  for (let k = 0; k < values.length; k++) values[k] = values[k]! / peak;
+  return best;
+}
+
 /** Expected 1-sigma horizontal error over the array's surroundings for a given arrival-time sigma (CRLB). */
 export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond: number, cells = 120): MapOverlay | undefined {
   const mics = document.array.microphones;
@@ -83,7 +97,10 @@ export function precisionOverlay(document: ProjectDocument, speedMetersPerSecond
   };
 }
 
-/** Steered-response power (SRP-PHAT, DiBiase 2000) of the selected sound over the array's surroundings, from its pair correlations. */
+/**
+ * Steered-response power (SRP-PHAT, DiBiase 2000) of the selected event over the array's surroundings, from its pair
+ * correlations pooled over each cell's lags (Cobos et al. 2011), normalised to its peak (1 at the peak, which is marked).
+ */
 export function srpOverlay(document: ProjectDocument, plots: CorrelationPlots | undefined, speedMetersPerSecond: number, planeUpMeters: number, cells = 150): MapOverlay | undefined {
   const mics = document.array.microphones;
   if (plots === undefined || mics.length < 3 || plots.pairs.length === 0) return undefined;
@@ -92,12 +109,20 @@ export function srpOverlay(document: ProjectDocument, plots: CorrelationPlots | 
     const grid = srpGridFromBounds({ minEastMeters, maxEastMeters, minNorthMeters, maxNorthMeters, minUpMeters: planeUpMeters, maxUpMeters: planeUpMeters }, { east: cells, north: cells });
     const plan = createSrpPlan({ microphones: mics, speedMetersPerSecond, grid });
     const values = new Float64Array(plan.pointCount);
-    srpMap(plan, plots.pairs.map((pair) => ({ indexA: pair.indexA, indexB: pair.indexB, sampleRateHz: pair.sampleRateHz, values: pair.values, zeroLagIndex: pair.maxLagFrames })), values);
+    // A cell spans delays up to its diagonal over c either side of its centre's (the delay's gradient is at most 2/c): each
+    // correlation is pooled over those lags, or the sharp PHAT peaks fall between cells and the map is speckle.
+    const cellDiagonalMeters = Math.hypot(grid.east.stepMeters, grid.north.stepMeters);
+    srpMap(plan, plots.pairs.map((pair) => ({ indexA: pair.indexA, indexB: pair.indexB, sampleRateHz: pair.sampleRateHz, values: slidingMaximum(pair.values, (cellDiagonalMeters * pair.sampleRateHz) / speedMetersPerSecond), zeroLagIndex: pair.maxLagFrames })), values);
+    const peak = normaliseToPeak(values);
+    if (peak === undefined) return undefined;
+    const i = peak % grid.east.count;
+    const j = Math.floor(peak / grid.east.count);
     return {
       kind: 'srp',
       grid: { firstEastMeters: grid.east.firstMeters, stepEastMeters: grid.east.stepMeters, countEast: grid.east.count, firstNorthMeters: grid.north.firstMeters, stepNorthMeters: grid.north.stepMeters, countNorth: grid.north.count },
       values,
-      unitLabel: 'relative SRP-PHAT of the selected sound',
+      unitLabel: 'SRP-PHAT of the selected event, normalised to its peak',
+      peak: { eastMeters: grid.east.firstMeters + i * grid.east.stepMeters, northMeters: grid.north.firstMeters + j * grid.north.stepMeters },
     };
   } catch {
     return undefined;

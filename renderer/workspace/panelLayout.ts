@@ -1,4 +1,5 @@
-// Sizes of the workspace's panels around the map (left: array and settings, right: events and fix log, bottom: recording),
+// Sizes of the workspace's panels around the map (left: array and settings, right: events and fix log, bottom: recording
+// under the left panel and the map),
 // their defaults for a window and their limits, so the map always keeps the larger share. Pixels (CSS). Pure.
 
 export interface PanelLayout {
@@ -25,13 +26,13 @@ function clamp(value: number, low: number, high: number): number {
 
 /**
  * Defaults: the microphone table (label, east, north, up, sigma, remove) needs about 410 px, the fix log's key columns about
- * 380 px; the recording gets 40 % of the height up to 330 px (three lanes at 720 px), the map the rest: the largest panel.
+ * 380 px; the recording, under the map and the left panel, gets 40 % of the height up to 290 px (three lanes at 720 px), the map the rest: the largest panel.
  */
 export function defaultPanelLayout(widthPixels: number, heightPixels: number): PanelLayout {
   return clampPanelLayout({
     leftPixels: widthPixels >= 1400 ? 410 : 330,
     rightPixels: widthPixels >= 1400 ? 380 : 340,
-    bottomPixels: Math.round(clamp(0.4 * heightPixels, 250, 330)),
+    bottomPixels: Math.round(clamp(0.4 * heightPixels, 250, 290)),
     leftOpen: true,
     rightOpen: true,
     bottomOpen: true,

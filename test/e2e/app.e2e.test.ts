@@ -35,8 +35,8 @@ async function mapCanvasChecksum(page: Page): Promise<number> {
 }
 
 async function firstFixX(page: Page): Promise<string> {
-  // Columns: #, time, verdict, status, x (m), ...
-  return (await page.locator('[data-testid="event-row-1"] td').nth(4).textContent()) ?? '';
+  // Columns: #, time, verdict · status, x (m), ...
+  return (await page.locator('[data-testid="event-row-1"] td').nth(3).textContent()) ?? '';
 }
 
 describe.runIf(run)('the app in a browser', () => {
@@ -56,7 +56,7 @@ describe.runIf(run)('the app in a browser', () => {
     const rows = await demoLoaded(page);
     expect(rows).toBeGreaterThanOrEqual(15);
     expect(await page.locator('[data-testid^="map-fix-"]').count()).toBeGreaterThanOrEqual(15);
-    await expect.poll(() => page.locator('[data-testid="event-row-1"] .status').textContent()).toBe('fixed');
+    await expect.poll(() => page.locator('[data-testid="event-row-1"] .status').textContent()).toBe('ok');
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/01-demo-opened.png` });
   }, 120_000);
 
@@ -191,7 +191,7 @@ describe.runIf(run)('the app in a browser', () => {
     // Six microphones make 15 pairs, each with its correlation card, and six autocorrelations (the demo's array).
     await expect.poll(() => page.locator('[data-testid^="correlation-pair-"]').count(), { timeout: 15_000 }).toBe(15);
     expect(await page.locator('[data-testid^="autocorrelation-"]').count()).toBe(6);
-    expect(await page.locator('[data-testid="correlations-view"] .cv-facts').textContent()).toMatch(/15 pairs, \d+ used in the fix/);
+    expect(await page.locator('[data-testid="correlations-view"] .cv-facts').textContent()).toMatch(/15 pairs, \d+ kept \(\d+ dropped\) → \d+ independent delays used in the fix/);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-correlations.png` });
 
     // The cautions, as the README states them (DEVELOPERS.md, "Cautions").
@@ -205,13 +205,13 @@ describe.runIf(run)('the app in a browser', () => {
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-safety.png` });
 
     // The demo's air: 14 °C, 85 % RH, 100.9 kPa (assets/demo/scenario.ts), so Cramer's speed, to the 0.01 m/s shown.
-    await page.locator('[data-testid="tab-conditions"]').click();
+    await page.locator('[data-testid="tab-settings"]').click();
     const speed = page.locator('[data-testid="settings-speed"]');
     await speed.waitFor({ state: 'visible', timeout: 5_000 });
     const demoSpeed = speedOfSoundAirCramer({ temperatureCelsius: 14, relativeHumidityPercent: 85, pressureKilopascals: 100.9 }).speedMetersPerSecond;
     expect(await speed.locator('strong').textContent()).toBe(`${demoSpeed.toFixed(2)} m/s`);
     expect(await speed.getAttribute('data-stale')).toBe('false');
-    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-conditions.png` });
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/07-tab-settings.png` });
 
     // Map layers: each draws a raster on the map's canvas and a legend of its own values.
     await page.locator('[data-testid="event-row-3"]').click();
@@ -219,7 +219,7 @@ describe.runIf(run)('the app in a browser', () => {
     await page.locator('[data-testid="map-layer"]').selectOption('srp');
     const legend = page.locator('[data-testid="map-legend-overlay"]');
     await expect.poll(() => legend.count(), { timeout: 15_000 }).toBe(1);
-    expect(await legend.locator('.map-legend-title').textContent()).toBe('relative SRP-PHAT of the selected sound');
+    expect(await legend.locator('.map-legend-title').textContent()).toBe('SRP-PHAT of the selected event, normalised to its peak');
     const srpRange = [Number(await legend.getAttribute('data-min-value')), Number(await legend.getAttribute('data-max-value'))];
     expect(srpRange.every(Number.isFinite) && srpRange[0]! < srpRange[1]!).toBe(true);
     await expect.poll(() => mapCanvasChecksum(page), { timeout: 10_000 }).not.toBe(withoutLayer);

@@ -4,7 +4,7 @@ import { availableParallelism } from 'node:os';
 import { basename } from 'node:path';
 import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
-import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
+import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
 import { DEFAULT_LOCATE_SETTINGS, locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
@@ -23,9 +23,10 @@ import { readTextFile } from '../readInput';
 
 export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
 
-  Finds each sound in a multichannel WAV/RF64/BW64 recording, measures the time
-  difference of arrival of every microphone pair by GCC, and fixes its position with
-  an uncertainty ellipse. Writes the survey log: CSV to standard output, or --out.
+  Finds each sound in a multichannel WAV/RF64/BW64 recording (an event, numbered from 1),
+  measures the time difference of arrival of every microphone pair by GCC, and fixes its
+  position with an uncertainty ellipse. Writes the survey log, one row per event: CSV to
+  standard output, or --out. Its columns are the app's fix log export's (label and note empty).
 
   --array FILE          microphones: channel (1 = first channel of the recording) and
                         x_m,y_m[,z_m] (local metres) or lat,lon[,alt_m] (WGS84);
@@ -154,7 +155,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
       softwareVersion: WHENCE_VERSION, settings: settingsForLog(settings, values), dimensions: settings.dimensions,
     };
     const records = result.located.map((located) => locatedEventRecord(located, logContext));
-    const notes = [...result.warnings, ...(result.timingNote !== undefined ? [result.timingNote] : []), `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
+    const notes = surveyLogRunNotes(result);
     let text: string;
     if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
     else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
@@ -162,7 +163,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     if (outPath !== undefined) await writeFileAtomic(outPath, text);
     else io.writeStdout(text);
     const fixed = records.filter((record) => record.status === 'ok').length;
-    io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} fixed${records.length > fixed ? `, ${records.length - fixed} without an unambiguous fix (see status and warnings)` : ''}${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
+    io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok${records.length > fixed ? `, ${records.length - fixed} with another status (see the status and warnings columns)` : ''}${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
     if (records.length > 0) {
       io.writeStderr(`verdicts: ${verdictTally(records)} (see the verdict and verdict_reason columns).\n`);
     }

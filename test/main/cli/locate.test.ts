@@ -35,7 +35,7 @@ describe('whence locate', () => {
   it('writes a CSV survey log with one fix per sound, near where the scene put them', () => {
     const run = runCliBinary(['locate', 'site.wav', '--array', 'array.csv', '--sound-speed', '343', '--height', '1.2'], { cwd: folder });
     expect(run.exitCode).toBe(0);
-    expect(run.stderr).toContain('2 events found, 2 fixed');
+    expect(run.stderr).toContain('2 events found, 2 ok');
     expect(run.stderr).toContain('verdicts: 1 firm, 1 doubtful, 0 unusable (see the verdict and verdict_reason columns).');
     const table = readCsv(run.stdout, 'stdout');
     const column = (name: string) => table.header.indexOf(name);

@@ -73,8 +73,18 @@ describe('fixLogExportText()', () => {
     const table = readCsv(result.text, 'log.csv');
     expect(table.header).toEqual(surveyLogColumns(2));
     expect(table.rows.map((row) => row.cells.slice(0, 2))).toEqual([['site.wav', '1'], ['site.wav', '3']]);
-    expect(result.text).toContain('# note: exported from the fix log: 2 accepted fixes of 3');
-    expect(result.text).toContain('# note: event 3 "dog?": far away');
+    // Labels and notes are columns (empty from the command line), never extra head lines (issue 10, defect 6).
+    expect(table.rows.map((row) => [row.cells[table.header.indexOf('label')], row.cells[table.header.indexOf('note')]])).toEqual([['', ''], ['dog?', 'far away']]);
+    expect(result.text).not.toContain('# note:');
+  });
+
+  it('fixLogExportText() heads the log with the run notes whence locate writes, and only for fixes of that run\'s recording', () => {
+    const runNotes = ['timing noise pooled over 3 event(s)', 'scanned 0.000 s to 60.000 s; 3 events found'];
+    const context = { ...surveyContext(squareArray, 2, true), runNotes };
+    const result = fixLogExportText('csv', entries, context);
+    expect(result.ok && result.text.split('\n').filter((line) => line.startsWith('# note:'))).toEqual(runNotes.map((note) => `# note: ${note}`));
+    const other = fixLogExportText('csv', entries.map((entry) => ({ ...entry, recording: { ...entry.recording, name: 'other.wav' } })), context);
+    expect(other.ok && other.text.includes('# note:')).toBe(false);
   });
 
   it('fixLogExportText() writes GeoJSON points and ellipses of the accepted fixes, and asks for an origin without one', () => {

@@ -14,7 +14,7 @@ describe('recoveryTimeText()', () => {
 
   it('recoveryOfferText() names the project, its fixes and the local time, and says the copy is kept until the user chose', () => {
     const text = recoveryOfferText({ savedAtIso: '2026-12-03T14:03:07Z', document: { name: 'Pond', fixes: [1, 2, 3] } }, 'en-GB', 'UTC');
-    expect(text).toBe('Unsaved work on Pond (3 fixes in the log) from 3 Dec 2026, 14:03:07 was kept when Whence last closed. It stays kept until you restore or discard it.');
+    expect(text).toBe('Unsaved work on Pond (3 fixes) from 3 Dec 2026, 14:03:07 was kept when Whence closed; it stays until you restore or discard it.');
     expect(text).not.toContain('T14');
   });
 });
