@@ -13,6 +13,8 @@ export interface FixLogRow {
   id: string;
   /** 1-based event number, as in the survey log's `event` column. */
   eventNumber: number;
+  /** The recording the fix came from (the survey log's `recording` column). */
+  recordingName: string;
   emissionText: string;
   /** Shown when there is no emission time: the first arrival, marked as such. */
   arrivalText: string;
@@ -81,18 +83,21 @@ export function fixLogRows(entries: readonly FixLogEntry[], origin: GeodeticPosi
   return entries.map((entry) => {
     const hasPosition = entry.eastMeters !== undefined && entry.northMeters !== undefined && entry.upMeters !== undefined;
     let latLonText = DASH;
-    if (hasPosition && origin !== undefined) {
-      const g = enuToGeodetic({ eastMeters: entry.eastMeters!, northMeters: entry.northMeters!, upMeters: entry.upMeters! }, origin);
+    // The origin the fix was logged with (its array's), else the one in use (fixes of version 2 files kept none).
+    const fixOrigin = entry.origin ?? origin;
+    if (hasPosition && fixOrigin !== undefined) {
+      const g = enuToGeodetic({ eastMeters: entry.eastMeters!, northMeters: entry.northMeters!, upMeters: entry.upMeters! }, fixOrigin);
       latLonText = `${signed(g.latitudeDegrees, 6)}, ${signed(g.longitudeDegrees, 6)}`;
     }
     const ellipse = entry.ellipse;
     const clock = clockOf(entry.localTime);
     const status = STATUS_TEXT[entry.status];
     const event = located?.get(entry.id);
-    const ratio = event !== undefined ? minPeakRatio(event) : undefined;
+    const ratio = event !== undefined ? minPeakRatio(event) : entry.quality?.minPeakRatio;
     return {
       id: entry.id,
       eventNumber: entry.eventIndex + 1,
+      recordingName: entry.recording.name,
       emissionText: entry.emissionTimeSeconds !== undefined ? entry.emissionTimeSeconds.toFixed(3) : DASH,
       arrivalText: entry.firstArrivalSeconds.toFixed(3),
       clockText: clock.text,

@@ -61,12 +61,17 @@ export function locateReadiness(document: ProjectDocument, recording: { name: st
 /** What the fix log's exports say about the run, with this session's located events by entry id; undefined without a recording or a speed. */
 export function fixLogContextOf(state: Pick<WorkspaceState, 'document' | 'recording' | 'events'>): FixLogContext | undefined {
   const { document, recording } = state;
-  if (recording === undefined) return undefined;
+  // Without an open recording, the one the project names: each logged fix carries its own recording and figures.
+  const reference = document.recording;
+  if (recording === undefined && reference === undefined) return undefined;
   // Only entries of the open recording and the same event: another recording's event 3 is not this one's.
-  const located: Map<string, LocatedEvent> = locatedByEntryId(document.fixes, openRecordingIdentity(recording), state.events);
+  const located: Map<string, LocatedEvent> = recording === undefined ? new Map() : locatedByEntryId(document.fixes, openRecordingIdentity(recording), state.events);
+  const head = recording !== undefined
+    ? { recordingName: recording.name, ...(recording.info.startTime ? { recordingStartTime: recording.info.startTime } : {}), sampleRateHz: recording.info.sampleRateHz }
+    : { recordingName: reference!.name, sampleRateHz: reference!.sampleRateHz };
   try {
     return fixLogContextFor({
-      recordingName: recording.name, ...(recording.info.startTime ? { recordingStartTime: recording.info.startTime } : {}), sampleRateHz: recording.info.sampleRateHz,
+      ...head,
       microphones: document.array.microphones, ...(document.array.origin ? { origin: document.array.origin } : {}), medium: document.medium, settings: document.settings, located,
     });
   } catch {

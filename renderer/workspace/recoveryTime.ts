@@ -10,6 +10,6 @@ export function recoveryTimeText(savedAtIso: string, locale?: string, timeZone?:
 
 /** The recovery offer's sentence: what was kept, from when (local time), and that nothing else opens until the user chose. */
 export function recoveryOfferText(offer: { savedAtIso: string; document?: { name: string; fixes: readonly unknown[] } }, locale?: string, timeZone?: string): string {
-  const what = offer.document === undefined ? 'Unsaved work' : `Unsaved work on ${offer.document.name || 'an untitled project'}${offer.document.fixes.length > 0 ? ` (${offer.document.fixes.length} fix${offer.document.fixes.length === 1 ? '' : 'es'} in the log)` : ''}`;
-  return `${what} from ${recoveryTimeText(offer.savedAtIso, locale, timeZone)} was kept when Whence last closed. It stays kept until you restore or discard it.`;
+  const what = offer.document === undefined ? 'Unsaved work' : `Unsaved work on ${offer.document.name || 'an untitled project'}${offer.document.fixes.length > 0 ? ` (${offer.document.fixes.length} fix${offer.document.fixes.length === 1 ? '' : 'es'})` : ''}`;
+  return `${what} from ${recoveryTimeText(offer.savedAtIso, locale, timeZone)} was kept when Whence closed; it stays until you restore or discard it.`;
 }
