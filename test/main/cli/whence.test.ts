@@ -16,7 +16,7 @@ describe('whence command line', () => {
     const run = await runCliInProcess(['triangulate']);
     expect(run.exitCode).toBe(2);
     expect(run.stderr).toContain("no command 'triangulate'");
-    expect(run.stderr).toContain('info, locate, solve, speed');
+    expect(run.stderr).toContain('info, locate, merge, solve, speed, sync');
     expect(run.stdout).toBe('');
   });
 
