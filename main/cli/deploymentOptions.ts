@@ -52,7 +52,13 @@ export async function openDeploymentFromOptions(values: ParsedCommand['values'],
 /** Head lines of a survey log for a deployment: the table, the time base and one clock line per recorder. */
 export function deploymentHeadNotes(opened: OpenedDeployment): string[] {
   const { recording, sync } = opened;
-  const lines = [`deployment: ${recording.layout.tableName}, ${recording.layout.recorders.length} recorders, ${recording.layout.microphones.length} microphones; time_s from its earliest start ${recording.info.startTime?.isoLocal ?? ''}`];
+  const files = recording.layout.recorders.flatMap((recorder) => recorder.files);
+  const sources = [...new Set(files.map((file) => file.startSource))].map((source) => `${files.filter((file) => file.startSource === source).length} from ${source}`);
+  const gaps = recording.layout.recorders.reduce((count, recorder) => count + recorder.gaps.length, 0);
+  const lines = [
+    `deployment: ${recording.layout.tableName}, ${recording.layout.recorders.length} recorders, ${recording.layout.microphones.length} microphones; time_s from its earliest start ${recording.info.startTime?.isoLocal ?? ''}`,
+    `file start times: ${sources.join(', ')}; ${gaps} gap${gaps === 1 ? '' : 's'} between files (silent, flagged on the events they touch)`,
+  ];
   if (sync === undefined) return [...lines, 'clocks: not fitted (no --calibration): each recorder\'s file stamps taken as true'];
   return [...lines, `clock time base: ${sync.fit.timeBase}`, ...clockFitLines(sync.fit)];
 }
