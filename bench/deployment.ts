@@ -2,7 +2,7 @@
 // recorders, each with its own clock and one file split, a sound every 10 s and calibration clicks at both ends: wall
 // time, real-time factor and peak RSS (GNU time) at two durations, so the memory's flatness with duration shows.
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { writeDeploymentScene } from '../main/simulate';
@@ -16,7 +16,7 @@ try {
   for (const minutes of durations) {
     const seconds = minutes * 60;
     const sub = join(folder, `${minutes}min`);
-    mkdtempSync(sub);
+    mkdirSync(sub);
     const { spec, calibrationIds } = deploymentScene({
       recorderSeconds: seconds, splitSeconds: seconds / 2, calibrationSeconds: [4, 10, 16, seconds - 16, seconds - 10, seconds - 4],
       soundSeconds: Array.from({ length: Math.floor((seconds - 44) / 10) + 1 }, (_, i) => 22 + 10 * i),
