@@ -89,10 +89,19 @@ export function createWebHost(baseUrl = './'): Host {
       };
     },
     writeRecoveryCopy(document) {
+      const savedAtIso = new Date().toISOString();
       try {
-        localStorage.setItem(RECOVERY_KEY, JSON.stringify({ savedAtIso: new Date().toISOString(), text: serializeProjectDocument(document) }));
+        localStorage.setItem(RECOVERY_KEY, JSON.stringify({ savedAtIso, text: serializeProjectDocument(document) }));
       } catch {
-        // Storage full or disabled: the recovery copy is a convenience, the saved file is the record.
+        // Storage full (a site picture of a few MB fills the browser's 5 MB): keep the rest of the work without the
+        // picture; disabled storage: the recovery copy is a convenience, the saved file is the record.
+        if (document.sitePicture === undefined) return Promise.resolve();
+        const { sitePicture: _picture, ...rest } = document;
+        try {
+          localStorage.setItem(RECOVERY_KEY, JSON.stringify({ savedAtIso, text: serializeProjectDocument(rest) }));
+        } catch {
+          // Still too large or disabled.
+        }
       }
       return Promise.resolve();
     },
