@@ -31,6 +31,11 @@ export interface VerdictInput {
   closureRedundancy?: number;
   /** Whether the fix's ellipse was widened to the event's own residual scatter (the pipeline's timing model); default false. */
   ellipseCoversOwnScatter?: boolean;
+  /**
+   * How many times more the pair delays scatter around closure than their correlation sigmas say (the pipeline's
+   * reduction: rms normalised closure residual, at least 1); default 1.
+   */
+  closureScatter?: number;
 }
 
 /** The limits the rules use; DEVELOPERS.md ("Verdicts") says why each. */
@@ -58,6 +63,12 @@ export const VERDICT_LIMITS = Object.freeze({
    */
   slightDisagreementApertureFraction: 0.05,
   slightDisagreementRedundancy: 3,
+  /**
+   * Pair delays that scatter around closure more than this many times their correlation sigmas hold a wrong peak (a
+   * cycle or an echo off at some pair): closure did not choose among the peaks, and the sigma widened to that scatter
+   * treats one wrong arrival as noise spread over all. Right peaks scatter 1-3 times the sigma in the test scenes.
+   */
+  closureScatter: 5,
 });
 
 const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten'];
@@ -158,11 +169,15 @@ export function fixVerdict(input: VerdictInput): Verdict {
     reasons.push(disagreement(arrivals, dropped, microphones));
   }
 
+  // Closure was passed only when the delays close within their correlation sigmas: a test at a sigma already widened to
+  // the closure scatter passes whatever the scatter.
+  const scatterBeyond = !((input.closureScatter ?? 1) <= VERDICT_LIMITS.closureScatter);
+  if (scatterBeyond) reasons.push('The time differences disagree far more than their peaks allow: echoes or a tonal call.');
   const ratios = input.peakToSecondRatios ?? [];
   const echoPairs = ratios.filter((ratio) => !(ratio >= VERDICT_LIMITS.echoPeakRatio)).length;
   // Inside the array, closure with at least one spare pair per microphone picks among close peaks (tonal calls) and was
   // passed; outside it, or with fewer spare pairs, a consistent echo (a mirror source) can pass it too.
-  const closureDecides = inside && redundancy >= microphones.length;
+  const closureDecides = inside && redundancy >= microphones.length && !scatterBeyond;
   if (echoPairs > 0 && echoPairs >= VERDICT_LIMITS.echoPairShare * ratios.length && !closureDecides) reasons.push('Echoes or a tonal call: peaks close in height.');
 
   if (!inside && (long || large)) reasons.push('Outside the array: long ellipse.');

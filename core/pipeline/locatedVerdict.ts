@@ -22,5 +22,7 @@ export function locatedVerdict(located: Pick<LocatedEvent, 'solve' | 'pairs' | '
     closureRedundancy: reduced.closure.degreesOfFreedom,
     // The timing model widened the sigma to the event's own residuals (eventFactor > 1: s² moved up by RSS / r).
     ellipseCoversOwnScatter: (timing?.parts.eventFactor ?? 0) > 1,
+    // The reduction widened the arrival sigma by this factor before the solver and its tests saw it.
+    closureScatter: reduced.scatterFactor,
   });
 }

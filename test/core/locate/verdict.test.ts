@@ -111,6 +111,21 @@ describe('fixVerdict()', () => {
     expect(verdictOf(outside, { peakToSecondRatios: ratios, closureRedundancy: 20 }).reason).toBe('Echoes or a tonal call: peaks close in height.');
   });
 
+  it("says 'the time differences disagree far more than their peaks allow' when the pair delays scatter around closure more than 5 times their correlation sigmas, and then closure no longer excuses close peaks", () => {
+    // The limit (5, this project's choice, DEVELOPERS.md "Verdicts"): right peaks scatter 1-3 times their sigma in the
+    // reverberant test scenes; one peak a cycle or an echo off scatters tens of times (53 in the shallow-water scene's s23).
+    const scatterReason = 'The time differences disagree far more than their peaks allow: echoes or a tonal call.';
+    expect(verdictOf(inside, { closureScatter: 1 }).grade).toBe('firm');
+    expect(verdictOf(inside, { closureScatter: 5 }).grade).toBe('firm');
+    expect(verdictOf(inside, { closureScatter: 5.1 })).toMatchObject({ grade: 'doubtful', reason: scatterReason });
+    expect(verdictOf(inside, { closureScatter: Number.NaN }).grade).toBe('doubtful');
+    // Close peaks with redundancy enough for closure to choose are firm only while the delays close (s23: all ten pairs
+    // below 1.5, six spare pairs for five microphones, scatter 53).
+    const ratios = [1, 1.1, 1.1, 1.01, 1.05, 1.05, 1.13, 1.33, 1.33, 1.04];
+    expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 6, closureScatter: 2 }).grade).toBe('firm');
+    expect(verdictOf(inside, { peakToSecondRatios: ratios, closureRedundancy: 6, closureScatter: 53 }).reasons).toEqual([scatterReason, 'Echoes or a tonal call: peaks close in height.']);
+  });
+
   it('flags a large GDOP, no redundancy and an assumed timing sigma', () => {
     expect(verdictOf(withFix(inside, { gdop: 25 })).reason).toBe('Poor geometry here: small timing errors move it far.');
     expect(verdictOf(withFix(inside, { chiSquare: { ...inside.fix!.chiSquare, degreesOfFreedom: 0 } })).reason).toBe('No spare microphone to cross-check it.');
