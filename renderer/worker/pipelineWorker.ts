@@ -50,6 +50,9 @@ const handlers: Record<string, Handler> = {
   },
   async envelope(_params: Record<string, never>, progress, cancel) {
     const { source, info } = requireRecording();
+    // A ByteSource object of its own, so readFrames gives this pass its own reused buffer and its blocks come from one
+    // stream (renderer/io) even while a spectrogram or a correlation reads elsewhere in the file.
+    const passSource: ByteSource = { ...source };
     // Progress every half per cent at most: a long recording has thousands of blocks, each a re-render of the page.
     let shown = -1;
     const onProgress = (fraction: number) => {
@@ -57,7 +60,7 @@ const handlers: Record<string, Handler> = {
       shown = fraction;
       progress(fraction);
     };
-    return envelopeFromSource(source, info, { onProgress, cancel });
+    return envelopeFromSource(passSource, info, { onProgress, cancel });
   },
   async envelopePreview(_params: Record<string, never>, _progress, cancel) {
     const { source, info } = requireRecording();
