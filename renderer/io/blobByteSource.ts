@@ -6,6 +6,8 @@ import { WhenceError } from '../../core/errors';
 
 /** Largest buffer a stream read fills at a time. */
 const STREAM_BUFFER_BYTES = 4 * 1024 * 1024;
+/** Smaller reads are always slices: a pass reads large blocks, and short reads elsewhere must not move its stream. */
+export const STREAM_MIN_READ_BYTES = 256 * 1024;
 
 /** A byte stream of the blob from `offsetBytes` on, read into `buffer` (handed back by each read) and copied out. */
 interface SequentialReader { reader: ReadableStreamBYOBReader; offsetBytes: number; buffer: ArrayBuffer }
@@ -49,10 +51,11 @@ export function blobByteSource(blob: Blob, name: string): ByteSource {
     read,
     async readInto(offsetBytes: number, target: Uint8Array): Promise<number> {
       const { start, end } = clip(offsetBytes, target.length);
-      const continues = start === lastEndBytes || start === sequential?.offsetBytes;
-      lastEndBytes = end;
       if (end === start) return 0;
-      // A read that continues the last one comes from a stream (a pass over the file); any other is a slice.
+      // A large read that continues the last large one comes from a stream (a pass over the file); any other is a slice.
+      const large = end - start >= STREAM_MIN_READ_BYTES;
+      const continues = large && (start === lastEndBytes || start === sequential?.offsetBytes);
+      if (large) lastEndBytes = end;
       if (!continues || !streamsWork || streaming) {
         const bytes = await read(start, end - start);
         target.set(bytes);
