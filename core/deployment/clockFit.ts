@@ -58,7 +58,7 @@ const PPM = 1e-6;
 const POOR_FIT_FACTOR = 3;
 
 /** Inverse of a symmetric positive definite matrix by Gauss-Jordan elimination with partial pivoting; undefined when singular. */
-function invert(matrix: Float64Array[], size: number): { inverse: Float64Array[] } | { singularAt: number } {
+export function invert(matrix: Float64Array[], size: number): { inverse: Float64Array[] } | { singularAt: number } {
   const a = matrix.map((row) => Float64Array.from(row));
   const inv = Array.from({ length: size }, (_, i) => { const row = new Float64Array(size); row[i] = 1; return row; });
   const scale = Math.max(maxOf(a.map((row, i) => Math.abs(row[i]!))), 1e-300);

@@ -10,4 +10,5 @@ export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from '.
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
 export { microphonesByLabel, syncDeployment, type DeploymentSync } from './syncDeployment';
 export { clockFitJson, clockFitLines } from './clockFitReport';
+export { fitClocksFromSharedSounds, MIN_DRIFT_SPAN_SECONDS, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
 export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';
