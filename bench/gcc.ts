@@ -1,6 +1,7 @@
 // Benchmark: time per microphone pair of GCC-PHAT, one-off (gccPairDelay) and with stored channel spectra (engine).
 import { createGccEngine, gccPairDelay, type PeakInterpolation } from '../core/dsp';
 import { seededRandom } from '../core/locate';
+import { useWasmFft } from '../main/dsp';
 
 function seededNoise(length: number, seed: number): Float64Array {
   const out = new Float64Array(length);
@@ -48,5 +49,8 @@ function benchEngine(): void {
   }
 }
 
+// The FFT backend the command line uses (WHENCE_FFT=fft.js for the pure-JavaScript one).
+const fft = await useWasmFft();
+console.log(`real FFT backend: ${fft.backend}${fft.reason ? ` (${fft.reason})` : ''}`);
 benchGcc();
 benchEngine();

@@ -3,6 +3,7 @@
 import { build } from 'esbuild';
 import { chmod, cp } from 'node:fs/promises';
 import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
 
@@ -16,6 +17,9 @@ async function buildCli() {
   await build({ ...common, entryPoints: [join(root, 'main/cli/bin.ts')], outfile, banner: { js: `#!/usr/bin/env node\n${requireShim}` } });
   await chmod(outfile, 0o755);
   await build({ ...common, entryPoints: [join(root, 'main/pipeline/locateWorker.ts')], outfile: join(root, 'dist/cli/locate-worker.mjs'), banner: { js: requireShim } });
+  // The WebAssembly FFT beside the bundles (main/dsp/wasmFft.ts looks there first).
+  const pffftGlue = createRequire(import.meta.url).resolve('@echogarden/pffft-wasm/simd');
+  await cp(join(dirname(pffftGlue), 'pffft.wasm'), join(root, 'dist/cli/pffft-simd.wasm'));
 }
 
 async function buildElectron() {

@@ -1,6 +1,6 @@
 // FFT plans: one cached plan per power-of-two size, precomputed twiddles and reused scratch buffers.
-// Spectra are interleaved (re, im) Float64Arrays; forward is unscaled, inverse is scaled by 1/N.
-// Backend: npm fft.js (radix-4); real transforms use the N/2-point complex packing of Cooley, Lewis & Welch (1970).
+// Spectra are interleaved (re, im) Float64Arrays; forward is unscaled, inverse is scaled by 1/N. Backend: npm fft.js
+// (radix-4; real transforms by the N/2-point packing of Cooley, Lewis & Welch 1970), or real kernels the host injects.
 import FFT from 'fft.js';
 import { WhenceError } from '../errors';
 
@@ -42,8 +42,38 @@ export function isPowerOfTwo(n: number): boolean {
   return Number.isInteger(n) && n >= 1 && (n & (n - 1)) === 0 && n <= 2 ** 30;
 }
 
+/**
+ * Real transforms of one size, in the half-spectrum layout of FftPlan (bins 0..N/2 interleaved, inverse scaled by 1/N).
+ * A kernel without `forwardRealHalf` leaves the forward transform to fft.js (double precision).
+ */
+export interface RealFftKernel {
+  forwardRealHalf?(input: Float64Array, outputHalfComplex: Float64Array): void;
+  inverseRealHalf(inputHalfComplex: Float64Array, outputReal: Float64Array): void;
+}
+
+/** Real kernels from outside core (e.g. a WebAssembly build the host has loaded); `create` returns undefined for a size it cannot do. */
+export interface RealFftKernels {
+  readonly name: string;
+  create(sizePoints: number): RealFftKernel | undefined;
+}
+
 const largestSizePoints = 2 ** 26;
 const plans = new Map<number, FftPlan>();
+let realKernels: RealFftKernels | undefined;
+
+/**
+ * Real transforms of the plans built from now on come from `kernels` where it has one for the size (fft.js otherwise);
+ * undefined goes back to fft.js. Cached plans are dropped; plans already handed out keep their backend.
+ */
+export function useRealFftKernels(kernels: RealFftKernels | undefined): void {
+  realKernels = kernels;
+  plans.clear();
+}
+
+/** Name of the real-transform backend plans are built with: the injected kernels' name, or 'fft.js'. */
+export function realFftBackendName(): string {
+  return realKernels?.name ?? 'fft.js';
+}
 
 /** The plan for `sizePoints` (a power of two, 2 .. 2^26), built on first use and cached. */
 export function getFftPlan(sizePoints: number): FftPlan {
@@ -56,7 +86,7 @@ export function getFftPlan(sizePoints: number): FftPlan {
         'Round the length up with nextPowerOfTwo() and zero-pad the signal.',
     );
   }
-  const plan = new RadixFourPlan(sizePoints);
+  const plan = new RadixFourPlan(sizePoints, realKernels?.create(sizePoints));
   plans.set(sizePoints, plan);
   return plan;
 }
@@ -83,9 +113,12 @@ class RadixFourPlan implements FftPlan {
   private readonly packed: Float64Array;
   private readonly packedOut: Float64Array;
   private complexScratch: Float64Array | null = null;
+  /** Injected real transforms for this size, used in place of the packing below. */
+  private readonly kernel: RealFftKernel | undefined;
 
-  constructor(sizePoints: number) {
+  constructor(sizePoints: number, kernel: RealFftKernel | undefined) {
     this.sizePoints = sizePoints;
+    this.kernel = kernel;
     this.halfPoints = sizePoints / 2;
     const half = this.halfPoints;
     this.twiddleCos = new Float64Array(half + 1);
@@ -157,6 +190,10 @@ class RadixFourPlan implements FftPlan {
     const m = this.halfPoints;
     checkLength(input, n, 'real input', n);
     checkLength(outputHalfComplex, n + 2, 'half-spectrum output', n);
+    if (this.kernel?.forwardRealHalf) {
+      this.kernel.forwardRealHalf(input, outputHalfComplex);
+      return;
+    }
     const backend = this.half();
     if (!backend) {
       // N = 2: X0 = x0 + x1, X1 = x0 - x1.
@@ -200,6 +237,10 @@ class RadixFourPlan implements FftPlan {
     const m = this.halfPoints;
     checkLength(inputHalfComplex, n + 2, 'half-spectrum input', n);
     checkLength(outputReal, n, 'real output', n);
+    if (this.kernel) {
+      this.kernel.inverseRealHalf(inputHalfComplex, outputReal);
+      return;
+    }
     const backend = this.half();
     if (!backend) {
       outputReal[0] = 0.5 * (inputHalfComplex[0]! + inputHalfComplex[2]!);

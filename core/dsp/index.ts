@@ -1,6 +1,7 @@
 // Public face of core/dsp: FFT plans, filters, spectra, generalized cross-correlation, peak interpolation, autocorrelation.
 // Times in seconds, frequencies in Hz, lags in samples where named so; delays are arrival at A minus arrival at B.
-export { getFftPlan, nextPowerOfTwo, isPowerOfTwo, type FftPlan } from './fft';
+export { getFftPlan, nextPowerOfTwo, isPowerOfTwo, useRealFftKernels, realFftBackendName, type FftPlan, type RealFftKernel, type RealFftKernels } from './fft';
+export { pffftKernels, type PffftModule, type PffftKernelOptions } from './pffftKernels';
 export { hannWindow } from './window';
 export {
   designBiquad,

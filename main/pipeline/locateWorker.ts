@@ -4,6 +4,7 @@ import { readWavInfo } from '../../core/audio';
 import { deploymentRecording, type DeploymentRecording } from '../../core/deployment';
 import { isWhenceError } from '../../core/errors';
 import { locateEvent, recordingAccess } from '../../core/pipeline';
+import { useWasmFft } from '../dsp';
 import { openFileByteSource } from '../io';
 import type { FromWorker, ToWorker, WorkerInit } from './messages';
 import { deploymentFilePath } from './openDeployment';
@@ -12,6 +13,7 @@ async function start(): Promise<void> {
   const port = parentPort;
   if (port === null) throw new Error('locateWorker must run as a worker thread.');
   const init = workerData as WorkerInit;
+  await useWasmFft();
   const deployment = init.deployment;
   const source = deployment === undefined ? await openFileByteSource(init.recordingPath) : undefined;
   const recording = deployment !== undefined

@@ -7,6 +7,7 @@ import { correlationPlots, envelopeFromSource, envelopePreviewFromSource, spectr
 import { locateEvent, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
 import { blobByteSource } from '../io';
 import { proxyByteSource, type ProxyReads } from './proxyByteSource';
+import { useWasmFftInWorker } from './wasmFft';
 import type { FromWorker, ToWorker, WorkerSource } from './protocol';
 
 interface OpenRecording { source: ByteSource; info: WavInfo; recording: RecordingAccess }
@@ -16,6 +17,9 @@ const post = (message: FromWorker, transfer: Transferable[] = []) => scope.postM
 let open: OpenRecording | undefined;
 let proxy: ProxyReads | undefined;
 const cancels = new Map<number, { cancelled: boolean }>();
+// The WebAssembly FFT, loading while the first request is read; every request waits for it (fft.js when it fails).
+// The backend's name is left on the worker's global scope for diagnostics (whenceFftBackend).
+const fftReady = useWasmFftInWorker().then((backend) => { Object.assign(self, { whenceFftBackend: backend }); });
 
 function requireRecording(): OpenRecording {
   if (open === undefined) throw new Error('No recording is open. Open a recording first.');
@@ -114,7 +118,7 @@ scope.addEventListener('message', (event) => {
   }
   const cancel = { cancelled: false };
   cancels.set(requestId, cancel);
-  handler(message.params as never, (progress) => post({ kind: 'progress', requestId, progress }), cancel).then(
+  fftReady.then(() => handler(message.params as never, (progress) => post({ kind: 'progress', requestId, progress }), cancel)).then(
     (result) => post({ kind: 'result', requestId, result }),
     (error: unknown) => post({ kind: 'error', requestId, code: isWhenceError(error) ? error.code : 'internal', message: error instanceof Error ? error.message : String(error) }),
   ).finally(() => cancels.delete(requestId));

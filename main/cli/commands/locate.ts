@@ -8,6 +8,7 @@ import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, survey
 import { parseArrayCsv } from '../../../core/project';
 import { DEFAULT_LOCATE_SETTINGS, locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
+import { useWasmFft } from '../../dsp';
 import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
 import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
@@ -136,6 +137,8 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const workerCount = workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
     const workerPath = bundledWorkerPath();
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(recordingPath, context, workerCount, workerPath);
+    // Locating in this thread (no worker): its correlations use the WebAssembly FFT when it loads (workers load their own).
+    if (pool === undefined) await useWasmFft();
     const progress = progressLine(io);
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
     if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
