@@ -1,9 +1,10 @@
-// Arrival of each calibration sound at every microphone on its recorder's own clock: the loudest onset near the rough time
+// Arrival of each calibration or shared sound at every microphone on its recorder's own clock: the loudest onset near the rough time
 // (band energy in 2 ms frames) at each, then GCC-PHAT against the microphone that heard it best for the sub-sample delay.
 import { createGccEngine, type FrequencyBand } from '../dsp';
 import { median } from '../locate';
 import type { ArrayMicrophone } from '../project';
 import type { CalibrationSound } from './calibrationTable';
+import type { SharedSound } from './sharedSoundTable';
 import type { ClockObservation } from './clockFit';
 import type { DeploymentRecording } from './deploymentRecording';
 
@@ -47,7 +48,7 @@ function coarseOnset(samples: Float32Array, sampleRateHz: number): { onsetFrame:
   return { onsetFrame: onset * frame, peakToMedian: energy[peak]! / background };
 }
 
-export async function measureCalibrationArrivals(recording: DeploymentRecording, microphones: ReadonlyMap<string, ArrayMicrophone>, sounds: readonly CalibrationSound[], options: ArrivalOptions): Promise<CalibrationArrivals> {
+export async function measureCalibrationArrivals(recording: DeploymentRecording, microphones: ReadonlyMap<string, ArrayMicrophone>, sounds: ReadonlyArray<CalibrationSound | SharedSound>, options: ArrivalOptions): Promise<CalibrationArrivals> {
   const { layout } = recording;
   const fs = layout.sampleRateHz;
   const c = options.speedMetersPerSecond;
@@ -59,7 +60,9 @@ export async function measureCalibrationArrivals(recording: DeploymentRecording,
   const warnings: string[] = [];
   const used = layout.microphones.filter((m) => microphones.has(m.label));
   for (const [soundIndex, sound] of sounds.entries()) {
+    // a shared sound's place is unknown: its range is taken as 0 here (the search span covers it) and fitted later
     const ranges = used.map((m) => {
+      if (!('eastMeters' in sound)) return 0;
       const p = microphones.get(m.label)!;
       return Math.hypot(p.eastMeters - sound.eastMeters, p.northMeters - sound.northMeters, p.upMeters - sound.upMeters);
     });
@@ -72,7 +75,7 @@ export async function measureCalibrationArrivals(recording: DeploymentRecording,
     }));
     const heard = used.map((_, i) => i).filter((i) => coarse[i]!.peakToMedian >= MIN_PEAK_TO_MEDIAN);
     for (const i of used.map((_, index) => index).filter((index) => !heard.includes(index))) {
-      warnings.push(`Calibration sound '${sound.label}' (line ${sound.lineNumber}) was not heard clearly at microphone '${used[i]!.label}'${coarse[i]!.silent ? ' (its recorder was not recording all that time: a gap, or before its first file or after its last)' : ''}; that arrival is left out.`);
+      warnings.push(`${'eastMeters' in sound ? 'Calibration' : 'Shared'} sound '${sound.label}' (line ${sound.lineNumber}) was not heard clearly at microphone '${used[i]!.label}'${coarse[i]!.silent ? ' (its recorder was not recording all that time: a gap, or before its first file or after its last)' : ''}; that arrival is left out.`);
     }
     if (heard.length === 0) continue;
     const reference = heard.reduce((a, b) => (coarse[b]!.peakToMedian > coarse[a]!.peakToMedian ? b : a));
@@ -92,7 +95,7 @@ export async function measureCalibrationArrivals(recording: DeploymentRecording,
     measured.push({ i: reference, arrivalSeconds: referenceOnset, sigmaSeconds: measured.length === 0 ? 0.1 / fs : median(measured.map((m) => m.sigmaSeconds)) });
     for (const { i, arrivalSeconds, sigmaSeconds } of measured) {
       const microphone = microphones.get(used[i]!.label)!;
-      const positionSigma = Math.hypot(microphone.surveySigmaMeters, sound.sigmaMeters) / c;
+      const positionSigma = Math.hypot(microphone.surveySigmaMeters, 'sigmaMeters' in sound ? sound.sigmaMeters : 0) / c;
       observations.push({ recorderIndex: used[i]!.recorderIndex, soundIndex, microphone: used[i]!.label, nominalArrivalSeconds: arrivalSeconds, rangeSeconds: ranges[i]! / c, sigmaSeconds: Math.hypot(sigmaSeconds, positionSigma) });
     }
   }

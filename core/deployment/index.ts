@@ -8,7 +8,8 @@ export { fitClocks, type ClockFitInput, type ClockFitResult, type ClockObservati
 export { deploymentRecording, originStartTime, type DeploymentRecording, type OpenDeploymentFile } from './deploymentRecording';
 export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from './calibrationTable';
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
-export { microphonesByLabel, syncDeployment, type DeploymentSync } from './syncDeployment';
+export { DEFAULT_OFFSET_SIGMA_SECONDS, microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
+export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
 export { clockFitJson, clockFitLines } from './clockFitReport';
 export { fitClocksFromSharedSounds, MIN_DRIFT_SPAN_SECONDS, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
 export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';

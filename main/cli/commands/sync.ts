@@ -1,5 +1,5 @@
-// `whence sync --deployment D.csv --array A.csv --calibration C.csv`: fits every recorder's clock (offset, drift) from the
-// calibration sounds and prints the fit: per recorder offset, drift ppm, their sigmas, residual RMS; per sound its residuals.
+// `whence sync --deployment D.csv --array A.csv --calibration C.csv` (or --shared-sounds S.csv): fits every recorder's clock
+// (offset, drift) and prints the fit: per recorder offset, drift ppm, their sigmas, residual RMS; per sound its residuals.
 import { basename } from 'node:path';
 import { clockFitJson, describeStartSources } from '../../../core/deployment';
 import { parseArrayCsv } from '../../../core/project';
@@ -12,12 +12,14 @@ import { chooseSpeed } from '../mediumOptions';
 import { optionalString, parseCommandArgs, UsageError } from '../parse';
 import { readTextFile } from '../readInput';
 
-export const syncHelp = `whence sync --deployment D.csv --array A.csv --calibration C.csv [options]
+export const syncHelp = `whence sync --deployment D.csv --array A.csv (--calibration C.csv | --shared-sounds S.csv) [options]
 
   Fits each recorder's clock, t_true = t_start + (1 + drift) t_rec + offset, from
   calibration sounds made at surveyed points: measures every sound's arrival at every
   microphone, then offsets and drifts by weighted least squares. One recorder is the
   reference (offset 0, drift 0) unless the calibration table gives emitted_at times.
+  Without calibration sounds, --shared-sounds fits the clocks jointly with the places
+  and times of sounds every recorder heard (needs sounds spread over the recording).
 
 ${deploymentHelp}  --array FILE          microphones (labels as in the deployment table) and positions
   --sound-speed M_S     speed of sound, or --medium/--temperature as for 'whence locate'
@@ -31,7 +33,7 @@ export async function runSync(argv: string[], io: CliIo): Promise<number> {
   if (positionals.length > 0) throw new UsageError(`whence sync takes no recording; give --deployment TABLE.csv. Got '${positionals[0]}'.`);
   const arrayPath = optionalString(values, 'array');
   if (arrayPath === undefined) throw new UsageError('whence sync needs --array ARRAY.csv (the microphones, labelled as in the deployment table).');
-  if (optionalString(values, 'calibration') === undefined) throw new UsageError('whence sync needs --calibration CALIBRATION.csv (time,x_m,y_m,z_m of the sounds made on purpose).');
+  if (optionalString(values, 'calibration') === undefined && optionalString(values, 'shared-sounds') === undefined) throw new UsageError('whence sync needs --calibration CALIBRATION.csv (time,x_m,y_m,z_m of the sounds made on purpose) or, without them, --shared-sounds SOUNDS.csv (rough times of sounds every recorder heard).');
   const outPath = optionalString(values, 'out');
   if (outPath !== undefined && values.json === true) throw new UsageError('give either --json (standard output) or --out FILE, not both.');
   const speed = chooseSpeed(values);
@@ -45,19 +47,23 @@ export async function runSync(argv: string[], io: CliIo): Promise<number> {
     const asJson = values.json === true || (outPath !== undefined && outPath.toLowerCase().endsWith('.json'));
     let text: string;
     if (asJson) {
-      text = JSON.stringify({ deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...clockFitJson(fit, sync!.observations) }, null, 2) + '\n';
+      const json = clockFitJson(fit, sync!.observations) as { sounds: Array<Record<string, unknown>> };
+      const positions = sync!.soundPositions;
+      if (positions !== undefined) json.sounds = json.sounds.map((sound, k) => ({ ...sound, fittedEastMeters: positions[k]!.eastMeters, fittedNorthMeters: positions[k]!.northMeters, fittedUpMeters: positions[k]!.upMeters }));
+      text = JSON.stringify({ deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...json }, null, 2) + '\n';
     } else {
       const rows: Array<readonly [string, string]> = fit.recorders.map((r) => [r.name, `${r.reference ? 'reference  ' : ''}offset ${r.clock.offsetSeconds.toFixed(6)} s ± ${(r.offsetSigmaSeconds * 1e6).toFixed(1)} µs, drift ${(r.clock.drift * 1e6).toFixed(3)} ± ${(r.driftSigma * 1e6).toFixed(3)} ppm, residual RMS ${(r.residualRmsSeconds * 1e6).toFixed(1)} µs (${r.observationCount} arrivals)${r.warnings.length > 0 ? '  POOR FIT' : ''}`]);
       const soundRows = fit.sounds.map((sound, k) => {
         const residuals = sync!.observations.map((obs, index) => ({ obs, index })).filter(({ obs }) => obs.soundIndex === k).map(({ obs, index }) => `${obs.microphone} ${(fit.residualsSeconds[index]! * 1e6).toFixed(1)}`);
-        return [sound.label, `emitted ${sound.emittedSeconds.toFixed(6)} s; residuals µs: ${residuals.join(', ')}`] as const;
+        const at = sync!.soundPositions?.[k];
+        return [sound.label, `emitted ${sound.emittedSeconds.toFixed(6)} s${at !== undefined ? ` at ${at.eastMeters.toFixed(2)}, ${at.northMeters.toFixed(2)}, ${at.upMeters.toFixed(2)} m` : ''}; residuals µs: ${residuals.join(', ')}`] as const;
       });
       text = [
         `deployment ${basename(optionalString(values, 'deployment')!)}: ${recording.layout.recorders.length} recorders, time 0 = ${recording.info.startTime?.isoLocal ?? '?'}`,
         'start times:', ...sources.map((line) => `  ${line}`),
         `time base: ${fit.timeBase}`,
         'clocks:', formatTable(rows).trimEnd(),
-        'calibration sounds:', formatTable(soundRows).trimEnd(),
+        sync!.soundPositions !== undefined ? 'shared sounds (places fitted):' : 'calibration sounds:', formatTable(soundRows).trimEnd(),
         `chi-square ${fit.chiSquare.toFixed(1)} on ${fit.degreesOfFreedom} degrees of freedom; sigmas scaled by ${fit.sigmaScale.toFixed(2)}`,
         ...fit.warnings.map((warning) => `warning: ${warning}`),
       ].join('\n') + '\n';

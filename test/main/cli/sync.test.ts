@@ -1,8 +1,11 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { clockRelativeTo } from '../../../core/deployment';
+import { writeDeploymentScene, type WrittenDeployment } from '../../../main/simulate';
 import { runCliInProcess } from '../../helpers/cli';
+import { DEPLOYMENT_CLOCKS, deploymentScene } from '../../helpers/deploymentScenes';
 
 const folder = mkdtempSync(join(tmpdir(), 'whence-sync-cli-'));
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
@@ -38,4 +41,53 @@ describe('whence sync and locate --deployment refusals', () => {
     expect(refused.exitCode).toBe(1);
     expect(refused.stderr).toMatch(/does not start with a Whence survey log head/);
   });
+});
+
+describe('whence sync --shared-sounds (clocks fitted with the places of sounds every recorder heard)', () => {
+  // the deployment scene of test/e2e/deployment.test.ts (invented), its calibration clicks listed by rough time only, plus
+  // six more clicks inside the array; the frequency-modulated calls (odd test sounds) fall between them, outside every search span
+  const scene = deploymentScene({ recorderSeconds: 110, splitSeconds: 40, calibrationSeconds: [4, 10, 16, 92, 98, 104], soundSeconds: [22, 36, 28, 40, 50, 64, 56, 68, 80, 72, 86] });
+  // the test clicks made as loud as the calibration clicks (+10 dB): quieter ones are not picked out of a 6 s search span
+  scene.spec.scene.sources = scene.spec.scene.sources.map((source) => (scene.soundIds.includes(source.id) && source.kind === 'click' ? { ...source, levelDb: 10 } : source));
+  const sharedSeconds = [4, 10, 16, 92, 98, 104, 22, 28, 50, 56, 80, 86];
+  let written: WrittenDeployment;
+  let sharedPath: string;
+  beforeAll(async () => {
+    mkdirSync(join(folder, 'shared'));
+    written = await writeDeploymentScene(scene.spec, join(folder, 'shared'), { origin: { dayMilliseconds: Date.UTC(2026, 4, 14), secondsOfDay: 5 * 3600 } });
+    sharedPath = join(folder, 'shared', 'shared.csv');
+    writeFileSync(sharedPath, `time\n${sharedSeconds.join('\n')}\n`);
+  }, 120_000);
+
+  it('recovers every clock within 20 µs and 0.5 ppm of the truth (on the reference recorder\'s time)', async () => {
+    const run = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath, '--sound-speed', '343', '--json']);
+    expect(run.exitCode, run.stderr).toBe(0);
+    const fit = JSON.parse(run.stdout) as { recorders: Array<{ offsetSeconds: number; driftPpm: number; offsetSigmaSeconds: number }>; sounds: Array<{ fittedEastMeters: number; fittedNorthMeters: number }>; timeBase: string };
+    expect(fit.timeBase).toMatch(/shared sounds/);
+    const errors = fit.recorders.map((recorder, r) => {
+      const truth = clockRelativeTo(DEPLOYMENT_CLOCKS[r]!, DEPLOYMENT_CLOCKS[0]!);
+      return { offset: Math.abs(recorder.offsetSeconds - truth.offsetSeconds), drift: Math.abs(recorder.driftPpm - truth.drift * 1e6) };
+    });
+    for (const error of errors) {
+      expect(error.offset).toBeLessThan(20e-6); // issue 9's bound
+      expect(error.drift).toBeLessThan(0.5); // issue 9's bound
+    }
+  }, 120_000);
+
+  it('refuses --calibration with --shared-sounds, and --offset-sigma without --shared-sounds (usage, exit 2)', async () => {
+    const both = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath, '--calibration', sharedPath]);
+    expect(both.exitCode).toBe(2);
+    expect(both.stderr).toMatch(/either --calibration .* or --shared-sounds/);
+    const prior = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--calibration', sharedPath, '--offset-sigma', '1']);
+    expect(prior.exitCode).toBe(2);
+    expect(prior.stderr).toMatch(/--offset-sigma .* give --shared-sounds/);
+  });
+
+  it('refuses sounds all at one time with too few of them, saying how many are needed (exit 1)', async () => {
+    const few = join(folder, 'shared', 'few.csv');
+    writeFileSync(few, 'time\n4\n10\n');
+    const run = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', few, '--sound-speed', '343']);
+    expect(run.exitCode).toBe(1);
+    expect(run.stderr).toMatch(/arrivals for .* unknowns.*at least \d+ shared sounds/);
+  }, 60_000);
 });
