@@ -2,6 +2,7 @@
 // semi-axes; select one to see it on the map and its correlations; log its fix (words as in DEVELOPERS.md's glossary).
 import type { Verdict } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
+import { signedFixed } from '../map';
 import { VERDICT_STYLES } from '../verdict';
 
 export interface EventsPanelProps {
@@ -53,8 +54,8 @@ export function EventsPanel({ events, verdicts, selectedIndex, loggedEventIndice
                       </>
                     )}
                   </td>
-                  <td className="num">{fix ? fix.eastMeters.toFixed(2) : '–'}</td>
-                  <td className="num">{fix ? fix.northMeters.toFixed(2) : '–'}</td>
+                  <td className="num">{fix ? signedFixed(fix.eastMeters, 2) : '–'}</td>
+                  <td className="num">{fix ? signedFixed(fix.northMeters, 2) : '–'}</td>
                   <td className="num axes">{fix ? `${fix.ellipse.semiMajorMeters.toFixed(2)} × ${fix.ellipse.semiMinorMeters.toFixed(2)}` : '–'}</td>
                   <td>{logged ? <span className="muted logged-mark" data-testid={`event-logged-${index}`} title="logged: its fix is in the fix log" aria-label="logged">✓</span> : <button type="button" className="small" onClick={(event) => { event.stopPropagation(); onLog([index]); }} data-testid={`event-log-${index}`}>Log</button>}</td>
                 </tr>
