@@ -53,6 +53,38 @@ function solveSmall(matrix: Float64Array[], vector: Vec): Vec | undefined {
   return Float64Array.from(inverted.inverse, (row) => row.reduce((sum, v, j) => sum + v * vector[j]!, 0));
 }
 
+function medianOf(values: number[]): number {
+  const sorted = [...values].sort((x, y) => x - y);
+  const middle = Math.floor(sorted.length / 2);
+  return sorted.length % 2 === 1 ? sorted[middle]! : (sorted[middle - 1]! + sorted[middle]!) / 2;
+}
+
+/**
+ * Leaves out arrivals that cannot be the same sound as the others: with each recorder's offset taken as the median
+ * arrival difference to the reference recorder, an arrival further from its sound's median than the array's widest
+ * microphone spacing (over c) plus 50 ms was another sound picked in the search span.
+ */
+function withoutWrongPicks(observations: readonly ClockObservation[], recorderCount: number, referenceIndex: number, mics: readonly ArrayMicrophone[], c: number, sounds: ReadonlyArray<{ label: string }>, warnings: string[]): ClockObservation[] {
+  const offsets = Array.from({ length: recorderCount }, (_, r) => {
+    if (r === referenceIndex) return 0;
+    const differences = observations.filter((o) => o.recorderIndex === r).flatMap((own) => {
+      const ref = observations.find((o) => o.soundIndex === own.soundIndex && o.recorderIndex === referenceIndex);
+      return ref === undefined ? [] : [ref.nominalArrivalSeconds - own.nominalArrivalSeconds];
+    });
+    return differences.length === 0 ? 0 : medianOf(differences);
+  });
+  let widestMeters = 0;
+  for (const a of mics) for (const b of mics) widestMeters = Math.max(widestMeters, Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters));
+  const limitSeconds = widestMeters / c + 0.05;
+  const aligned = (o: ClockObservation) => o.nominalArrivalSeconds + offsets[o.recorderIndex]!;
+  return observations.filter((o) => {
+    const middle = medianOf(observations.filter((other) => other.soundIndex === o.soundIndex).map(aligned));
+    if (Math.abs(aligned(o) - middle) <= limitSeconds) return true;
+    warnings.push(`Shared sound '${sounds[o.soundIndex]!.label}' at microphone '${o.microphone}' came ${(aligned(o) - middle).toFixed(3)} s from where the other microphones place it (more than the array's ${(limitSeconds * 1e3).toFixed(0)} ms across): another sound was picked there; that arrival is left out. Keep shared sounds apart from other loud sounds by more than --search.`);
+    return false;
+  });
+}
+
 export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSoundFitResult {
   const { recorders, sounds, microphones, dimensions } = input;
   const c = input.speedMetersPerSecond;
@@ -61,12 +93,13 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
   const soundUpMeters = input.soundUpMeters ?? mics.reduce((sum, m) => sum + m.upMeters, 0) / Math.max(1, mics.length);
   const warnings: string[] = [];
   // sounds heard by too few microphones fix nothing: left out
-  const perSound = sounds.map((_, k) => input.observations.filter((o) => o.soundIndex === k).length);
+  const picked = withoutWrongPicks(input.observations, recorders.length, input.referenceIndex ?? 0, mics, c, sounds, warnings);
+  const perSound = sounds.map((_, k) => picked.filter((o) => o.soundIndex === k).length);
   const usedSound = perSound.map((count) => count >= dimensions + 2);
   for (const [k, sound] of sounds.entries()) {
     if (!usedSound[k]) warnings.push(`Shared sound '${sound.label}' was heard at ${perSound[k]} microphone${perSound[k] === 1 ? '' : 's'}; a sound of unknown position needs at least ${dimensions + 2} (${dimensions}-D): it is left out.`);
   }
-  const observations = input.observations.filter((o) => usedSound[o.soundIndex]);
+  const observations = picked.filter((o) => usedSound[o.soundIndex]);
   // drift columns only for recorders whose sounds span time
   const spanOf = (r: number) => {
     const times = observations.filter((o) => o.recorderIndex === r).map((o) => o.nominalArrivalSeconds);

@@ -77,6 +77,14 @@ describe('fitClocksFromSharedSounds()', () => {
     fit.soundPositions.forEach((p, k) => expect(Math.hypot(p.eastMeters - PLACES[k]![0]!, p.northMeters - PLACES[k]![1]!, p.upMeters - PLACES[k]![2]!)).toBeLessThan(0.01));
   });
 
+  it('leaves out an arrival of another sound (3 s off) with a warning naming it, and still recovers the clocks', () => {
+    const input = simulatedInput(PLACES, TIMES, 0);
+    const observations = input.observations.map((o) => (o.soundIndex === 0 && o.recorderIndex === 2 ? { ...o, nominalArrivalSeconds: o.nominalArrivalSeconds - 3.1 } : o));
+    const fit = fitClocksFromSharedSounds({ ...input, observations });
+    expect(fit.warnings.join(' ')).toMatch(/Shared sound 'S1' at microphone 'M3' came -3\.\d+ s from .*left out/);
+    fit.recorders.forEach((r, i) => expect(Math.abs(r.clock.offsetSeconds - clockRelativeTo(DEPLOYMENT_CLOCKS[i]!, DEPLOYMENT_CLOCKS[0]!).offsetSeconds)).toBeLessThan(3e-6)); // as noise-free above
+  });
+
   it('fixes drifts at 0 with a warning when all sounds come at one time, and still fits the offsets', () => {
     const fit = fitClocksFromSharedSounds(simulatedInput(PLACES, PLACES.map((_, k) => 20 + 0.05 * k), 0));
     expect(fit.warnings.join(' ')).toMatch(/within 1 s of each other.*drifts are not determined and fixed at 0 ppm/);
