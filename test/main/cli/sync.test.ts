@@ -74,6 +74,13 @@ describe('whence sync --shared-sounds (clocks fitted with the places of sounds e
     }
   }, 120_000);
 
+  it('prints the fit as text with each shared sound\'s fitted place', async () => {
+    const run = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath, '--sound-speed', '343']);
+    expect(run.exitCode, run.stderr).toBe(0);
+    expect(run.stdout).toMatch(/time base: recorder 'R1' is the reference .*shared sounds/);
+    expect(run.stdout).toMatch(/shared sounds \(places fitted\):\n\s*S1\s+emitted [\d.]+ s at 20\.0\d, 10\.0\d, 1\.[45]\d m/); // the first calibration place (deploymentScenes.ts)
+  }, 60_000);
+
   it('refuses --calibration with --shared-sounds, and --offset-sigma without --shared-sounds (usage, exit 2)', async () => {
     const both = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath, '--calibration', sharedPath]);
     expect(both.exitCode).toBe(2);
