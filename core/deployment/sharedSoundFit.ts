@@ -35,6 +35,8 @@ export const MIN_DRIFT_SPAN_SECONDS = 1;
 const POOR_FIT_FACTOR = 3;
 /** A clock unknown the data alone fix no better than this fraction of its prior sigma counts as not determined by the sounds. */
 const DATA_SIGMA_OVER_PRIOR = 0.5;
+/** A prior tighter than this (seconds) is taken as knowledge: a clock the sounds fix worse is a warning, not a refusal. */
+const TRUSTED_PRIOR_SECONDS = 0.01;
 
 type Vec = Float64Array;
 
@@ -277,6 +279,11 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
     const dataSigma = Math.sqrt(Math.max(0, dataInverse.inverse[col]![col]!));
     const priorSigma = 1 / Math.sqrt(priorWeight[r]!);
     if (!(dataSigma <= DATA_SIGMA_OVER_PRIOR * priorSigma)) {
+      // a prior of a few milliseconds is a clock the user trusts: the fit then leans on it, and says so
+      if (priorSigma < TRUSTED_PRIOR_SECONDS && Number.isFinite(dataSigma)) {
+        warnings.push(`The shared sounds fix ${describe(col)} only to ±${(dataSigma * 1e6).toFixed(0)} µs; its fitted value comes mostly from its prior ±${(priorSigma * 1e6).toFixed(0)} µs (--offset-sigma).`);
+        continue;
+      }
       throw new WhenceError('clock-fit-underdetermined', `the shared sounds fix ${describe(col)} only to ±${(dataSigma * 1e3).toFixed(1)} ms, no better than its prior ±${(priorSigma * 1e3).toFixed(1)} ms. ${advice}`);
     }
   }

@@ -97,6 +97,13 @@ describe('fitClocksFromSharedSounds()', () => {
     });
   });
 
+  it('with a prior tighter than the sounds can check (1 µs), says the offsets come mostly from it and that the stamps are further off', () => {
+    const input = simulatedInput(PLACES, TIMES, 0);
+    const fit = fitClocksFromSharedSounds({ ...input, recorders: input.recorders.map((r) => ({ ...r, offsetPriorSigmaSeconds: 1e-6 })) });
+    expect(fit.warnings.join(' ')).toMatch(/comes mostly from its prior ±1 µs/);
+    expect(fit.warnings.join(' ')).toMatch(/further off than assumed \(--offset-sigma\)/);
+  });
+
   it('refuses too few sounds, saying how many are needed', () => {
     expectWhenceError(() => fitClocksFromSharedSounds(simulatedInput(PLACES.slice(0, 4), [4, 10, 92, 98], 0)), 'clock-fit-underdetermined', ['24 arrivals for 26 unknowns', 'at least 5 shared sounds']);
   });
