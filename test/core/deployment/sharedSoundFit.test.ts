@@ -77,6 +77,18 @@ describe('fitClocksFromSharedSounds()', () => {
     fit.soundPositions.forEach((p, k) => expect(Math.hypot(p.eastMeters - PLACES[k]![0]!, p.northMeters - PLACES[k]![1]!, p.upMeters - PLACES[k]![2]!)).toBeLessThan(0.01));
   });
 
+  it('in 2-D fits each sound\'s east and north at the given height and recovers the clocks from 3 µs arrivals (offsets within 20 µs, drifts within 0.5 ppm)', () => {
+    const flat = PLACES.map(([e, n]) => [e!, n!, 1.5]);
+    const fit = fitClocksFromSharedSounds({ ...simulatedInput(flat, TIMES, 3e-6), dimensions: 2, soundUpMeters: 1.5 });
+    fit.recorders.forEach((r, i) => {
+      const truth = clockRelativeTo(DEPLOYMENT_CLOCKS[i]!, DEPLOYMENT_CLOCKS[0]!);
+      expect(Math.abs(r.clock.offsetSeconds - truth.offsetSeconds)).toBeLessThan(20e-6); // issue 9's bound
+      expect(Math.abs(r.clock.drift - truth.drift) * 1e6).toBeLessThan(0.5); // issue 9's bound
+    });
+    expect(fit.soundPositions.every((p) => p.upMeters === 1.5)).toBe(true);
+    expect(fit.degreesOfFreedom).toBe(72 - 10 - 12 * 3); // 12 sounds × 6 arrivals − 10 clock unknowns − 3 per sound (computed by hand)
+  });
+
   it('leaves out an arrival of another sound (3 s off) with a warning naming it, and still recovers the clocks', () => {
     const input = simulatedInput(PLACES, TIMES, 0);
     const observations = input.observations.map((o) => (o.soundIndex === 0 && o.recorderIndex === 2 ? { ...o, nominalArrivalSeconds: o.nominalArrivalSeconds - 3.1 } : o));
