@@ -172,7 +172,7 @@ export function fixVerdict(input: VerdictInput): Verdict {
   // Closure was passed only when the delays close within their correlation sigmas: a test at a sigma already widened to
   // the closure scatter passes whatever the scatter.
   const scatterBeyond = !((input.closureScatter ?? 1) <= VERDICT_LIMITS.closureScatter);
-  if (scatterBeyond) reasons.push('The time differences disagree far more than their peaks allow: echoes or a tonal call.');
+  if (scatterBeyond) reasons.push('Delays disagree far beyond what their peaks allow: echoes or a tonal call.');
   const ratios = input.peakToSecondRatios ?? [];
   const echoPairs = ratios.filter((ratio) => !(ratio >= VERDICT_LIMITS.echoPeakRatio)).length;
   // Inside the array, closure with at least one spare pair per microphone picks among close peaks (tonal calls) and was

@@ -135,6 +135,9 @@ describe.runIf(run)('the app in a browser', () => {
   it('exports the log as CSV whose rows match the command line’s', async () => {
     // Back to the demo's own array, then log every fixed sound and export.
     await page.locator('[data-testid="open-demo"]').click();
+    // The array typed and the fix logged above are unsaved work: the Demo button asks before it closes them.
+    await page.locator('[data-testid="confirm-dialog"]').waitFor({ state: 'visible', timeout: 10_000 });
+    await page.locator('[data-testid="confirm-discard"]').click();
     await page.locator('[data-testid="busy"]').waitFor({ state: 'visible', timeout: 10_000 }).catch(() => undefined);
     await page.locator('[data-testid="busy"]').waitFor({ state: 'hidden', timeout: 90_000 });
     await demoLoaded(page);

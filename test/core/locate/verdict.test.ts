@@ -111,10 +111,10 @@ describe('fixVerdict()', () => {
     expect(verdictOf(outside, { peakToSecondRatios: ratios, closureRedundancy: 20 }).reason).toBe('Echoes or a tonal call: peaks close in height.');
   });
 
-  it("says 'the time differences disagree far more than their peaks allow' when the pair delays scatter around closure more than 5 times their correlation sigmas, and then closure no longer excuses close peaks", () => {
+  it("says 'delays disagree far beyond what their peaks allow' when the pair delays scatter around closure more than 5 times their correlation sigmas, and then closure no longer excuses close peaks", () => {
     // The limit (5, this project's choice, DEVELOPERS.md "Verdicts"): right peaks scatter 1-3 times their sigma in the
     // reverberant test scenes; one peak a cycle or an echo off scatters tens of times (53 in the shallow-water scene's s23).
-    const scatterReason = 'The time differences disagree far more than their peaks allow: echoes or a tonal call.';
+    const scatterReason = 'Delays disagree far beyond what their peaks allow: echoes or a tonal call.';
     expect(verdictOf(inside, { closureScatter: 1 }).grade).toBe('firm');
     expect(verdictOf(inside, { closureScatter: 5 }).grade).toBe('firm');
     expect(verdictOf(inside, { closureScatter: 5.1 })).toMatchObject({ grade: 'doubtful', reason: scatterReason });

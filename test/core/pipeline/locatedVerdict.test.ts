@@ -58,6 +58,6 @@ describe('locatedVerdict()', () => {
     expect(locatedVerdict({ ...event, pairs: closePeaks }, geometry).grade).toBe('firm');
     const verdict = locatedVerdict({ ...event, pairs: closePeaks, reduced: { ...event.reduced, scatterFactor: 53 } }, geometry);
     expect(verdict.grade).toBe('doubtful');
-    expect(verdict.reason).toBe('The time differences disagree far more than their peaks allow: echoes or a tonal call.');
+    expect(verdict.reason).toBe('Delays disagree far beyond what their peaks allow: echoes or a tonal call.');
   });
 });

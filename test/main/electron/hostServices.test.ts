@@ -147,11 +147,15 @@ describe('createHostServices(): projects', () => {
     expect(await services.listRecentProjects()).toEqual([]);
   });
 
-  it('keeps unsaved work in the recovery copy, gives it back once, and drops it once that work is saved', async () => {
+  it('keeps unsaved work in the recovery copy until the user restores or discards it, and drops it once that work is saved', async () => {
     const { services, userData } = setUp([], ['p.whence']);
     const document = emptyProjectDocument('unsaved');
     await services.writeRecoveryCopy(document, '/old/place.whence');
-    expect(await services.takeRecoveryCopy()).toMatchObject({ document: { name: 'unsaved' }, projectPath: '/old/place.whence', savedAtIso: '2024-05-14T22:00:00.000Z' });
+    const offered = { document: { name: 'unsaved' }, projectPath: '/old/place.whence', savedAtIso: '2024-05-14T22:00:00.000Z' };
+    expect(await services.takeRecoveryCopy()).toMatchObject(offered);
+    // Reading it is not choosing: a second crash before the user chose offers the same copy again (issue 10, item 9).
+    expect(await services.takeRecoveryCopy()).toMatchObject(offered);
+    await services.discardRecoveryCopy();
     expect(await services.takeRecoveryCopy()).toBeNull();
     await services.writeRecoveryCopy(document);
     await services.saveProject({ document });
