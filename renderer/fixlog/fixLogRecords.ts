@@ -121,11 +121,16 @@ export function fixLogToRecords(entries: readonly FixLogEntry[], context: FixLog
 
 /**
  * The notes at the head of an exported log: those `whence locate` writes for the run (core/export surveyLogRunNotes), when
- * every exported fix comes from the open recording's run; none otherwise. Labels and notes are columns, not head lines.
+ * every exported fix comes from the open recording's run. When some come from other recordings, one note says that the
+ * head's microphone, medium and settings lines are the open project's, not necessarily those the other fixes were
+ * located with (each row keeps its own figures and origin). Labels and notes are columns, not head lines.
  */
 export function fixLogNotes(accepted: readonly FixLogEntry[], context: FixLogContext): string[] {
-  if (context.runNotes === undefined || !accepted.every((entry) => entry.recording.name === context.recordingName)) return [];
-  return [...context.runNotes];
+  const others = [...new Set(accepted.map((entry) => entry.recording.name).filter((name) => name !== context.recordingName))];
+  if (others.length > 0) {
+    return [`fixes of ${others.join('; ')} were located in earlier sessions: the microphone, medium and settings lines above are the project's now${context.recordingName !== '' ? ` (for ${context.recordingName})` : ''}, not necessarily those they were located with; each row keeps its own figures and origin`];
+  }
+  return context.runNotes === undefined ? [] : [...context.runNotes];
 }
 
 /** The log's head names every recording its fixes came from; the start time only when that is the open recording alone. */

@@ -73,6 +73,13 @@ describe('fixLogToRecords() with fixes of two recordings', () => {
     expect(table.header[0]).toBe('recording');
     expect(table.rows.map((row) => row.cells.slice(0, 2))).toEqual([['site.wav', '1'], ['site.wav', '2'], ['pond.wav', '1']]);
     expect(csv.text).toContain('# recording: site.wav; pond.wav');
+    // The head's microphone, medium and settings lines are the open project's: a mixed log says so, naming the other recording
+    // (a reader reproducing the site.wav rows must not take the pond's array for theirs; this project's rule for the log).
+    const headNotes = csv.text.split('\n').filter((line) => line.startsWith('# note:'));
+    expect(headNotes).toHaveLength(1);
+    expect(headNotes[0]).toMatch(/^# note: fixes of site\.wav were located in earlier sessions: the microphone, medium and settings lines above are the project's now \(for pond\.wav\)/);
+    const pondOnly = fixLogExportText('csv', log.filter((entry) => entry.recording.name === pondRecording.name), context);
+    expect(pondOnly.ok && pondOnly.text.includes('earlier sessions')).toBe(false);
     const geo = fixLogExportText('geojson', log, context);
     if (!geo.ok) throw new Error(geo.message);
     const features = (JSON.parse(geo.text) as { features: Array<{ geometry: { coordinates: unknown }; properties: Record<string, unknown> }> }).features;
