@@ -1,8 +1,11 @@
 // Reads a calibration table: sounds made on purpose at surveyed points, `time,x_m,y_m,z_m[,emitted_at][,label][,sigma_m]`;
 // time (rough) and emitted_at (exact emission) as local ISO 8601 times or seconds from the deployment's earliest start.
-import { cellNumber, cellText, CsvError, hasColumn, readCsv, requireColumns } from '../csv';
+import { cellNumber, cellText, CsvError, hasColumn } from '../csv';
 import { printableText } from '../text';
-import { parseLocalInstant, secondsBetween, type LocalInstant } from './localTime';
+import type { LocalInstant } from './localTime';
+import { deploymentSeconds, readRoughSoundRows } from './roughSoundRows';
+
+export { deploymentSeconds } from './roughSoundRows';
 
 export interface CalibrationSound {
   label: string;
@@ -18,26 +21,13 @@ export interface CalibrationSound {
   emittedSeconds?: number;
 }
 
-/** Seconds from `origin` of a cell that holds a local ISO time or a plain number of seconds; undefined when it is neither. */
-export function deploymentSeconds(text: string, origin: LocalInstant): number | undefined {
-  if (/^[+-]?(\d+\.?\d*|\.\d+)$/.test(text)) return Number(text);
-  const instant = parseLocalInstant(text);
-  return instant === undefined ? undefined : secondsBetween(instant, origin);
-}
-
 export function parseCalibrationCsv(text: string, fileName: string, origin: LocalInstant): CalibrationSound[] {
-  const table = readCsv(text, fileName);
-  requireColumns(table, ['time', 'x_m', 'y_m'], 'each calibration sound needs its rough time and surveyed position');
-  if (table.rows.length === 0) throw new CsvError({ fileName }, 'the table has a header but no sounds. Add one row per calibration sound.');
-  const labels = new Set<string>();
-  return table.rows.map((row, index) => {
+  const { table, rows } = readRoughSoundRows(text, fileName, origin, {
+    requiredColumns: ['time', 'x_m', 'y_m'], requiredWhy: 'each calibration sound needs its rough time and surveyed position',
+    soundWords: 'calibration sound', noRows: 'Add one row per calibration sound.', labelPrefix: 'C',
+  });
+  return rows.map(({ row, label, roughSeconds }) => {
     const where = (columnName: string) => ({ fileName, lineNumber: row.lineNumber, columnName });
-    const timeText = cellText(table, row, 'time');
-    const roughSeconds = deploymentSeconds(timeText, origin);
-    if (roughSeconds === undefined) throw new CsvError(where('time'), `'${printableText(timeText, 60)}' is not a time; give the sound's rough local time (YYYY-MM-DDTHH:MM:SS[.fff]) or seconds from the deployment's earliest start.`);
-    const label = cellText(table, row, 'label') || `C${index + 1}`;
-    if (labels.has(label)) throw new CsvError(where('label'), `the label '${printableText(label, 40)}' is used twice; give each calibration sound its own.`);
-    labels.add(label);
     const sigmaMeters = cellNumber(table, row, 'sigma_m', 'metres', true) ?? 0;
     if (!(sigmaMeters >= 0)) throw new CsvError(where('sigma_m'), `a position sigma cannot be negative; got ${sigmaMeters}.`);
     const sound: CalibrationSound = {
