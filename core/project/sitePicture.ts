@@ -1,6 +1,7 @@
 // The site picture saved in a project: a PNG or JPEG (base64) and its affine from pixel centres to local east/north
 // metres about the array origin (ESRI world file convention), with where the placement came from and its opacity.
 import { z } from 'zod';
+import { affineDeterminant } from '../geo';
 
 /** Bounds of a site picture: its encoded bytes (the project holds them as base64, 4/3 as many characters) and its pixels. */
 export const SITE_PICTURE_LIMITS = Object.freeze({
@@ -46,7 +47,7 @@ export const sitePictureSchema = z
     message: `a site picture has at most ${SITE_PICTURE_LIMITS.maxPixels / 1e6} million pixels`,
     path: ['widthPixels'],
   })
-  .refine((picture) => picture.affine.xPerColumn * picture.affine.yPerRow - picture.affine.xPerRow * picture.affine.yPerColumn !== 0, {
+  .refine((picture) => affineDeterminant(picture.affine) !== 0, {
     message: 'the placement maps the picture onto a line (its affine has no area)',
     path: ['affine'],
   });
