@@ -215,16 +215,21 @@ function checkFixIdsUnique(document: { fixes: ReadonlyArray<{ id: string }> }, c
   });
 }
 
+/** The fields every schema version from 2 on has before the fix log, in file order (keys are written in schema order). */
+const documentHeadFields = {
+  name: z.string().max(MAX_LABEL_CHARS),
+  /** The Whence that last saved the file (e.g. "Whence 0.1.0"); set when the document is serialized. */
+  writtenBy: z.string().max(MAX_LABEL_CHARS).optional(),
+  array: arraySchema,
+  medium: mediumSchema,
+  settings: settingsSchema,
+  recording: recordingReferenceSchema.optional(),
+};
+
 export const projectDocumentSchemaV2 = z
   .object({
     schemaVersion: z.literal(2),
-    name: z.string().max(MAX_LABEL_CHARS),
-    /** The Whence that last saved the file (e.g. "Whence 0.1.0"); set when the document is serialized. */
-    writtenBy: z.string().max(MAX_LABEL_CHARS).optional(),
-    array: arraySchema,
-    medium: mediumSchema,
-    settings: settingsSchema,
-    recording: recordingReferenceSchema.optional(),
+    ...documentHeadFields,
     fixes: z.array(fixLogEntrySchemaV2).max(PROJECT_LIMITS.fixes),
     view: mapViewSchema.optional(),
   })
@@ -234,13 +239,7 @@ export const projectDocumentSchemaV2 = z
 export const projectDocumentSchemaV3 = z
   .object({
     schemaVersion: z.literal(3),
-    name: z.string().max(MAX_LABEL_CHARS),
-    /** The Whence that last saved the file (e.g. "Whence 0.1.0"); set when the document is serialized. */
-    writtenBy: z.string().max(MAX_LABEL_CHARS).optional(),
-    array: arraySchema,
-    medium: mediumSchema,
-    settings: settingsSchema,
-    recording: recordingReferenceSchema.optional(),
+    ...documentHeadFields,
     fixes: z.array(fixLogEntrySchema).max(PROJECT_LIMITS.fixes),
     view: mapViewSchema.optional(),
     /** A picture of the site drawn under the map (optional; a file without it loads as before). */
