@@ -1,15 +1,15 @@
 // Recorder deployments: many recorders, each with its own files and clock, read as one recording on one time line.
-export { addSeconds, formatLocalInstant, parseLocalInstant, requireLocalInstant, secondsBetween, type LocalInstant } from './localTime';
+export { addSeconds, formatLocalInstant, parseLocalInstant, secondsBetween, type LocalInstant } from './localTime';
 export { nameTimePattern, type NameTimePattern } from './nameTime';
-export { MAX_DEPLOYMENT_ROWS, parseDeploymentCsv, type DeploymentRow, type DeploymentTable } from './deploymentTable';
+export { parseDeploymentCsv, type DeploymentRow, type DeploymentTable } from './deploymentTable';
 export { describeStartSources, layoutDeployment, type DeploymentFileHeader, type DeploymentLayout, type RecorderFile, type RecorderLayout, type StartSource } from './deploymentLayout';
-export { clockNominalSeconds, clockRelativeTo, clockTrueSeconds, uncorrectedClock, type RecorderClock } from './clockModel';
+export { clockNominalSeconds, clockRelativeTo, clockTrueSeconds, type RecorderClock } from './clockModel';
 export { fitClocks, type ClockFitInput, type ClockFitResult, type ClockObservation, type RecorderClockFit } from './clockFit';
-export { deploymentRecording, originStartTime, type DeploymentRecording, type OpenDeploymentFile } from './deploymentRecording';
+export { deploymentRecording, type DeploymentRecording, type OpenDeploymentFile } from './deploymentRecording';
 export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from './calibrationTable';
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
-export { DEFAULT_OFFSET_SIGMA_SECONDS, microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
+export { microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
 export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
 export { clockFitJson, clockFitLines } from './clockFitReport';
-export { fitClocksFromSharedSounds, MIN_DRIFT_SPAN_SECONDS, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
+export { fitClocksFromSharedSounds, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
 export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';

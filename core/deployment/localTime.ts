@@ -1,7 +1,5 @@
 // Wall-clock instants of a deployment as a calendar day and seconds into it (no time zone: the recorders' local time),
 // so differences keep sub-microsecond precision over years. ISO 8601 text 'YYYY-MM-DDTHH:MM:SS[.ffffff]'.
-import { WhenceError } from '../errors';
-import { printableText } from '../text';
 
 export interface LocalInstant {
   /** Midnight of the day, milliseconds since 1970-01-01 on the proleptic Gregorian calendar (used only as a calendar). */
@@ -30,15 +28,6 @@ export function parseLocalInstant(text: string): LocalInstant | undefined {
   if (dayMilliseconds === undefined) return undefined;
   const fraction = match[7] === undefined ? 0 : Number(`0.${match[7]}`);
   return { dayMilliseconds, secondsOfDay: hours * 3600 + minutes * 60 + seconds + fraction };
-}
-
-/** Like parseLocalInstant, but a WhenceError that names `what` when the text is not a local time. */
-export function requireLocalInstant(text: string, what: string): LocalInstant {
-  const instant = parseLocalInstant(text);
-  if (instant === undefined) {
-    throw new WhenceError('bad-time', `${what}: '${printableText(text, 60)}' is not a local time; write it as YYYY-MM-DDTHH:MM:SS with an optional fraction, e.g. 2026-05-14T05:30:00.250.`);
-  }
-  return instant;
 }
 
 /** a - b in seconds. */

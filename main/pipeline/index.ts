@@ -1,3 +1,3 @@
 // Node side of the locate pipeline: worker threads for the command line.
 export { bundledWorkerPath, createLocatePool, type LocatePool } from './workerPool';
-export { deploymentFilePath, openDeployment } from './openDeployment';
+export { openDeployment } from './openDeployment';
