@@ -63,16 +63,22 @@ export function bandClassOf(located: Pick<LocatedEvent, 'bandHz'>): string {
 export function poolTimingNoise(located: readonly LocatedEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
   const withTiming = located.filter((event) => event.timing !== undefined);
   const model = estimateTimingNoise(withTiming.map((event) => event.timing!.evidence));
+  const evidenceByClass = new Map<string, TimingEvidence[]>();
+  for (const event of withTiming) {
+    const key = bandClassOf(event);
+    const members = evidenceByClass.get(key);
+    if (members === undefined) evidenceByClass.set(key, [event.timing!.evidence]);
+    else members.push(event.timing!.evidence);
+  }
   const classModels = new Map<string, TimingNoiseModel>();
-  for (const key of new Set(withTiming.map(bandClassOf))) {
-    const members = withTiming.filter((event) => bandClassOf(event) === key);
+  for (const [key, members] of evidenceByClass) {
     if (members.length < MIN_CLASS_EVENTS) continue;
-    const classModel = estimateTimingNoise(members.map((event) => event.timing!.evidence));
+    const classModel = estimateTimingNoise(members);
     if (classModel.source === 'pooled') classModels.set(key, classModel);
   }
-  const modelOf = (event: LocatedEvent) => classModels.get(bandClassOf(event)) ?? model;
+  const modelOf = (event: LocatedEvent) => (classModels.size === 0 ? model : classModels.get(bandClassOf(event)) ?? model);
   const classes = [...classModels.entries()].map(([key, m]) => `band class ${key}: ${describeTimingModel(m)}`);
-  const note = classes.length === 0 ? describeTimingModel(model) : `${classes.join('; ')}${classModels.size < new Set(withTiming.map(bandClassOf)).size ? `; other sounds: ${describeTimingModel(model)}` : ''}`;
+  const note = classes.length === 0 ? describeTimingModel(model) : `${classes.join('; ')}${classModels.size < evidenceByClass.size ? `; other sounds: ${describeTimingModel(model)}` : ''}`;
   // Same context as the first pass: each event's timing evidence is reused, only the final solve is repeated.
   return { located: located.map((event) => solveLocatedEvent(event, context, sampleRateHz, modelOf(event), event.timing?.evidence)), model, classModels, note };
 }
