@@ -47,26 +47,25 @@ export async function openDeploymentFromOptions(values: ParsedCommand['values'],
   const recording = await openDeployment(tablePath, nameTimeText !== undefined ? { nameTime: nameTimePattern(nameTimeText) } : {});
   if (calibrationPath === undefined && sharedPath === undefined) return { recording };
   try {
-    if (sharedPath !== undefined) {
-      const sounds = parseSharedSoundsCsv(await readTextFile(sharedPath, 'shared-sound table'), basename(sharedPath), recording.layout.origin);
-      const band = parseBand(bandText);
-      const reference = optionalString(values, 'reference');
-      const dimsText = optionalString(values, 'dims');
-      const height = optionalNumber(values, 'height', 'metres up');
-      const sync = await syncDeploymentFromSharedSounds(recording, geometry, sounds, {
-        speedMetersPerSecond, ...(searchSeconds !== undefined ? { searchSeconds } : {}), ...(band !== undefined ? { bandHz: band } : {}), ...(reference !== undefined ? { referenceRecorder: reference } : {}),
-        ...(offsetSigmaSeconds !== undefined ? { offsetSigmaSeconds } : {}), ...(dimsText !== undefined ? { dimensions: Number(oneOf('dims', dimsText, ['2', '3'] as const, '2')) as 2 | 3 } : {}),
-        ...(height !== undefined ? { soundUpMeters: height } : {}),
-      });
-      for (const warning of sync.warnings) io.writeStderr(`warning: ${warning}\n`);
-      return { recording: recording.withClocks(sync.fit.recorders.map((r) => r.clock)), sync };
-    }
-    const sounds = parseCalibrationCsv(await readTextFile(calibrationPath!, 'calibration table'), basename(calibrationPath!), recording.layout.origin);
     const band = parseBand(bandText);
     const reference = optionalString(values, 'reference');
-    const sync = await syncDeployment(recording, geometry, sounds, {
+    const arrivalOptions = {
       speedMetersPerSecond, ...(searchSeconds !== undefined ? { searchSeconds } : {}), ...(band !== undefined ? { bandHz: band } : {}), ...(reference !== undefined ? { referenceRecorder: reference } : {}),
-    });
+    };
+    let sync: DeploymentSync;
+    if (sharedPath !== undefined) {
+      const sounds = parseSharedSoundsCsv(await readTextFile(sharedPath, 'shared-sound table'), basename(sharedPath), recording.layout.origin);
+      const dimsText = optionalString(values, 'dims');
+      const height = optionalNumber(values, 'height', 'metres up');
+      sync = await syncDeploymentFromSharedSounds(recording, geometry, sounds, {
+        ...arrivalOptions, ...(offsetSigmaSeconds !== undefined ? { offsetSigmaSeconds } : {}),
+        ...(dimsText !== undefined ? { dimensions: Number(oneOf('dims', dimsText, ['2', '3'] as const, '2')) as 2 | 3 } : {}),
+        ...(height !== undefined ? { soundUpMeters: height } : {}),
+      });
+    } else {
+      const sounds = parseCalibrationCsv(await readTextFile(calibrationPath!, 'calibration table'), basename(calibrationPath!), recording.layout.origin);
+      sync = await syncDeployment(recording, geometry, sounds, arrivalOptions);
+    }
     for (const warning of sync.warnings) io.writeStderr(`warning: ${warning}\n`);
     return { recording: recording.withClocks(sync.fit.recorders.map((r) => r.clock)), sync };
   } finally {
