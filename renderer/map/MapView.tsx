@@ -12,7 +12,7 @@ import { fixShapes, type FixShape } from './fixShapes';
 import { mapGrid } from './gridLines';
 import { hyperbolaShapes } from './hyperbolaShapes';
 import { MapCursorReadout, type CursorSink } from './MapCursorReadout';
-import { edgeMarkers, frameArrayAndFixes, scaleShowing } from './mapFraming';
+import { edgeDistanceText, edgeMarkers, frameArrayAndFixes, scaleShowing } from './mapFraming';
 import { MapLegend } from './MapLegend';
 import { MapNorthArrow } from './MapNorthArrow';
 import { MapScale, type MapBounds } from './mapScale';
@@ -571,7 +571,7 @@ export function MapView(props: MapViewProps) {
         ))}
         {offView.map((marker) => (
           <li key={`edge/${marker.ids[0]}`} data-testid={`map-edge-marker-${marker.ids[0]}`} data-ids={marker.ids.join(' ')} data-x-pixels={marker.xPixels} data-y-pixels={marker.yPixels} data-distance-meters={marker.distanceMeters}>
-            {marker.label} off the view, {formatDistance(marker.distanceMeters)} from its centre
+            {marker.label} off the view, {edgeDistanceText(marker.distanceMeters)} from its centre
           </li>
         ))}
         {peakPoint !== null && overlay?.peak !== undefined && (
@@ -687,11 +687,6 @@ function FixMarker({ marker, x, y, arm, colour, widthPixels }: FixMarkerProps) {
       {strokes.map((points, k) => <Line key={`mark-${k}`} points={points} stroke={colour} strokeWidth={widthPixels} lineCap="round" />)}
     </>
   );
-}
-
-/** A distance for an edge marker: metres below 10 km, else kilometres. */
-function formatDistance(distanceMeters: number): string {
-  return distanceMeters < 10_000 ? `${distanceMeters.toFixed(0)} m` : `${(distanceMeters / 1000).toFixed(1)} km`;
 }
 
 /** Map text on a light halo, readable over curves, the grid and the overlay. */

@@ -67,7 +67,8 @@ export interface EdgeMarker {
 const CHARACTER_PIXELS = 6.2;
 const TEXT_HEIGHT_PIXELS = 14;
 
-function distanceText(distanceMeters: number): string {
+/** A distance for an edge marker: metres below 10 km, else kilometres. */
+export function edgeDistanceText(distanceMeters: number): string {
   return distanceMeters < 10_000 ? `${distanceMeters.toFixed(0)} m` : `${(distanceMeters / 1000).toFixed(1)} km`;
 }
 
@@ -103,7 +104,7 @@ export function edgeMarkers(scale: MapScale, fixes: readonly Pick<MapFix, 'id' |
   // Texts inward of their marker, nearest fixes first; a text that would overlap one already placed is left out.
   const placed: Array<{ x0: number; x1: number; y0: number; y1: number }> = [];
   for (const marker of [...result].sort((a, b) => a.distanceMeters - b.distanceMeters)) {
-    const value = `${marker.label} → ${distanceText(marker.distanceMeters)}`;
+    const value = `${marker.label} → ${edgeDistanceText(marker.distanceMeters)}`;
     const width = value.length * CHARACTER_PIXELS;
     const dx = marker.xPixels > cx ? -14 - width : 14;
     const dy = marker.yPixels > cy ? -14 - TEXT_HEIGHT_PIXELS : 8;
