@@ -57,7 +57,7 @@ export const LONG_CHANNEL_GATE: ChannelGate = { leadSeconds: CHANNEL_GATE_LEAD_S
  */
 export const SHORT_CHANNEL_GATE: ChannelGate = { leadSeconds: 0.003, lengthSeconds: 0.003 };
 /** A sound heard longer than this after its last onset (the detector's event) is taken to ring in a reverberant space. */
-export const REVERBERANT_EVENT_SECONDS = 0.25;
+const REVERBERANT_EVENT_SECONDS = 0.25;
 
 /**
  * Whether an event rings on well after its last onset (reverberation): then each channel is gated to its own direct

@@ -15,13 +15,13 @@ export interface PooledTiming {
 }
 
 /** A band class gets its own model from this many events (three parameters); smaller classes use the model of all events. */
-export const MIN_CLASS_EVENTS = 20;
+const MIN_CLASS_EVENTS = 20;
 
 function microseconds(seconds: number): string {
   return `${(seconds * 1e6).toPrecision(3)} µs`;
 }
 
-export function describeTimingModel(model: TimingNoiseModel): string {
+function describeTimingModel(model: TimingNoiseModel): string {
   if (model.source === 'prior') {
     return `timing noise: the correlation sigma (floor 0.1 sample) as it is, without pooling: ${model.eventsUsed} event(s) with ${model.degreesOfFreedomUsed} redundant arrival(s), pooling needs ${MIN_POOLED_EVENTS} events and ${MIN_POOLED_DEGREES_OF_FREEDOM}; each fix's own residuals still widen it when they scatter more`;
   }
@@ -49,7 +49,7 @@ export function solveLocatedEvent(located: LocatedEvent, context: LocateContext,
  * Band class of an event: the octave of its correlation band's centre (geometric mean of the edges) relative to 1 kHz.
  * Sounds of one kind land in one class; their echoes and the correlation's small-error bound fail alike.
  */
-export function bandClassOf(located: Pick<LocatedEvent, 'bandHz'>): string {
+function bandClassOf(located: Pick<LocatedEvent, 'bandHz'>): string {
   const centreHz = Math.sqrt(Math.max(1, located.bandHz.lowHz) * Math.max(1, located.bandHz.highHz));
   const octave = Math.round(Math.log2(centreHz / 1000));
   return `${(1000 * 2 ** octave).toFixed(0)} Hz`;

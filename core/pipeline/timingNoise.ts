@@ -36,7 +36,7 @@ export interface TimingNoiseModel {
 export const MIN_POOLED_DEGREES_OF_FREEDOM = 8;
 export const MIN_POOLED_EVENTS = 3;
 /** Prior degrees of freedom of an event's variance when its own residuals moderate the pooled value (Gelman et al., BDA 3.3). */
-export const EVENT_PRIOR_DEGREES_OF_FREEDOM = 2;
+const EVENT_PRIOR_DEGREES_OF_FREEDOM = 2;
 /** The stated prior: the correlation sigma (with its 0.1-sample floor) as it is. */
 export const PRIOR_TIMING_NOISE: TimingNoiseModel = { scale: 1, reflectedScale: 1, reflectionFloorSeconds: 0, reflectedShare: 0, source: 'prior', eventsUsed: 0, degreesOfFreedomUsed: 0, eventsTrimmed: 0, eventPriorDegreesOfFreedom: EVENT_PRIOR_DEGREES_OF_FREEDOM };
 
