@@ -6,7 +6,7 @@ import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
-import { DEFAULT_LOCATE_SETTINGS, locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocateSettings } from '../../../core/pipeline';
+import { DEFAULT_LOCATE_SETTINGS, locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
 import { useWasmFft } from '../../dsp';
 import { writeFileAtomic } from '../../files';
@@ -102,6 +102,35 @@ export function settingsForLog(settings: LocateSettings, values: ParsedCommand['
   return logged;
 }
 
+/** --workers: a whole number of threads from 0 (locate in this thread) to 64; by default the cores less one, at most 4. */
+export function workerCountFromOptions(values: ParsedCommand['values']): number {
+  const workersOption = optionalNumber(values, 'workers', 'a number of threads');
+  if (workersOption !== undefined && (!Number.isInteger(workersOption) || workersOption < 0 || workersOption > 64)) throw new UsageError(`--workers must be a whole number from 0 to 64; got ${workersOption}.`);
+  return workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
+}
+
+/** Writes a locate run's survey log (to --out atomically, or standard output) and its summary lines on standard error. */
+export async function writeLocateLog(
+  io: CliIo,
+  output: { outPath: string | undefined; outputKind: string; geoJsonOrigin: Parameters<typeof fixesToGeoJson>[1] | undefined },
+  result: { located: readonly LocatedEvent[]; eventsFound: number; warnings: readonly string[] },
+  logContext: SurveyLogContext,
+  notes: string[],
+): Promise<void> {
+  const { outPath, outputKind, geoJsonOrigin } = output;
+  const records = result.located.map((located) => locatedEventRecord(located, logContext));
+  let text: string;
+  if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: logContext.geometry.microphones });
+  else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
+  else text = surveyLogCsv(records, logContext, notes);
+  if (outPath !== undefined) await writeFileAtomic(outPath, text);
+  else io.writeStdout(text);
+  const fixed = records.filter((record) => record.status === 'ok').length;
+  io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok${records.length > fixed ? `, ${records.length - fixed} with another status (see the status and warnings columns)` : ''}${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
+  if (records.length > 0) io.writeStderr(`verdicts: ${verdictTally(records)} (see the verdict and verdict_reason columns).\n`);
+  for (const warning of result.warnings) io.writeStderr(`note: ${warning}\n`);
+}
+
 export async function runLocate(argv: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseCommandArgs('locate', argv, {
     ...fixOptionSpec, array: { type: 'string' }, band: { type: 'string' }, weighting: { type: 'string' }, threshold: { type: 'string' },
@@ -119,8 +148,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
   const speed = chooseSpeed(values);
   const settings = settingsFromOptions(values, speed);
   const origin = parseOrigin(optionalString(values, 'origin'));
-  const workersOption = optionalNumber(values, 'workers', 'a number of threads');
-  if (workersOption !== undefined && (!Number.isInteger(workersOption) || workersOption < 0 || workersOption > 64)) throw new UsageError(`--workers must be a whole number from 0 to 64; got ${workersOption}.`);
+  const workerCount = workerCountFromOptions(values);
   const fromSeconds = optionalNumber(values, 'from', 'seconds');
   const toSeconds = optionalNumber(values, 'to', 'seconds');
 
@@ -134,7 +162,6 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const mapping = mapArrayToRecording(geometry, info.channelCount, basename(recordingPath));
     for (const warning of [...info.warnings, ...geometry.warnings, ...mapping.warnings, ...speed.warnings]) io.writeStderr(`warning: ${warning}\n`);
     const context: LocateContext = { geometry, channelIndexOfMicrophone: mapping.channelIndexOfMicrophone, settings };
-    const workerCount = workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
     const workerPath = bundledWorkerPath();
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(recordingPath, context, workerCount, workerPath);
     // Locating in this thread (no worker): its correlations use the WebAssembly FFT when it loads (workers load their own).
@@ -157,20 +184,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
       medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
       softwareVersion: WHENCE_VERSION, settings: settingsForLog(settings, values), dimensions: settings.dimensions,
     };
-    const records = result.located.map((located) => locatedEventRecord(located, logContext));
-    const notes = surveyLogRunNotes(result);
-    let text: string;
-    if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
-    else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
-    else text = surveyLogCsv(records, logContext, notes);
-    if (outPath !== undefined) await writeFileAtomic(outPath, text);
-    else io.writeStdout(text);
-    const fixed = records.filter((record) => record.status === 'ok').length;
-    io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok${records.length > fixed ? `, ${records.length - fixed} with another status (see the status and warnings columns)` : ''}${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
-    if (records.length > 0) {
-      io.writeStderr(`verdicts: ${verdictTally(records)} (see the verdict and verdict_reason columns).\n`);
-    }
-    for (const warning of result.warnings) io.writeStderr(`note: ${warning}\n`);
+    await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, result, logContext, surveyLogRunNotes(result));
     return 0;
   } finally {
     await pool?.close();

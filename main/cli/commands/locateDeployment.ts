@@ -1,24 +1,21 @@
 // `whence locate --deployment D.csv --array A.csv [--calibration C.csv]`: locates over a recorder deployment read as one
 // recording (core/deployment), optionally over a span (--from/--to: local ISO times or seconds from its earliest start).
-import { availableParallelism } from 'node:os';
 import { basename } from 'node:path';
 import { deploymentSeconds, microphonesByLabel } from '../../../core/deployment';
-import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, type SurveyLogContext } from '../../../core/export';
+import { surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
 import { runPipeline, type LocateContext } from '../../../core/pipeline';
 import { printableText } from '../../../core/text';
 import { WHENCE_VERSION } from '../../../core/version';
-import { writeFileAtomic } from '../../files';
 import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
 import { deploymentHeadNotes, openDeploymentFromOptions } from '../deploymentOptions';
 import { outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
-import { verdictTally } from '../format';
 import type { CliIo } from '../io';
 import { chooseSpeed } from '../mediumOptions';
-import { optionalNumber, optionalString, UsageError, type ParsedCommand } from '../parse';
+import { optionalString, UsageError, type ParsedCommand } from '../parse';
 import { progressLine } from '../progress';
 import { readTextFile } from '../readInput';
-import { settingsForLog, settingsFromOptions } from './locate';
+import { settingsForLog, settingsFromOptions, workerCountFromOptions, writeLocateLog } from './locate';
 
 function spanBound(values: ParsedCommand['values'], name: 'from' | 'to', origin: Parameters<typeof deploymentSeconds>[1]): number | undefined {
   const text = optionalString(values, name);
@@ -36,8 +33,7 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
   const settings = settingsFromOptions(values, speed);
   const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, parseOrigin(optionalString(values, 'origin')));
   const geoJsonOrigin = outputKind === 'geojson' ? requireGeoJsonOrigin(geometry.origin) : undefined;
-  const workersOption = optionalNumber(values, 'workers', 'a number of threads');
-  if (workersOption !== undefined && (!Number.isInteger(workersOption) || workersOption < 0 || workersOption > 64)) throw new UsageError(`--workers must be a whole number from 0 to 64; got ${workersOption}.`);
+  const workerCount = workerCountFromOptions(values);
   const opened = await openDeploymentFromOptions(values, geometry, speed.speedMetersPerSecond, io, optionalString(values, 'band'));
   const { recording } = opened;
   let pool: LocatePool | undefined;
@@ -50,7 +46,6 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     for (const warning of warnings) io.writeStderr(`warning: ${warning}\n`);
     const context: LocateContext = { geometry, channelIndexOfMicrophone: geometry.microphones.map((m) => labels.indexOf(m.label)), settings };
     // Worker threads open the deployment's files themselves, through the same layout and clocks.
-    const workerCount = workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
     const workerPath = bundledWorkerPath();
     const tablePath = optionalString(values, 'deployment')!;
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(tablePath, context, workerCount, workerPath, { tablePath, layout: recording.layout, clocks: [...recording.clocks] });
@@ -71,17 +66,7 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
       medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
       softwareVersion: WHENCE_VERSION, settings: logged, dimensions: settings.dimensions,
     };
-    const records = result.located.map((located) => locatedEventRecord(located, logContext));
-    const notes = [...deploymentHeadNotes(opened), ...result.warnings, ...(result.timingNote !== undefined ? [result.timingNote] : []), `scanned ${result.scannedFromSeconds.toFixed(3)} s to ${result.scannedToSeconds.toFixed(3)} s; ${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found`];
-    let text: string;
-    if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: geometry.microphones });
-    else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
-    else text = surveyLogCsv(records, logContext, notes);
-    if (outPath !== undefined) await writeFileAtomic(outPath, text);
-    else io.writeStdout(text);
-    const fixed = records.filter((record) => record.status === 'ok').length;
-    io.writeStderr(`${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok${outPath !== undefined ? `; wrote ${outPath}` : ''}.\n`);
-    if (records.length > 0) io.writeStderr(`verdicts: ${verdictTally(records)}.\n`);
+    await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, result, logContext, [...deploymentHeadNotes(opened), ...surveyLogRunNotes(result)]);
     return 0;
   } finally {
     await pool?.close();
