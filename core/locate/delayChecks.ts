@@ -1,5 +1,6 @@
 // Consistency checks of pair delays before a fit: the physical limit |tau_ab| <= d_ab / c + tolerance, and triplet
 // closure tau_ab + tau_bc + tau_ca = 0 within the combined sigma (both follow from the definition of a TDOA). Seconds.
+import { microphoneDistanceMeters } from './aperture';
 import { chiSquareQuantile } from './chiSquare';
 import type { DelayMeasurement, Microphone } from './types';
 
@@ -22,10 +23,7 @@ export function physicalLimitViolations(
   const slowest = Math.max(speedMetersPerSecond - 3 * speedSigmaMetersPerSecond, 0.5 * speedMetersPerSecond);
   const out: LimitViolation[] = [];
   delays.forEach((delay, k) => {
-    const a = microphones[delay.indexA];
-    const b = microphones[delay.indexB];
-    const d = Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters);
-    const limitSeconds = d / slowest + toleranceSeconds(k);
+    const limitSeconds = microphoneDistanceMeters(microphones[delay.indexA], microphones[delay.indexB]) / slowest + toleranceSeconds(k);
     if (Math.abs(delay.delaySeconds) > limitSeconds) out.push({ delayIndex: k, limitSeconds });
   });
   return out;

@@ -1,7 +1,7 @@
 // Input checks for solveFix: every number finite, indices in range, options in their domains, no duplicate microphones.
 // Returns sentences naming the field (e.g. `delays[3].delaySeconds`) and what to do; empty when the input is usable.
 import type { DelayMeasurement, Microphone, SolveOptions } from './types';
-import { apertureMeters } from './aperture';
+import { apertureMeters, microphoneDistanceMeters } from './aperture';
 
 function describe(value: unknown): string {
   return typeof value === 'number' ? String(value) : value === undefined ? 'missing' : `a ${typeof value}`;
@@ -115,8 +115,7 @@ export function validateInput(microphones: readonly Microphone[], delays: readon
     for (let j = i + 1; j < microphones.length; j++) {
       const a = microphones[i];
       const b = microphones[j];
-      const gap = Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters);
-      if (gap <= DUPLICATE_DISTANCE_METERS) {
+      if (microphoneDistanceMeters(a, b) <= DUPLICATE_DISTANCE_METERS) {
         problems.push(
           `microphones[${i}] ('${a.label}') and microphones[${j}] ('${b.label}') are at the same position ` +
             `(${a.eastMeters}, ${a.northMeters}, ${a.upMeters}) m: correct the survey or remove one of them.`,
