@@ -10,6 +10,6 @@ export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from '.
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
 export { microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
 export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
-export { clockFitJson, clockFitLines } from './clockFitReport';
+export { clockFitJson, clockFitLines, soundResiduals } from './clockFitReport';
 export { fitClocksFromSharedSounds, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
 export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';

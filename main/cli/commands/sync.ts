@@ -1,7 +1,7 @@
 // `whence sync --deployment D.csv --array A.csv --calibration C.csv` (or --shared-sounds S.csv): fits every recorder's clock
 // (offset, drift) and prints the fit: per recorder offset, drift ppm, their sigmas, residual RMS; per sound its residuals.
 import { basename } from 'node:path';
-import { clockFitJson, describeStartSources } from '../../../core/deployment';
+import { clockFitJson, describeStartSources, soundResiduals } from '../../../core/deployment';
 import { parseArrayCsv } from '../../../core/project';
 import { writeFileAtomic } from '../../files';
 import { deploymentHelp, deploymentOptionSpec, openDeploymentFromOptions } from '../deploymentOptions';
@@ -46,15 +46,17 @@ export async function runSync(argv: string[], io: CliIo): Promise<number> {
     const sources = describeStartSources(recording.layout);
     const asJson = values.json === true || (outPath !== undefined && outPath.toLowerCase().endsWith('.json'));
     let text: string;
+    let data: unknown;
     if (asJson) {
       const json = clockFitJson(fit, sync!.observations) as { sounds: Array<Record<string, unknown>> };
       const positions = sync!.soundPositions;
       if (positions !== undefined) json.sounds = json.sounds.map((sound, k) => ({ ...sound, fittedEastMeters: positions[k]!.eastMeters, fittedNorthMeters: positions[k]!.northMeters, fittedUpMeters: positions[k]!.upMeters }));
-      text = JSON.stringify({ deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...json }, null, 2) + '\n';
+      data = { deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...json };
+      text = JSON.stringify(data, null, 2) + '\n';
     } else {
       const rows: Array<readonly [string, string]> = fit.recorders.map((r) => [r.name, `${r.reference ? 'reference  ' : ''}offset ${r.clock.offsetSeconds.toFixed(6)} s ± ${(r.offsetSigmaSeconds * 1e6).toFixed(1)} µs, drift ${(r.clock.drift * 1e6).toFixed(3)} ± ${(r.driftSigma * 1e6).toFixed(3)} ppm, residual RMS ${(r.residualRmsSeconds * 1e6).toFixed(1)} µs (${r.observationCount} arrivals)${r.warnings.length > 0 ? '  POOR FIT' : ''}`]);
       const soundRows = fit.sounds.map((sound, k) => {
-        const residuals = sync!.observations.map((obs, index) => ({ obs, index })).filter(({ obs }) => obs.soundIndex === k).map(({ obs, index }) => `${obs.microphone} ${(fit.residualsSeconds[index]! * 1e6).toFixed(1)}`);
+        const residuals = soundResiduals(fit, sync!.observations, k).map((r) => `${r.microphone} ${(r.residualSeconds * 1e6).toFixed(1)}`);
         const at = sync!.soundPositions?.[k];
         return [sound.label, `emitted ${sound.emittedSeconds.toFixed(6)} s${at !== undefined ? ` at ${at.eastMeters.toFixed(2)}, ${at.northMeters.toFixed(2)}, ${at.upMeters.toFixed(2)} m` : ''}; residuals µs: ${residuals.join(', ')}`] as const;
       });
@@ -72,7 +74,7 @@ export async function runSync(argv: string[], io: CliIo): Promise<number> {
       await writeFileAtomic(outPath, text);
       io.writeStderr(`wrote ${outPath}\n`);
     } else {
-      io.writeStdout(values.json === true ? jsonForTerminal(JSON.parse(text)) : text);
+      io.writeStdout(values.json === true ? jsonForTerminal(data) : text);
     }
     return 0;
   } finally {

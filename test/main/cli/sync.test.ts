@@ -62,8 +62,10 @@ describe('whence sync --shared-sounds (clocks fitted with the places of sounds e
   it('recovers every clock within 20 µs and 0.5 ppm of the truth (on the reference recorder\'s time)', async () => {
     const run = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath, '--sound-speed', '343', '--json']);
     expect(run.exitCode, run.stderr).toBe(0);
-    const fit = JSON.parse(run.stdout) as { recorders: Array<{ offsetSeconds: number; driftPpm: number; offsetSigmaSeconds: number }>; sounds: Array<{ fittedEastMeters: number; fittedNorthMeters: number }>; timeBase: string };
+    const fit = JSON.parse(run.stdout) as { recorders: Array<{ offsetSeconds: number; driftPpm: number; offsetSigmaSeconds: number; arrivals: number }>; sounds: Array<{ fittedEastMeters: number; fittedNorthMeters: number; residuals: unknown[] }>; timeBase: string };
     expect(fit.timeBase).toMatch(/shared sounds/);
+    // Each arrival's residual is listed once, under its own sound (an identity of the report).
+    expect(fit.sounds.reduce((sum, sound) => sum + sound.residuals.length, 0)).toBe(fit.recorders.reduce((sum, recorder) => sum + recorder.arrivals, 0));
     const errors = fit.recorders.map((recorder, r) => {
       const truth = clockRelativeTo(DEPLOYMENT_CLOCKS[r]!, DEPLOYMENT_CLOCKS[0]!);
       return { offset: Math.abs(recorder.offsetSeconds - truth.offsetSeconds), drift: Math.abs(recorder.driftPpm - truth.drift * 1e6) };
