@@ -158,9 +158,7 @@ export function toSolverMicrophones(geometry: ArrayGeometry): Microphone[] {
  * The span to correlate. The detector's window reaches the array's largest delay beyond the first onset and the last
  * offset, to cover microphones that did not trigger; when every microphone triggered, that reach is not needed.
  */
-function correlationSpan(event: DetectedEvent, context: LocateContext): { startSeconds: number; endSeconds: number } {
-  const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
-  const reachSeconds = maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98);
+function correlationSpan(event: DetectedEvent, onsets: ReadonlyArray<number | undefined>, reachSeconds: number): { startSeconds: number; endSeconds: number } {
   // Onset-gated (./onsetGate.ts): the direct sound at every microphone, not the reverberation after it.
   const gate = event.flags.includes('manual') ? undefined : onsetGatedSpan(onsets, reachSeconds);
   if (gate === undefined) return { startSeconds: event.startSeconds, endSeconds: event.endSeconds };
@@ -199,7 +197,10 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const fs = recording.info.sampleRateHz;
   const warnings: string[] = [];
   const onset = earliestOnset(event, context);
-  const { startSeconds, endSeconds } = correlationSpan(event, context);
+  // Onsets per microphone, and the array's largest delay at the speed taken 2 % low (so slow air still fits).
+  const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
+  const reachSeconds = maxArrayDelaySeconds(context.geometry, context.settings.speedMetersPerSecond * 0.98);
+  const { startSeconds, endSeconds } = correlationSpan(event, onsets, reachSeconds);
   let startFrame = Math.max(0, Math.floor(startSeconds * fs));
   let endFrame = Math.min(recording.info.frameCount, Math.ceil(endSeconds * fs));
   const maxFrames = Math.round(MAX_EVENT_WINDOW_SECONDS * fs);
@@ -230,10 +231,9 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const alignment = recording.windowAlignment?.(startFrame, endFrame - startFrame, onset?.seconds ?? startFrame / fs);
   if (alignment !== undefined && alignment.silentChannels.length > 0) warnings.push(`${alignment.silentChannels.length} microphone${alignment.silentChannels.length === 1 ? ' was' : 's were'} not recording during this event (a gap between files); ${alignment.silentChannels.length === 1 ? 'its pairs were' : 'their pairs were'} left out.`);
   const measureDirect = (channels: Float32Array[]) => chooseDirectPaths(alignPairs(measurePairs(channels, microphones, pairSettings), alignment, context.channelIndexOfMicrophone), microphones.length, referenceIndex, { toleranceSeconds: marginSeconds });
-  const onsets = context.channelIndexOfMicrophone.map((channel) => event.onsetSeconds[channel]);
   let pairs = measureDirect(window);
   const medianPeak = median(pairs.map((pair) => pair.peakValue));
-  if (!event.flags.includes('manual') && medianPeak < REVERBERANT_PEAK_VALUE && soundsReverberant(event.endSeconds, onsets, maxArrayDelaySeconds(context.geometry, pairSettings.speedMetersPerSecond))) {
+  if (!event.flags.includes('manual') && medianPeak < REVERBERANT_PEAK_VALUE && soundsReverberant(event.endSeconds, onsets, reachSeconds)) {
     // A ringing event whose channels hardly cohere (reverberation): each microphone gated to its own direct sound
     // (./onsetGate.ts), first with its first echoes (the long gate), then its first milliseconds only (the short gate,
     // inside the long one, for a sound that starts sharply); closure decides between the sets of pairs: the long gate wins
