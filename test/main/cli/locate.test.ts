@@ -3,20 +3,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readCsv } from '../../../core/csv';
-import type { SceneSpec } from '../../../core/simulate';
 import { writeSceneWav } from '../../../main/simulate';
 import { runCliBinary, runCliInProcess } from '../../helpers/cli';
+import { SQUARE_SITE_ARRAY_WGS84_CSV, squareSiteScene } from '../../helpers/squareSiteScene';
 
-// An invented test scene (core/simulate): four microphones 40 m apart, two sounds inside the array.
-const spec: SceneSpec = {
-  sampleRateHz: 48_000, durationSeconds: 6, seed: 21, speedMetersPerSecond: 343,
-  microphones: [[0, 0, 1], [40, 0, 1.5], [40, 40, 1], [0, 40, 2]].map(([e, n, u], i) => ({ label: `M${i + 1}`, channel: i + 1, eastMeters: e!, northMeters: n!, upMeters: u! })),
-  sources: [
-    { id: 'a', kind: 'fm-call', eastMeters: 12, northMeters: 25, upMeters: 1.2, emissionTimeSeconds: 1.5, levelDb: -8, durationSeconds: 0.2, startFrequencyHz: 2000, endFrequencyHz: 3500 },
-    { id: 'b', kind: 'chirp', eastMeters: 28, northMeters: 10, upMeters: 1.2, emissionTimeSeconds: 3.8, levelDb: -8, startFrequencyHz: 1000, endFrequencyHz: 6000, durationSeconds: 0.1 },
-  ],
-  background: { noiseLevelDb: -60, noiseColor: 'pink' },
-};
+const spec = squareSiteScene;
 
 let folder = '';
 beforeAll(async () => {
@@ -26,7 +17,7 @@ beforeAll(async () => {
   await writeSceneWav({ ...spec, microphones: spec.microphones.slice(0, 3), sources: [] }, join(folder, 'three.wav'), { bitsPerSample: 16 });
   writeFileSync(join(folder, 'array.csv'), 'channel,label,x_m,y_m,z_m,sigma_m\n1,M1,0,0,1,0.02\n2,M2,40,0,1.5,0.02\n3,M3,40,40,1,0.02\n4,M4,0,40,2,0.02\n');
   // The scene's microphones in WGS84, east/north/up of M1 at 51.5° N, 2.5° W (computed by test/reference/cli_reference.py).
-  writeFileSync(join(folder, 'array-geo.csv'), 'channel,label,lat,lon,alt_m,sigma_m\n1,M1,51.5,-2.5,101,0.02\n2,M2,51.499999999,-2.499423977,101.5001,0.02\n3,M3,51.500359518,-2.499423972,101.0003,0.02\n4,M4,51.500359519,-2.5,102.0001,0.02\n');
+  writeFileSync(join(folder, 'array-geo.csv'), SQUARE_SITE_ARRAY_WGS84_CSV);
   writeFileSync(join(folder, 'array-ch9.csv'), 'channel,label,x_m,y_m\n1,M1,0,0\n2,M2,40,0\n9,M9,40,40\n');
   writeFileSync(join(folder, 'broken.wav'), 'RIFF....WAVEjunk');
 });
