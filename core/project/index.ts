@@ -37,6 +37,6 @@ export {
   type ProjectData,
   type ProjectMigration,
 } from './migrations';
-export { recordingIdentityOf, sameRecording } from './recordingIdentity';
+export { sameRecording } from './recordingIdentity';
 export { SITE_PICTURE_LIMITS, sitePictureSchema, type SitePicture } from './sitePicture';
 export { FIX_STATUSES, PROJECT_LIMITS, projectDocumentSchemaV2, projectDocumentSchemaV3 } from './schema';

@@ -8,11 +8,3 @@ export function sameRecording(a: RecordingIdentity, b: RecordingIdentity): boole
   if (a.startTimeIso !== undefined && b.startTimeIso !== undefined && a.startTimeIso !== b.startTimeIso) return false;
   return a.name === b.name;
 }
-
-/** The identity part of a recording reference (what each logged fix keeps). */
-export function recordingIdentityOf(reference: RecordingIdentity): RecordingIdentity {
-  const identity: RecordingIdentity = { name: reference.name, sizeBytes: reference.sizeBytes };
-  if (reference.startTimeIso !== undefined) identity.startTimeIso = reference.startTimeIso;
-  if (reference.contentHash !== undefined) identity.contentHash = reference.contentHash;
-  return identity;
-}

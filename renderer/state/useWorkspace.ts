@@ -5,7 +5,7 @@ import type { WavInfo } from '../../core/audio';
 import type { MenuCommand } from '../../core/contract';
 import { envelopePreviewWorthwhile, type CorrelationPlots, type EnvelopePyramid, type Spectrogram, type SpectrogramRequest } from '../../core/overview';
 import type { LocatedEvent, PipelineProgress, PipelineResult } from '../../core/pipeline';
-import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
+import { emptyProjectDocument, parseArrayCsv, parseProjectDocument, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
 import { fixLogExportText, fixLogFileName, openRecordingIdentity, type FixLogContext, type FixLogExport, type FixLogExportKind } from '../fixlog';
 import { recoveryTimeText } from '../workspace/recoveryTime';
 import { duplicateLocateQuestion, loggedFixesInSpan } from '../workspace/duplicateLocate';
@@ -151,7 +151,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       const current = stateRef.current;
       const reference = current.document.recording;
       const identity = openRecordingIdentity({ name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash });
-      if (reference !== undefined && !sameRecording(recordingIdentityOf(reference), identity)) {
+      if (reference !== undefined && !sameRecording(reference, identity)) {
         if (current.fromDemo) {
           dispatch({ type: 'conditions/reset', leaveDemo: true });
           notify('info', `A new project for ${opened.name}: the demo's conditions, array and name are not carried over (set them for this recording). The demo's fixes stay in the log, each with its recording's name.`);

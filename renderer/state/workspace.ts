@@ -3,7 +3,7 @@
 import type { WavInfo } from '../../core/audio';
 import type { EnvelopePyramid } from '../../core/overview';
 import { locatedVerdict, type LocatedEvent } from '../../core/pipeline';
-import { emptyProjectDocument, recordingIdentityOf, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
+import { emptyProjectDocument, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
 import type { SolveResult } from '../../core/locate';
 import { fixLogEntryFromLocated, loggedEventIndices, openRecordingIdentity } from '../fixlog';
 import { EMPTY_HISTORY, recordEdit, redoEdit, snapshotOf, undoEdit, type EditHistory, type EditSnapshot } from './editHistory';
@@ -88,7 +88,7 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
     case 'document/replace': {
       // The located events belong to the old document's array: they go; the recording stays open only if the new project names it.
       const reference = action.document.recording;
-      const keepRecording = state.recording !== undefined && reference !== undefined && sameRecording(recordingIdentityOf(reference), openRecordingIdentity(state.recording));
+      const keepRecording = state.recording !== undefined && reference !== undefined && sameRecording(reference, openRecordingIdentity(state.recording));
       const session = keepRecording ? {} : { recording: undefined, envelope: undefined, envelopeProgress: undefined };
       return { ...state, ...session, document: action.document, projectPath: action.path, dirty: action.dirty, selectedFixId: undefined, events: [], selectedEventIndex: undefined, selection: undefined, history: EMPTY_HISTORY, fromDemo: action.fromDemo ?? false };
     }
@@ -118,7 +118,7 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
       const recording = { ...openRecordingIdentity(opened), channelCount: info.channelCount, sampleRateHz: info.sampleRateHz, frameCount: info.frameCount };
       // Reopening the project's own recording only completes its identity: nothing the user made has changed.
       const previous = state.document.recording;
-      const same = previous !== undefined && sameRecording(recordingIdentityOf(previous), recordingIdentityOf(recording));
+      const same = previous !== undefined && sameRecording(previous, recording);
       const path = same && previous.path !== undefined ? { path: previous.path } : {};
       return { ...state, recording: opened, envelope: undefined, envelopeProgress: 0, events: [], selectedEventIndex: undefined, selection: undefined, document: { ...state.document, recording: { ...recording, ...path } }, dirty: same ? state.dirty : true };
     }
