@@ -110,6 +110,19 @@ async function checkBesideMicrophones(page: Page, colours: Rgb[], expected: (eas
   return checked;
 }
 
+/**
+ * The quadrant of the pinned picture (turned by `turn` about `centre`) under a ground point: 0 top-left ... 3 bottom-right,
+ * undefined within 1.5 m of a dividing line or past the picture's edges (pixel picks are to 0.1 pixel, 0.05 m).
+ */
+function turnedQuadrant(east: number, north: number, centre: { east: number; north: number }, turn: number): number | undefined {
+  const dx = east - centre.east;
+  const dy = north - centre.north;
+  const right = dx * Math.cos(turn) + dy * Math.sin(turn);
+  const up = -dx * Math.sin(turn) + dy * Math.cos(turn);
+  if (Math.abs(right) < 1.5 || Math.abs(up) < 1.5 || Math.abs(right) > 73 || Math.abs(up) > 48) return undefined;
+  return (up > 0 ? 0 : 2) + (right > 0 ? 1 : 0);
+}
+
 describe.runIf(run)('the site picture under the map', () => {
   let app: WebApp;
   let page: Page;
@@ -218,15 +231,7 @@ describe.runIf(run)('the site picture under the map', () => {
     await page.locator('[data-testid="site-picture-place"]').click();
     await expect.poll(() => page.locator('[data-testid="site-picture-dialog"]').count()).toBe(0);
 
-    const inPicture = (east: number, north: number): number | undefined => {
-      const dx = east - centre.east;
-      const dy = north - centre.north;
-      const right = dx * Math.cos(turn) + dy * Math.sin(turn);
-      const up = -dx * Math.sin(turn) + dy * Math.cos(turn);
-      // Pixel picks are to 0.1 pixel (0.05 m): keep 1.5 m clear of the dividing lines and the edges.
-      if (Math.abs(right) < 1.5 || Math.abs(up) < 1.5 || Math.abs(right) > 73 || Math.abs(up) > 48) return undefined;
-      return (up > 0 ? 0 : 2) + (right > 0 ? 1 : 0);
-    };
+    const inPicture = (east: number, north: number) => turnedQuadrant(east, north, centre, turn);
     await expect.poll(() => checkBesideMicrophones(page, PINNED_COLOURS, inPicture).catch(() => 0), { timeout: 10_000 }).toBeGreaterThanOrEqual(4);
     await page.screenshot({ path: `${SCREENSHOT_FOLDER}/site-05-two-points-placed.png` });
 
@@ -254,14 +259,7 @@ describe.runIf(run)('the site picture under the map', () => {
     await chooser.setFiles(savedProject);
     await fresh.locator('[data-testid="map-site-picture"]').waitFor({ state: 'attached', timeout: 15_000 });
     const turn = Math.PI / 6;
-    const checked = await checkBesideMicrophones(fresh, PINNED_COLOURS, (east, north) => {
-      const dx = east - centre.east;
-      const dy = north - centre.north;
-      const right = dx * Math.cos(turn) + dy * Math.sin(turn);
-      const up = -dx * Math.sin(turn) + dy * Math.cos(turn);
-      if (Math.abs(right) < 1.5 || Math.abs(up) < 1.5 || Math.abs(right) > 73 || Math.abs(up) > 48) return undefined;
-      return (up > 0 ? 0 : 2) + (right > 0 ? 1 : 0);
-    });
+    const checked = await checkBesideMicrophones(fresh, PINNED_COLOURS, (east, north) => turnedQuadrant(east, north, centre, turn));
     expect(checked).toBeGreaterThanOrEqual(4);
     await fresh.screenshot({ path: `${SCREENSHOT_FOLDER}/site-06-reopened.png` });
     // Remove takes it off the map; Put back returns it.
