@@ -5,7 +5,9 @@ import { locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type Lo
 import { prepareScene, renderScene, sceneFrameCount, type SceneSpec } from '../../../core/simulate';
 import { geometryOf } from '../../helpers/sceneRecording';
 
-// Invented scene: four microphones, two calls 3 s apart.
+// Invented scene: four microphones, two calls 3 s apart. Expected values: the two calls the scene holds (so two events,
+// both fixed) and the order of calls this project's pipeline promises (onScanEnd before it waits; common practice for a
+// producer that lends its own thread to the consumers).
 const spec: SceneSpec = {
   sampleRateHz: 48_000, durationSeconds: 8, seed: 2, speedMetersPerSecond: 343,
   microphones: [[0, 0], [30, 0], [30, 30], [0, 30]].map(([e, n], i) => ({ label: `M${i + 1}`, channel: i + 1, eastMeters: e!, northMeters: n!, upMeters: 1.5 })),
