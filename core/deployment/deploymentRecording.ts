@@ -77,6 +77,9 @@ export function deploymentRecording(layout: DeploymentLayout, open: OpenDeployme
     dataLengthBytes: frameCount * 4 * channelCount, frameCount, durationSeconds: frameCount / fs, startTime: originStartTime(layout.origin, fs),
     infoTags: {}, bextDescription: undefined, warnings: [...layout.warnings],
   };
+  /** Per recorder, the deployment channel of each of its microphones. */
+  const channelsOfRecorder: number[][] = layout.recorders.map(() => []);
+  for (const [c, mic] of layout.microphones.entries()) channelsOfRecorder[mic.recorderIndex]![mic.indexInRecorder] = c;
   const openFiles = new Map<string, Promise<ByteSource & { close?(): Promise<void> }>>();
   const inUse = new Map<string, number>();
   async function withSource<T>(file: string, use: (source: ByteSource) => Promise<T>): Promise<T> {
@@ -143,10 +146,7 @@ export function deploymentRecording(layout: DeploymentLayout, open: OpenDeployme
         const given = out?.[c];
         return given !== undefined && given.length >= frames ? given.subarray(0, frames) : new Float32Array(frames);
       });
-      await Promise.all(layout.recorders.map((recorder, r) => {
-        const outs = recorder.microphones.map((_, m) => channels[layout.microphones.findIndex((mic) => mic.recorderIndex === r && mic.indexInRecorder === m)]);
-        return fillRecorder(r, recorderStartFrame(r, first), frames, outs);
-      }));
+      await Promise.all(layout.recorders.map((_, r) => fillRecorder(r, recorderStartFrame(r, first), frames, channelsOfRecorder[r]!.map((c) => channels[c]))));
       return channels;
     },
     windowAlignment(startFrame, count, atSeconds) {

@@ -73,6 +73,18 @@ describe('deploymentRecording()', () => {
     expect(recording.windowAlignment(600, 20, 0.605).silentChannels).toEqual([]);
   });
 
+  it('puts each microphone of a multichannel recorder on its own deployment channel, whatever the table order', async () => {
+    const ramp = Float32Array.from({ length: 1000 }, (_, i) => (i + 1) / 10000);
+    const stereo = encodeWavFile([ramp, ramp.map((v) => -v)], { channelCount: 2, sampleRateHz: FS, bitsPerSample: 32, sampleFormat: 'ieee-float', bext: { description: '', originator: '', originationDate: '2026-05-14', originationTime: '05:00:00', timeReferenceFrames: T0 * FS } });
+    const { layout: l, open } = await layout('recorder,file,file_channel,microphone\nC,c.wav,2,MX\nA,a1.wav,1,MA\nC,c.wav,1,MY\n', undefined, { 'c.wav': stereo });
+    const channels = await deploymentRecording(l, open).readFrames(10, 1);
+    const at = (label: string) => channels[l.microphones.findIndex((m) => m.label === label)]![0];
+    // the samples written above: frame 10 is 11/10000 on file channel 1, its negative on channel 2
+    expect(at('MX')).toBeCloseTo(-11 / 10000, 7);
+    expect(at('MY')).toBeCloseTo(11 / 10000, 7);
+    expect(at('MA')).toBeCloseTo(11 / 10000, 7);
+  });
+
   it('maps deployment time through each clock to the nearest whole frame and reports the fractional remainder as a shift', async () => {
     const { layout: l, open } = await layout();
     const recording = deploymentRecording(l, open, [{ clockStartSeconds: 0, offsetSeconds: 0, drift: 0 }, { clockStartSeconds: 0.5, offsetSeconds: 0.0103, drift: 1e-3 }]);
