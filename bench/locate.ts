@@ -6,6 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { median } from '../core/locate';
 import type { SceneSource, SceneSpec } from '../core/simulate';
 import { writeSceneWav } from '../main/simulate';
 
@@ -35,10 +36,6 @@ function timedRun(command: string, args: string[]): { seconds: number; ok: boole
   return { seconds: Number(process.hrtime.bigint() - started) / 1e9, ok: run.status === 0, stderr: run.stderr ?? String(run.error) };
 }
 
-function middle(values: number[]): number {
-  return [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
-}
-
 /** whence locate and the numpy/scipy reference on the same file, alternating, so both see the same load. */
 function sideBySide(recordingPath: string, arrayPath: string, outPath: string): void {
   const reference = join('bench', 'reference', 'locate_reference.py');
@@ -56,7 +53,7 @@ function sideBySide(recordingPath: string, arrayPath: string, outPath: string): 
     ours.push(a.seconds);
     theirs.push(b.seconds);
   }
-  const [whence, numpy] = [middle(ours), middle(theirs)];
+  const [whence, numpy] = [median(ours), median(theirs)];
   console.log(`  side by side, 1 min: whence ${whence.toFixed(2)} s, numpy/scipy reference ${numpy.toFixed(2)} s wall (medians of 3 alternating runs): ${(numpy / whence).toFixed(1)}x`);
 }
 
