@@ -2,6 +2,7 @@
 // export of the accepted fixes as the survey-log CSV or GeoJSON through core/export's writers.
 import { useRef, useState, type KeyboardEvent, type MouseEvent } from 'react';
 import type { FixLogEntry } from '../../core/project';
+import { VerdictGradeText } from '../verdict';
 import { fixLogExportText, type FixLogContext, type FixLogExportKind } from './fixLogRecords';
 import { fixLogRows, type FixLogRow } from './fixLogRows';
 import './fixlog.css';
@@ -136,7 +137,7 @@ function FixRow({ row, entry, selected, showUp, geo, mixed, onSelect, onUpdate }
         <button type="button" className="fl-link" onClick={select} aria-label={`Show event ${row.eventNumber} of ${row.recordingName}`}>{row.eventNumber}</button>
       </td>
       <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict} title={row.verdictReason}>
-        <span className="fl-verdict-grade"><span className="fl-verdict-symbol" style={{ color: row.verdictColour }} aria-hidden="true">{row.verdictText.slice(0, 1)}</span> {row.verdict}</span>
+        <VerdictGradeText grade={row.verdict} />
         <span className="fl-verdict-reason">{row.verdictReason}</span>
       </td>
       <td className="fl-num">{row.eastText}</td>

@@ -3,7 +3,7 @@
 import type { Verdict } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
 import { signedFixed } from '../map';
-import { VERDICT_STYLES } from '../verdict';
+import { VerdictGradeText } from '../verdict';
 
 export interface EventsPanelProps {
   events: LocatedEvent[];
@@ -48,7 +48,7 @@ export function EventsPanel({ events, verdicts, selectedIndex, loggedEventIndice
                   <td className="verdict" data-testid={`event-verdict-${index}`} data-verdict={verdict?.grade} title={verdict?.reasons.join('\n')}>
                     {verdict !== undefined && (
                       <>
-                        <span className="verdict-grade"><span className="verdict-symbol" style={{ color: VERDICT_STYLES[verdict.grade].colour }} aria-hidden="true">{VERDICT_STYLES[verdict.grade].symbol}</span> {verdict.grade}</span>
+                        <VerdictGradeText grade={verdict.grade} />
                         <span className={`status status-${located.solve.status}`} title={[...located.warnings, ...located.solve.warnings].join('\n')}>{located.solve.status}</span>
                         <span className="verdict-reason">{verdict.reason}</span>
                       </>
