@@ -513,7 +513,7 @@ export function MapView(props: MapViewProps) {
                 <Group key={`edge/${marker.ids[0]}`} x={marker.xPixels} y={marker.yPixels} onClick={() => selectFix(marker.ids[0]!)} onTap={() => selectFix(marker.ids[0]!)}
                   onMouseEnter={() => setHoverCursor('pointer')} onMouseLeave={() => setHoverCursor(null)}>
                   <Circle radius={12} fill="rgba(255,253,248,0.92)" stroke="#5d6b70" strokeWidth={1} />
-                  <Line points={[9, 0, -6, -6.5, -2.5, 0, -6, 6.5]} closed rotation={marker.rotationDegrees} fill={marker.ids.some((id) => fixes.find((f) => f.id === id)?.selected) ? '#d1432f' : '#1d2a2f'} />
+                  <Line points={[9, 0, -6, -6.5, -2.5, 0, -6, 6.5]} closed rotation={marker.rotationDegrees} fill={selectedFix !== undefined && marker.ids.includes(selectedFix.id) ? '#d1432f' : '#1d2a2f'} />
                   {marker.text !== undefined && <HaloText x={marker.text.xPixels} y={marker.text.yPixels} text={marker.text.value} fontSize={11} fill="#1d2a2f" />}
                 </Group>
               ))}
