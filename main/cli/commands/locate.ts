@@ -164,8 +164,9 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const context: LocateContext = { geometry, channelIndexOfMicrophone: mapping.channelIndexOfMicrophone, settings };
     const workerPath = bundledWorkerPath();
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(recordingPath, context, workerCount, workerPath);
-    // Locating in this thread (no worker): its correlations use the WebAssembly FFT when it loads (workers load their own).
-    if (pool === undefined) await useWasmFft();
+    // This thread locates too (with no worker, or the waiting events once the scan is over): its correlations use the
+    // WebAssembly FFT when it loads, as the workers' do (each loads its own), so no event's backend depends on its thread.
+    await useWasmFft();
     const progress = progressLine(io);
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
     if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;

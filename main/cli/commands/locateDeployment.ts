@@ -7,6 +7,7 @@ import { parseArrayCsv } from '../../../core/project';
 import { runPipeline, type LocateContext } from '../../../core/pipeline';
 import { printableText } from '../../../core/text';
 import { WHENCE_VERSION } from '../../../core/version';
+import { useWasmFft } from '../../dsp';
 import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
 import { deploymentHeadNotes, openDeploymentFromOptions } from '../deploymentOptions';
 import { outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
@@ -49,6 +50,8 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     const workerPath = bundledWorkerPath();
     const tablePath = optionalString(values, 'deployment')!;
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(tablePath, context, workerCount, workerPath, { tablePath, layout: recording.layout, clocks: [...recording.clocks] });
+    // Without workers this thread locates: the WebAssembly FFT when it loads, as in the workers and `whence locate`.
+    if (pool === undefined) await useWasmFft();
     const progress = progressLine(io);
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
     if (pool !== undefined) options.locator = pool.locate.bind(pool);
