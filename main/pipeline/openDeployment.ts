@@ -2,15 +2,20 @@
 // file's header (start time, length), lays the files on one time line and gives the streaming virtual recording.
 import { basename, dirname, isAbsolute, resolve } from 'node:path';
 import { readWavInfo } from '../../core/audio';
-import { deploymentRecording, layoutDeployment, parseDeploymentCsv, type DeploymentFileHeader, type DeploymentRecording, type NameTimePattern, type RecorderClock } from '../../core/deployment';
+import { deploymentRecording, layoutDeployment, parseDeploymentCsv, type DeploymentFileHeader, type DeploymentRecording, type NameTimePattern, type OpenDeploymentFile, type RecorderClock } from '../../core/deployment';
 import { WhenceError } from '../../core/errors';
 import { printableText } from '../../core/text';
 import { readSmallTextFile } from '../files';
 import { openFileByteSource } from '../io';
 
 /** Where a file named in the table is: as written when absolute, else relative to the table's folder. */
-export function deploymentFilePath(tablePath: string, file: string): string {
+function deploymentFilePath(tablePath: string, file: string): string {
   return isAbsolute(file) ? file : resolve(dirname(tablePath), file);
+}
+
+/** Opens the table's files (paths as the layout holds them) for the deployment recording. */
+export function deploymentFileOpener(tablePath: string): OpenDeploymentFile {
+  return (file) => openFileByteSource(deploymentFilePath(tablePath, file));
 }
 
 export async function openDeployment(tablePath: string, options: { nameTime?: NameTimePattern; clocks?: readonly RecorderClock[] } = {}): Promise<DeploymentRecording> {
@@ -39,5 +44,5 @@ export async function openDeployment(tablePath: string, options: { nameTime?: Na
     }
   }
   const layout = layoutDeployment(table, headers, options.nameTime);
-  return deploymentRecording(layout, (file) => openFileByteSource(deploymentFilePath(tablePath, file)), options.clocks);
+  return deploymentRecording(layout, deploymentFileOpener(tablePath), options.clocks);
 }
