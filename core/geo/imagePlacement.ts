@@ -66,7 +66,7 @@ function toLocal(frame: PictureFrame, x: number, y: number, origin: GeodeticPosi
 }
 
 /** Checks a placement is a real, nearby picture: finite, not flat, within PICTURE_MAX_DISTANCE_METERS of the origin and across. */
-export function checkPlacement(placement: LocalPlacement, size: PictureSize, name: string, frameText: string): LocalPlacement {
+function checkPlacement(placement: LocalPlacement, size: PictureSize, name: string, frameText: string): LocalPlacement {
   const { affine } = placement;
   const values = Object.values(affine);
   if (!values.every(Number.isFinite) || affineDeterminant(affine) === 0 || !Number.isFinite(placement.cornerMisfitMeters)) {
