@@ -1,6 +1,7 @@
 // Fits recorder clocks (offset, drift) jointly with the unknown positions and emission times of sounds every recorder
 // hears, seconds and metres: Levenberg-Marquardt, sound blocks eliminated by the Schur complement; offset prior as pseudo-observations.
 import { WhenceError } from '../errors';
+import { median } from '../locate';
 import type { ArrayMicrophone } from '../project';
 import { printableText } from '../text';
 import { maxOf, minOf } from '../units';
@@ -55,12 +56,6 @@ function solveSmall(matrix: Float64Array[], vector: Vec): Vec | undefined {
   return Float64Array.from(inverted.inverse, (row) => row.reduce((sum, v, j) => sum + v * vector[j]!, 0));
 }
 
-function medianOf(values: number[]): number {
-  const sorted = [...values].sort((x, y) => x - y);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 === 1 ? sorted[middle]! : (sorted[middle - 1]! + sorted[middle]!) / 2;
-}
-
 /**
  * Leaves out arrivals that cannot be the same sound as the others: with each recorder's offset taken as the median
  * arrival difference to the reference recorder, an arrival further from its sound's median than the array's widest
@@ -73,14 +68,14 @@ function withoutWrongPicks(observations: readonly ClockObservation[], recorderCo
       const ref = observations.find((o) => o.soundIndex === own.soundIndex && o.recorderIndex === referenceIndex);
       return ref === undefined ? [] : [ref.nominalArrivalSeconds - own.nominalArrivalSeconds];
     });
-    return differences.length === 0 ? 0 : medianOf(differences);
+    return differences.length === 0 ? 0 : median(differences);
   });
   let widestMeters = 0;
   for (const a of mics) for (const b of mics) widestMeters = Math.max(widestMeters, Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters));
   const limitSeconds = widestMeters / c + 0.05;
   const aligned = (o: ClockObservation) => o.nominalArrivalSeconds + offsets[o.recorderIndex]!;
   return observations.filter((o) => {
-    const middle = medianOf(observations.filter((other) => other.soundIndex === o.soundIndex).map(aligned));
+    const middle = median(observations.filter((other) => other.soundIndex === o.soundIndex).map(aligned));
     if (Math.abs(aligned(o) - middle) <= limitSeconds) return true;
     warnings.push(`Shared sound '${sounds[o.soundIndex]!.label}' at microphone '${o.microphone}' came ${(aligned(o) - middle).toFixed(3)} s from where the other microphones place it (more than the array's ${(limitSeconds * 1e3).toFixed(0)} ms across): another sound was picked there; that arrival is left out. Keep shared sounds apart from other loud sounds by more than --search.`);
     return false;
