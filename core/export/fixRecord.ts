@@ -14,7 +14,7 @@ function finiteOrUndefined(value: number | undefined): number | undefined {
 }
 
 /** `value` to `digits` significant digits; undefined when it is missing or not finite. */
-function roundSignificant(value: number | undefined, digits: number): number | undefined {
+export function roundSignificant(value: number | undefined, digits: number): number | undefined {
   const finite = finiteOrUndefined(value);
   return finite === undefined ? undefined : Number(finite.toPrecision(digits));
 }

@@ -1,6 +1,6 @@
 // Fix log entries as survey-log records (the columns of `whence locate`), and the accepted ones as CSV or GeoJSON text.
 // Written by core/export's own writers (fixRecord, surveyLogCsv, fixesToGeoJson), so the app's files match the command line's.
-import { fixesToGeoJson, fixRecord, locatedEventRecord, surveyLogCsv, surveyLogMetadata, type FixRecord, type SurveyLogContext } from '../../core/export';
+import { fixesToGeoJson, fixRecord, locatedEventRecord, roundDecimals, roundSignificant, surveyLogCsv, surveyLogMetadata, type FixRecord, type SurveyLogContext } from '../../core/export';
 import { enuToGeodetic, type GeodeticPosition } from '../../core/geo';
 import type { Fix, SolveResult } from '../../core/locate';
 import type { LocatedEvent } from '../../core/pipeline';
@@ -31,20 +31,12 @@ export const COLUMNS_NEEDING_LOCATED_EVENT = [
   'band_snr_db', 'min_peak_ratio', 'median_pair_snr_db', 'channels_triggered', 'event_flags', 'ellipse_terms',
 ] as const;
 
-function rounded(value: number | undefined, decimals: number): number | undefined {
-  return value === undefined || !Number.isFinite(value) ? undefined : Number(value.toFixed(decimals));
-}
-
-function significant(value: number | undefined, digits: number): number | undefined {
-  return value === undefined || !Number.isFinite(value) ? undefined : Number(value.toPrecision(digits));
-}
-
 /** The survey-log columns of the entry's own quality figures, rounded as locatedEventRecord and fixRecord round them. */
 function qualityColumns(entry: FixLogEntry): FixRecord {
   const q = entry.quality ?? {};
   return {
-    min_peak_ratio: rounded(q.minPeakRatio, 2), gdop: significant(q.gdop, 6), chi_square: significant(q.chiSquare, 6), chi_square_dof: q.chiSquareDof,
-    timing_sigma_s: significant(q.timingSigmaSeconds, 6), sigma_source: q.sigmaSource, band_snr_db: rounded(q.bandSnrDb, 1), median_pair_snr_db: rounded(q.medianPairSnrDb, 1),
+    min_peak_ratio: roundDecimals(q.minPeakRatio, 2), gdop: roundSignificant(q.gdop, 6), chi_square: roundSignificant(q.chiSquare, 6), chi_square_dof: q.chiSquareDof,
+    timing_sigma_s: roundSignificant(q.timingSigmaSeconds, 6), sigma_source: q.sigmaSource, band_snr_db: roundDecimals(q.bandSnrDb, 1), median_pair_snr_db: roundDecimals(q.medianPairSnrDb, 1),
     channels_triggered: q.channelsTriggered, pairs_dropped: q.pairsDropped, event_flags: q.eventFlags, ellipse_terms: q.ellipseTerms,
   };
 }
@@ -54,7 +46,7 @@ function entryLatLon(entry: FixLogEntry, fallback: GeodeticPosition | undefined)
   const origin = entry.origin ?? fallback;
   if (origin === undefined || entry.eastMeters === undefined || entry.northMeters === undefined || entry.upMeters === undefined) return {};
   const g = enuToGeodetic({ eastMeters: entry.eastMeters, northMeters: entry.northMeters, upMeters: entry.upMeters }, origin);
-  return { lat: significant(g.latitudeDegrees, 11), lon: significant(g.longitudeDegrees, 11), alt_m: significant(g.heightMeters, 8) };
+  return { lat: roundSignificant(g.latitudeDegrees, 11), lon: roundSignificant(g.longitudeDegrees, 11), alt_m: roundSignificant(g.heightMeters, 8) };
 }
 
 /** The solver result an entry still describes; unknown parts are NaN, which the record writer leaves empty. */
@@ -102,11 +94,11 @@ function entryRecord(entry: FixLogEntry, context: FixLogContext): FixRecord {
     // Entries of version 2 files kept no origin: the project then had one array, whose origin is the one in use.
     Object.assign(record, qualityColumns(entry), entryLatLon(entry, context.geometry.origin), {
       recording: entry.recording.name,
-      time_s: rounded(entry.emissionTimeSeconds, 4),
-      arrival_s: rounded(entry.firstArrivalSeconds, 4),
+      time_s: roundDecimals(entry.emissionTimeSeconds, 4),
+      arrival_s: roundDecimals(entry.firstArrivalSeconds, 4),
       local_time: entry.localTime,
-      band_low_hz: rounded(entry.bandHz?.lowHz, 0),
-      band_high_hz: rounded(entry.bandHz?.highHz, 0),
+      band_low_hz: roundDecimals(entry.bandHz?.lowHz, 0),
+      band_high_hz: roundDecimals(entry.bandHz?.highHz, 0),
     });
   }
   if (entry.label.trim() !== '') record.label = entry.label.trim();
