@@ -17,8 +17,18 @@ export interface SurveyLogSpan {
 /** Two events of overlapping spans within this of each other (first arrival) are one event. */
 const SAME_EVENT_SECONDS = 0.01;
 
+/** A cell as written before formatCsv guarded it against spreadsheet formulas (a leading apostrophe). */
+function unguarded(text: string): string {
+  return text.replace(/^'(?=[=+\-@\t\r])/, '');
+}
+
+/** A CSV head's settings line without the span's own from_s and to_s. */
+function withoutSpanSettings(line: string): string {
+  return line.replace(/,?\s*(from_s|to_s)=[^,]*/g, '');
+}
+
 function headLine(line: string): string {
-  if (line.startsWith('#,')) return readCsv(`x\n${line.slice(2)}`, 'head').rows[0]?.cells.join(',').replace(/^'(?=[=+\-@\t\r])/, '') ?? '';
+  if (line.startsWith('#,')) return unguarded(readCsv(`x\n${line.slice(2)}`, 'head').rows[0]?.cells.join(',') ?? '');
   return line.replace(/^#\s?/, '');
 }
 
@@ -50,7 +60,7 @@ function identity(span: SurveyLogSpan): Array<[string, string]> {
   }
   return span.head.slice(1).filter((line) => !spanOnly(line)).map((line): [string, string] => {
     const key = line.split(':')[0]!;
-    return [key, key === 'settings' ? line.replace(/,?\s*(from_s|to_s)=[^,]*/g, '') : line];
+    return [key, key === 'settings' ? withoutSpanSettings(line) : line];
   });
 }
 
@@ -95,10 +105,10 @@ export function mergeSurveyLogs(spans: readonly SurveyLogSpan[]): MergedSurveyLo
     const { from_s: _from, to_s: _to, ...settings } = first.meta!.settings as Record<string, unknown>;
     return { text: JSON.stringify({ log: { ...first.meta, settings, notes }, fixes }, null, 2) + '\n', eventCount: fixes.length, duplicatesDropped };
   }
-  const head = first.head.filter((line) => !line.startsWith('note: scanned ')).map((line) => (line.startsWith('settings:') ? line.replace(/,?\s*(from_s|to_s)=[^,]*/g, '') : line));
+  const head = first.head.filter((line) => !line.startsWith('note: scanned ')).map((line) => (line.startsWith('settings:') ? withoutSpanSettings(line) : line));
   const rows = fixes.map((fix) => first.columns.map((column) => {
     const value = fix[column];
-    return (value === '' ? undefined : typeof value === 'number' ? value : String(value ?? '').replace(/^'(?=[=+\-@\t\r])/, '')) as CsvValue;
+    return (value === '' ? undefined : typeof value === 'number' ? value : unguarded(String(value ?? ''))) as CsvValue;
   }));
   return { text: formatCsv(first.columns, rows, [...head, `note: ${mergedNote}`, ...spanNotes.map((n) => `note: ${n}`)]), eventCount: fixes.length, duplicatesDropped };
 }
