@@ -11,5 +11,6 @@ export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArriva
 export { microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
 export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
 export { clockFitJson, clockFitLines, soundResiduals } from './clockFitReport';
+export type { DeploymentClockReport } from './deploymentClockReport';
 export { fitClocksFromSharedSounds, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
 export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';

@@ -1,7 +1,7 @@
 // The workspace's Web Worker: owns the open recording and runs everything heavy on it (overview envelope,
 // spectrograms, detection and location, correlation plots), with progress and cancel. No DOM here.
 import { readWavInfo, recordingFingerprint, type ByteSource, type WavInfo } from '../../core/audio';
-import { isWhenceError } from '../../core/errors';
+import { isWhenceError, WhenceError } from '../../core/errors';
 import { manualEvent } from '../../core/detect';
 import { correlationPlots, envelopeFromSource, envelopePreviewFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
 import { locateEvent, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
@@ -34,7 +34,9 @@ const handlers: Record<string, Handler> = {
     const previousProxy = proxy;
     let source: ByteSource;
     let nextProxy: ProxyReads | undefined;
-    if (params.source.kind === 'blob') {
+    if (params.source.kind === 'deployment') {
+      throw new WhenceError('not-available', 'This version of the worker cannot open a deployment yet.');
+    } else if (params.source.kind === 'blob') {
       source = blobByteSource(params.source.blob, params.source.name);
     } else {
       nextProxy = proxyByteSource(params.source.name, params.source.sizeBytes, post);

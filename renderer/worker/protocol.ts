@@ -1,9 +1,46 @@
 // Messages between the workspace (UI thread) and its pipeline worker: requests with ids, progress, results, cancel,
 // and byte reads the worker asks of the UI thread when the recording lives behind the desktop host.
-export type WorkerSource = { kind: 'blob'; blob: Blob; name: string } | { kind: 'proxy'; name: string; sizeBytes: number };
+import type { WavInfo } from '../../core/audio';
+import type { DeploymentClockReport, DeploymentLayout } from '../../core/deployment';
+import type { ArrayGeometry } from '../../core/project';
+
+/**
+ * A deployment: its table, and the files the user picked, each by its path relative to the picked folder (the folder's
+ * own name removed) or its bare name when single files were picked; the table's files are matched to them by path, else name.
+ */
+export type WorkerSource =
+  | { kind: 'blob'; blob: Blob; name: string }
+  | { kind: 'proxy'; name: string; sizeBytes: number }
+  | { kind: 'deployment'; table: { name: string; text: string }; files: Array<{ path: string; blob: Blob }>; nameTime?: string };
+
+/** What `open` resolves to: the recording's (for a deployment its virtual recording's) header and content hash, and the deployment's layout. */
+export interface WorkerOpenResult { info: WavInfo; contentHash: string; deployment?: DeploymentLayout }
+
+/** Fits the open deployment's clocks from calibration sounds, as `whence sync` does (same defaults). */
+export interface SyncClocksParams {
+  calibration: { name: string; text: string };
+  geometry: ArrayGeometry;
+  speedMetersPerSecond: number;
+  /** Recorder whose clock is the time base (default: the table's first). */
+  referenceRecorder?: string;
+  /** Correlation band (default 300 Hz to 0.45 of the sample rate). */
+  bandHz?: { lowHz: number; highHz: number };
+  /** How far from its rough time a calibration sound is looked for, seconds (default 3). */
+  searchSeconds?: number;
+}
 
 export interface WorkerRequestMap {
   open: { source: WorkerSource };
+  /** Needs an open deployment; afterwards every read goes through the fitted clocks. */
+  syncClocks: SyncClocksParams;
+  /** Back to each recorder's own file stamps; needs an open deployment. */
+  clearClocks: Record<string, never>;
+}
+
+export interface WorkerResultMap {
+  open: WorkerOpenResult;
+  syncClocks: DeploymentClockReport;
+  clearClocks: null;
 }
 
 export type ToWorker =
