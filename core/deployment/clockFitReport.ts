@@ -1,5 +1,6 @@
 // The clock fit as text lines (command line, survey log head) and as plain data (JSON): per recorder offset, drift (ppm),
 // their sigmas, residual RMS; per calibration sound its residual at each microphone. Seconds and microseconds.
+import { formatTable } from '../text';
 import type { ClockFitResult, ClockObservation } from './clockFit';
 
 /** One line per recorder, the form the survey log's head keeps (and `whence merge` compares). */
@@ -26,4 +27,29 @@ export function clockFitJson(fit: ClockFitResult, observations: readonly ClockOb
     })),
     chiSquare: fit.chiSquare, degreesOfFreedom: fit.degreesOfFreedom, sigmaScale: fit.sigmaScale, warnings: fit.warnings,
   };
+}
+
+/** The clock lines of a survey log's head (`whence locate --deployment`, and the app's exports): the time base, then one per recorder. */
+export function clockFitHeadLines(fit: ClockFitResult): string[] {
+  return [`clock time base: ${fit.timeBase}`, ...clockFitLines(fit)];
+}
+
+/**
+ * The fit as `whence sync` prints it after the start times, one line each: time base, the clocks, the sounds with their
+ * residuals (µs) and fitted places (shared sounds), chi-square and the warnings.
+ */
+export function clockFitText(fit: ClockFitResult, observations: readonly ClockObservation[], soundPositions?: ReadonlyArray<{ eastMeters: number; northMeters: number; upMeters: number }>): string[] {
+  const rows: Array<readonly [string, string]> = fit.recorders.map((r) => [r.name, `${r.reference ? 'reference  ' : ''}offset ${r.clock.offsetSeconds.toFixed(6)} s ± ${(r.offsetSigmaSeconds * 1e6).toFixed(1)} µs, drift ${(r.clock.drift * 1e6).toFixed(3)} ± ${(r.driftSigma * 1e6).toFixed(3)} ppm, residual RMS ${(r.residualRmsSeconds * 1e6).toFixed(1)} µs (${r.observationCount} arrivals)${r.warnings.length > 0 ? '  POOR FIT' : ''}`]);
+  const soundRows = fit.sounds.map((sound, k) => {
+    const residuals = soundResiduals(fit, observations, k).map((r) => `${r.microphone} ${(r.residualSeconds * 1e6).toFixed(1)}`);
+    const at = soundPositions?.[k];
+    return [sound.label, `emitted ${sound.emittedSeconds.toFixed(6)} s${at !== undefined ? ` at ${at.eastMeters.toFixed(2)}, ${at.northMeters.toFixed(2)}, ${at.upMeters.toFixed(2)} m` : ''}; residuals µs: ${residuals.join(', ')}`] as const;
+  });
+  return [
+    `time base: ${fit.timeBase}`,
+    'clocks:', ...formatTable(rows).trimEnd().split('\n'),
+    soundPositions !== undefined ? 'shared sounds (places fitted):' : 'calibration sounds:', ...formatTable(soundRows).trimEnd().split('\n'),
+    `chi-square ${fit.chiSquare.toFixed(1)} on ${fit.degreesOfFreedom} degrees of freedom; sigmas scaled by ${fit.sigmaScale.toFixed(2)}`,
+    ...fit.warnings.map((warning) => `warning: ${warning}`),
+  ];
 }

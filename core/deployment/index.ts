@@ -10,7 +10,10 @@ export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from '.
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
 export { microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
 export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
-export { clockFitJson, clockFitLines, soundResiduals } from './clockFitReport';
-export type { DeploymentClockReport } from './deploymentClockReport';
+export { clockFitHeadLines, clockFitJson, clockFitLines, clockFitText, soundResiduals } from './clockFitReport';
+export { deploymentClockReport, type DeploymentClockReport } from './deploymentClockReport';
+export { openDeploymentTable, pathBaseName, type OpenDeploymentTableOptions } from './openDeploymentTable';
+export { matchPickedFiles, normalisePickedPath } from './matchPickedFiles';
+export { deploymentChannelIndices, deploymentContentHash } from './deploymentIdentity';
 export { fitClocksFromSharedSounds, type SharedSoundFitInput, type SharedSoundFitResult } from './sharedSoundFit';
 export { mergeSurveyLogs, parseSurveyLog, type MergedSurveyLog, type SurveyLogSpan } from './surveyLogMerge';

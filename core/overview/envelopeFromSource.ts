@@ -1,8 +1,9 @@
-// The envelope pyramid of a whole recording in one streaming pass over its bytes (for the worker), with progress and cancel.
+// The envelope pyramid of a whole recording in one streaming pass over its frames (for the worker), with progress and cancel.
 // Blocks in frames; memory held is one block of samples plus the pyramid.
-import { readFrames, type ByteSource, type WavInfo } from '../audio';
+import type { ByteSource, WavInfo } from '../audio';
 import { WhenceError } from '../errors';
 import { createEnvelopeBuilder, type EnvelopePyramid } from './envelope';
+import { sourceFrames, type OverviewFrames } from './overviewFrames';
 
 export interface EnvelopePassOptions {
   /** Frames read per step (default 65536). */
@@ -18,6 +19,12 @@ export interface EnvelopePassOptions {
 }
 
 export async function envelopeFromSource(source: ByteSource, info: WavInfo, options: EnvelopePassOptions = {}): Promise<EnvelopePyramid> {
+  return envelopeFromFrames(sourceFrames(source, info), options);
+}
+
+/** The pyramid of any recording read block by block (a deployment: gaps read as silence). */
+export async function envelopeFromFrames(frames: OverviewFrames, options: EnvelopePassOptions = {}): Promise<EnvelopePyramid> {
+  const { info } = frames;
   const blockFrames = options.blockFrames ?? 65_536;
   if (!Number.isSafeInteger(blockFrames) || blockFrames < 1) {
     throw new WhenceError('overview-options', `The block size must be a whole number of frames of at least 1, got ${blockFrames}.`);
@@ -36,7 +43,7 @@ export async function envelopeFromSource(source: ByteSource, info: WavInfo, opti
       throw new WhenceError('overview-cancelled', 'The overview pass was cancelled before it finished.');
     }
     const count = Math.min(blockFrames, info.frameCount - start);
-    const block = await readFrames(source, info, start, count, buffers);
+    const block = await frames.readFrames(start, count, buffers);
     builder.push(block, count);
     options.onProgress?.(Math.min(1, (start + count) / info.frameCount));
   }

@@ -1,9 +1,10 @@
 // A quick first overview of a long recording: min/max of short blocks read at evenly spaced places, one per column,
 // as an envelope pyramid (buckets of `strideFrames`), shown while the exact pass reads everything. Frames, bytes.
 // Sampled, not exact: a click between two blocks is missed until the exact pyramid replaces it.
-import { readFrames, type ByteSource, type WavInfo } from '../audio';
+import type { ByteSource, WavInfo } from '../audio';
 import { WhenceError } from '../errors';
 import { createEnvelopeBuilder, type EnvelopePyramid } from './envelope';
+import { sourceFrames, type OverviewFrames } from './overviewFrames';
 
 export interface EnvelopePreviewOptions {
   /** Columns of the preview, i.e. blocks read (default 1024). */
@@ -26,6 +27,12 @@ export function envelopePreviewWorthwhile(frameCount: number, options: EnvelopeP
 
 /** The sampled pyramid: level 0 has one bucket per column, each bucket's min/max over the block read at its start. */
 export async function envelopePreviewFromSource(source: ByteSource, info: WavInfo, options: EnvelopePreviewOptions = {}): Promise<EnvelopePyramid> {
+  return envelopePreviewFromFrames(sourceFrames(source, info), options);
+}
+
+/** The sampled pyramid of any recording (a deployment: gaps read as silence). */
+export async function envelopePreviewFromFrames(frames: OverviewFrames, options: EnvelopePreviewOptions = {}): Promise<EnvelopePyramid> {
+  const { info } = frames;
   const columns = options.columns ?? 1024;
   const blockFrames = options.blockFrames ?? 2048;
   const parallelReads = options.parallelReads ?? 8;
@@ -46,7 +53,7 @@ export async function envelopePreviewFromSource(source: ByteSource, info: WavInf
     const batch = slots.slice(0, Math.min(parallelReads, columnCount - first)).map((buffers, k) => {
       const start = (first + k) * strideFrames;
       const count = Math.min(blockFrames, info.frameCount - start);
-      return readFrames(source, info, start, count, buffers).then((block) => ({ block, count }));
+      return frames.readFrames(start, count, buffers).then((block) => ({ block, count }));
     });
     // In column order: each block fills exactly one bucket (a short last block closes the last one).
     for (const { block, count } of await Promise.all(batch)) builder.push(block, count);

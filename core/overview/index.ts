@@ -14,8 +14,9 @@ export {
   type EnvelopePyramid,
 } from './envelope';
 export { envelopeColumns, envelopeLevelFor, envelopePeak } from './envelopeColumns';
-export { envelopeFromSource, type EnvelopePassOptions } from './envelopeFromSource';
-export { envelopePreviewFromSource, envelopePreviewWorthwhile, type EnvelopePreviewOptions } from './envelopePreview';
+export { envelopeFromFrames, envelopeFromSource, type EnvelopePassOptions } from './envelopeFromSource';
+export { sourceFrames, type OverviewFrames } from './overviewFrames';
+export { envelopePreviewFromFrames, envelopePreviewFromSource, envelopePreviewWorthwhile, type EnvelopePreviewOptions } from './envelopePreview';
 export { detailEnvelope, type DetailEnvelope } from './detailEnvelope';
 export {
   planSpectrogram,
@@ -29,7 +30,7 @@ export {
   type SpectrogramPlan,
   type SpectrogramRequest,
 } from './spectrogram';
-export { spectrogramFromSource, type SpectrogramPassOptions } from './spectrogramFromSource';
+export { spectrogramFromFrames, spectrogramFromSource, type SpectrogramPassOptions } from './spectrogramFromSource';
 export {
   correlationPlots,
   expectedDelaySigmaSeconds,

@@ -1,8 +1,9 @@
 // The spectrogram of a span of a recording read on demand (for the worker): one read for a short span, else one per column.
 // Times in seconds, frames as in core/audio; memory held is the span's samples (short spans) or one window per channel.
-import { readFrames, type ByteSource, type WavInfo } from '../audio';
+import type { ByteSource, WavInfo } from '../audio';
 import { WhenceError } from '../errors';
 import { detailEnvelope } from './detailEnvelope';
+import { sourceFrames, type OverviewFrames } from './overviewFrames';
 import { columnFrameRange, createSpectrogramBuilder, planSpectrogram, type Spectrogram, type SpectrogramRequest } from './spectrogram';
 
 export interface SpectrogramPassOptions {
@@ -14,6 +15,12 @@ export interface SpectrogramPassOptions {
 
 /** `request` over the recording; frames before its start or after its end count as silence. */
 export async function spectrogramFromSource(source: ByteSource, info: WavInfo, request: SpectrogramRequest, options: SpectrogramPassOptions = {}): Promise<Spectrogram> {
+  return spectrogramFromFrames(sourceFrames(source, info), request, options);
+}
+
+/** `request` over any recording read on demand (a deployment: gaps read as silence). */
+export async function spectrogramFromFrames(frames: OverviewFrames, request: SpectrogramRequest, options: SpectrogramPassOptions = {}): Promise<Spectrogram> {
+  const { info } = frames;
   const plan = planSpectrogram(request, info.sampleRateHz);
   const indices = options.channelIndices ?? Array.from({ length: info.channelCount }, (_, c) => c);
   if (indices.length === 0 || indices.some((c) => !Number.isInteger(c) || c < 0 || c >= info.channelCount)) {
@@ -27,7 +34,7 @@ export async function spectrogramFromSource(source: ByteSource, info: WavInfo, r
   const lastWanted = Math.min(info.frameCount, Math.max(last, Math.ceil(request.endSeconds * info.sampleRateHz)));
   const limit = options.contiguousLimitFrames ?? 2 ** 19;
   if (lastWanted - firstWanted <= limit) {
-    const all = await readFrames(source, info, firstWanted, Math.max(0, lastWanted - firstWanted));
+    const all = await frames.readFrames(firstWanted, Math.max(0, lastWanted - firstWanted));
     const chosen = indices.map((c) => all[c]!);
     for (let column = 0; column < plan.columnCount; column++) builder.addColumn(column, chosen, firstWanted);
     const spectrogram = builder.finish();
@@ -42,8 +49,8 @@ export async function spectrogramFromSource(source: ByteSource, info: WavInfo, r
   const read = async (from: number, to: number) => {
     const count = Math.max(0, Math.min(info.frameCount, to) - Math.max(0, from));
     if (buffers.length === 0 || buffers[0]!.length < count) buffers = Array.from({ length: info.channelCount }, () => new Float32Array(Math.max(count, n)));
-    const frames = await readFrames(source, info, Math.max(0, from), count, buffers);
-    return indices.map((c) => frames[c]!);
+    const block = await frames.readFrames(Math.max(0, from), count, buffers);
+    return indices.map((c) => block[c]!);
   };
   for (let column = 0; column < plan.columnCount; column++) {
     const range = columnFrameRange(plan, column);

@@ -1,7 +1,7 @@
 // Options shared by the commands that read a recorder deployment (sync, locate --deployment): the table, file-name
 // times, the calibration sounds and how they are looked for; opens the deployment and fits its clocks when asked.
 import { basename } from 'node:path';
-import { clockFitLines, nameTimePattern, parseCalibrationCsv, parseSharedSoundsCsv, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentRecording, type DeploymentSync } from '../../core/deployment';
+import { clockFitHeadLines, nameTimePattern, parseCalibrationCsv, parseSharedSoundsCsv, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentRecording, type DeploymentSync } from '../../core/deployment';
 import type { ArrayGeometry } from '../../core/project';
 import { openDeployment } from '../pipeline';
 import type { CliIo } from './io';
@@ -84,5 +84,5 @@ export function deploymentHeadNotes(opened: OpenedDeployment): string[] {
     `file start times: ${sources.join(', ')}; ${gaps} gap${gaps === 1 ? '' : 's'} between files (silent, flagged on the events they touch)`,
   ];
   if (sync === undefined) return [...lines, 'clocks: not fitted (no --calibration): each recorder\'s file stamps taken as true'];
-  return [...lines, `clock time base: ${sync.fit.timeBase}`, ...clockFitLines(sync.fit)];
+  return [...lines, ...clockFitHeadLines(sync.fit)];
 }

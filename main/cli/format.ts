@@ -3,7 +3,6 @@
 import type { FixRecord } from '../../core/export';
 import { VERDICT_GRADES } from '../../core/locate';
 import { escapeControlCharacters } from '../../core/text';
-import { maxOf } from '../../core/units';
 
 export function formatDurationClock(durationSeconds: number): string {
   const totalMilliseconds = Math.round(durationSeconds * 1000);
@@ -20,11 +19,8 @@ export function verdictTally(records: readonly FixRecord[]): string {
   return VERDICT_GRADES.map((grade) => `${records.filter((record) => record.verdict === grade).length} ${grade}`).join(', ');
 }
 
-/** Key/value lines with the values aligned in one column. */
-export function formatTable(rows: ReadonlyArray<readonly [string, string]>): string {
-  const width = maxOf(rows.map(([key]) => key.length));
-  return rows.map(([key, value]) => `${key.padEnd(width + 2)}${value}`).join('\n') + '\n';
-}
+/** Key/value lines with the values aligned in one column (core/text, so the app prints the same tables). */
+export { formatTable } from '../../core/text';
 
 /**
  * Text for the terminal: line breaks and a progress line's leading carriage return kept, every other control character

@@ -1,16 +1,18 @@
-// The workspace's Web Worker: owns the open recording and runs everything heavy on it (overview envelope,
-// spectrograms, detection and location, correlation plots), with progress and cancel. No DOM here.
+// The workspace's Web Worker: owns the open recording (a file, or a deployment of recorders read as one) and runs everything
+// heavy on it (overview envelope, spectrograms, detection and location, correlation plots, clock fits), with progress and cancel. No DOM.
 import { readWavInfo, recordingFingerprint, type ByteSource, type WavInfo } from '../../core/audio';
 import { isWhenceError, WhenceError } from '../../core/errors';
 import { manualEvent } from '../../core/detect';
-import { correlationPlots, envelopeFromSource, envelopePreviewFromSource, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
+import { correlationPlots, envelopeFromFrames, envelopeFromSource, envelopePreviewFromFrames, envelopePreviewFromSource, spectrogramFromFrames, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
 import { locateEvent, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
 import { blobByteSource } from '../io';
+import { openDeploymentSession, type DeploymentSession } from './deploymentSession';
 import { proxyByteSource, type ProxyReads } from './proxyByteSource';
 import { useWasmFftInWorker } from './wasmFft';
-import type { FromWorker, ToWorker, WorkerSource } from './protocol';
+import type { FromWorker, SyncClocksParams, ToWorker, WorkerOpenResult, WorkerSource } from './protocol';
 
-interface OpenRecording { source: ByteSource; info: WavInfo; recording: RecordingAccess }
+/** A file (read through its ByteSource) or a deployment (read through its session's current clocks). */
+type OpenRecording = { kind: 'file'; source: ByteSource; info: WavInfo; recording: RecordingAccess } | { kind: 'deployment'; info: WavInfo; session: DeploymentSession };
 
 const scope = self as unknown as { postMessage(message: FromWorker, transfer?: Transferable[]): void; addEventListener(type: 'message', listener: (event: MessageEvent<ToWorker>) => void): void };
 const post = (message: FromWorker, transfer: Transferable[] = []) => scope.postMessage(message, transfer);
@@ -26,17 +28,39 @@ function requireRecording(): OpenRecording {
   return open;
 }
 
+/** The open recording as the pipeline reads it (a deployment through the clocks in use now). */
+function requireAccess(): { info: WavInfo; recording: RecordingAccess } {
+  const opened = requireRecording();
+  return { info: opened.info, recording: opened.kind === 'file' ? opened.recording : opened.session.recording() };
+}
+
+function requireDeployment(): DeploymentSession {
+  if (open?.kind !== 'deployment') throw new WhenceError('no-deployment', 'No deployment is open. Open a deployment (its table and its recordings) before fitting its clocks.');
+  return open.session;
+}
+
+/** Replaces the open recording, closing a deployment's files. */
+function replaceOpen(next: OpenRecording): void {
+  const previous = open;
+  open = next;
+  if (previous?.kind === 'deployment') void previous.session.close().catch(() => undefined);
+}
+
 type Handler = (params: never, progress: (value: unknown) => void, cancel: { cancelled: boolean }) => Promise<unknown>;
 
 const handlers: Record<string, Handler> = {
-  async open(params: { source: WorkerSource }) {
+  async open(params: { source: WorkerSource }): Promise<WorkerOpenResult> {
     // The recording already open stays in use until the new one has been read successfully.
+    if (params.source.kind === 'deployment') {
+      const session = await openDeploymentSession(params.source);
+      replaceOpen({ kind: 'deployment', info: session.info, session });
+      proxy = undefined;
+      return { info: session.info, contentHash: session.contentHash, deployment: session.layout };
+    }
     const previousProxy = proxy;
     let source: ByteSource;
     let nextProxy: ProxyReads | undefined;
-    if (params.source.kind === 'deployment') {
-      throw new WhenceError('not-available', 'This version of the worker cannot open a deployment yet.');
-    } else if (params.source.kind === 'blob') {
+    if (params.source.kind === 'blob') {
       source = blobByteSource(params.source.blob, params.source.name);
     } else {
       nextProxy = proxyByteSource(params.source.name, params.source.sizeBytes, post);
@@ -46,7 +70,7 @@ const handlers: Record<string, Handler> = {
     try {
       const info = await readWavInfo(source);
       const contentHash = await recordingFingerprint(source);
-      open = { source, info, recording: recordingAccess(source, info) };
+      replaceOpen({ kind: 'file', source, info, recording: recordingAccess(source, info) });
       proxy = nextProxy;
       return { info, contentHash };
     } catch (error) {
@@ -55,10 +79,7 @@ const handlers: Record<string, Handler> = {
     }
   },
   async envelope(_params: Record<string, never>, progress, cancel) {
-    const { source, info } = requireRecording();
-    // A ByteSource object of its own, so readFrames gives this pass its own reused buffer and its blocks come from one
-    // stream (renderer/io) even while a spectrogram or a correlation reads elsewhere in the file.
-    const passSource: ByteSource = { ...source };
+    const opened = requireRecording();
     // Progress every half per cent at most: a long recording has thousands of blocks, each a re-render of the page.
     let shown = -1;
     const onProgress = (fraction: number) => {
@@ -66,29 +87,50 @@ const handlers: Record<string, Handler> = {
       shown = fraction;
       progress(fraction);
     };
-    return envelopeFromSource(passSource, info, { onProgress, cancel });
+    if (opened.kind === 'deployment') {
+      // Files of its own, as a file's pass has a ByteSource object of its own (below).
+      const pass = opened.session.passRecording();
+      try {
+        return await envelopeFromFrames(pass, { onProgress, cancel });
+      } finally {
+        await pass.close();
+      }
+    }
+    // A ByteSource object of its own, so readFrames gives this pass its own reused buffer and its blocks come from one
+    // stream (renderer/io) even while a spectrogram or a correlation reads elsewhere in the file.
+    const passSource: ByteSource = { ...opened.source };
+    return envelopeFromSource(passSource, opened.info, { onProgress, cancel });
   },
   async envelopePreview(_params: Record<string, never>, _progress, cancel) {
-    const { source, info } = requireRecording();
-    return envelopePreviewFromSource(source, info, { cancel });
+    const opened = requireRecording();
+    if (opened.kind === 'deployment') return envelopePreviewFromFrames(opened.session.recording(), { cancel });
+    return envelopePreviewFromSource(opened.source, opened.info, { cancel });
   },
   async spectrogram(params: { request: SpectrogramRequest }) {
-    const { source, info } = requireRecording();
-    return spectrogramFromSource(source, info, params.request);
+    const opened = requireRecording();
+    if (opened.kind === 'deployment') return spectrogramFromFrames(opened.session.recording(), params.request);
+    return spectrogramFromSource(opened.source, opened.info, params.request);
+  },
+  async syncClocks(params: SyncClocksParams) {
+    return requireDeployment().syncClocks(params);
+  },
+  async clearClocks() {
+    await requireDeployment().clearClocks();
+    return null;
   },
   async run(params: { context: LocateContext; fromSeconds?: number; toSeconds?: number }, progress, cancel) {
-    const { recording } = requireRecording();
+    const { recording } = requireAccess();
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (value) => progress(value), cancel };
     if (params.fromSeconds !== undefined) options.fromSeconds = params.fromSeconds;
     if (params.toSeconds !== undefined) options.toSeconds = params.toSeconds;
     return runPipeline(recording, params.context, options);
   },
   async locateSpan(params: { context: LocateContext; startSeconds: number; endSeconds: number; index: number }) {
-    const { recording, info } = requireRecording();
+    const { recording, info } = requireAccess();
     return locateEvent(recording, manualEvent(params.startSeconds, params.endSeconds, info.channelCount, params.index), params.context);
   },
   async correlations(params: { context: LocateContext; startSeconds: number; endSeconds: number; bandHz: { lowHz: number; highHz: number }; usedPairs?: string[] }) {
-    const { recording, info } = requireRecording();
+    const { recording, info } = requireAccess();
     const fs = info.sampleRateHz;
     const startFrame = Math.max(0, Math.floor(params.startSeconds * fs));
     const frames = Math.max(1, Math.min(info.frameCount - startFrame, Math.ceil((params.endSeconds - params.startSeconds) * fs)));

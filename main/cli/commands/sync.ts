@@ -1,12 +1,12 @@
 // `whence sync --deployment D.csv --array A.csv --calibration C.csv` (or --shared-sounds S.csv): fits every recorder's clock
 // (offset, drift) and prints the fit: per recorder offset, drift ppm, their sigmas, residual RMS; per sound its residuals.
 import { basename } from 'node:path';
-import { clockFitJson, describeStartSources, soundResiduals } from '../../../core/deployment';
+import { clockFitJson, clockFitText, describeStartSources } from '../../../core/deployment';
 import { parseArrayCsv } from '../../../core/project';
 import { writeFileAtomic } from '../../files';
 import { deploymentHelp, deploymentOptionSpec, openDeploymentFromOptions } from '../deploymentOptions';
 import { fixOptionSpec, parseOrigin } from '../fixOptions';
-import { formatTable, jsonForTerminal } from '../format';
+import { jsonForTerminal } from '../format';
 import type { CliIo } from '../io';
 import { chooseSpeed } from '../mediumOptions';
 import { optionalString, parseCommandArgs, UsageError } from '../parse';
@@ -54,20 +54,10 @@ export async function runSync(argv: string[], io: CliIo): Promise<number> {
       data = { deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...json };
       text = JSON.stringify(data, null, 2) + '\n';
     } else {
-      const rows: Array<readonly [string, string]> = fit.recorders.map((r) => [r.name, `${r.reference ? 'reference  ' : ''}offset ${r.clock.offsetSeconds.toFixed(6)} s ± ${(r.offsetSigmaSeconds * 1e6).toFixed(1)} µs, drift ${(r.clock.drift * 1e6).toFixed(3)} ± ${(r.driftSigma * 1e6).toFixed(3)} ppm, residual RMS ${(r.residualRmsSeconds * 1e6).toFixed(1)} µs (${r.observationCount} arrivals)${r.warnings.length > 0 ? '  POOR FIT' : ''}`]);
-      const soundRows = fit.sounds.map((sound, k) => {
-        const residuals = soundResiduals(fit, sync!.observations, k).map((r) => `${r.microphone} ${(r.residualSeconds * 1e6).toFixed(1)}`);
-        const at = sync!.soundPositions?.[k];
-        return [sound.label, `emitted ${sound.emittedSeconds.toFixed(6)} s${at !== undefined ? ` at ${at.eastMeters.toFixed(2)}, ${at.northMeters.toFixed(2)}, ${at.upMeters.toFixed(2)} m` : ''}; residuals µs: ${residuals.join(', ')}`] as const;
-      });
       text = [
         `deployment ${basename(optionalString(values, 'deployment')!)}: ${recording.layout.recorders.length} recorders, time 0 = ${recording.info.startTime?.isoLocal ?? '?'}`,
         'start times:', ...sources.map((line) => `  ${line}`),
-        `time base: ${fit.timeBase}`,
-        'clocks:', formatTable(rows).trimEnd(),
-        sync!.soundPositions !== undefined ? 'shared sounds (places fitted):' : 'calibration sounds:', formatTable(soundRows).trimEnd(),
-        `chi-square ${fit.chiSquare.toFixed(1)} on ${fit.degreesOfFreedom} degrees of freedom; sigmas scaled by ${fit.sigmaScale.toFixed(2)}`,
-        ...fit.warnings.map((warning) => `warning: ${warning}`),
+        ...clockFitText(fit, sync!.observations, sync!.soundPositions),
       ].join('\n') + '\n';
     }
     if (outPath !== undefined) {

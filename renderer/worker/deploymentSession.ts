@@ -1,0 +1,71 @@
+// A deployment open in the pipeline worker: the table's files matched to the files the user picked and read as Blobs,
+// the virtual recording (core/deployment) through each recorder's own stamps or, after syncClocks, through fitted clocks. No DOM.
+import { recordingFingerprint, type WavInfo } from '../../core/audio';
+import {
+  deploymentClockReport, deploymentContentHash, matchPickedFiles, nameTimePattern, openDeploymentTable, parseCalibrationCsv, parseDeploymentCsv, pathBaseName, syncDeployment,
+  type DeploymentClockReport, type DeploymentLayout, type DeploymentRecording, type OpenDeploymentFile,
+} from '../../core/deployment';
+import { blobByteSource } from '../io';
+import type { SyncClocksParams, WorkerSource } from './protocol';
+
+export type DeploymentSource = Extract<WorkerSource, { kind: 'deployment' }>;
+
+export interface DeploymentSession {
+  readonly info: WavInfo;
+  readonly contentHash: string;
+  readonly layout: DeploymentLayout;
+  /** What every read goes through now: the fitted clocks after syncClocks, else the files' own stamps. */
+  recording(): DeploymentRecording;
+  /** The same recording with files of its own, for one long pass (the overview envelope); close it after the pass. */
+  passRecording(): DeploymentRecording;
+  /** Fits the clocks from calibration sounds (as `whence sync`) and reads through them from now on. */
+  syncClocks(params: SyncClocksParams): Promise<DeploymentClockReport>;
+  /** Back to each recorder's own file stamps. */
+  clearClocks(): Promise<void>;
+  close(): Promise<void>;
+}
+
+export async function openDeploymentSession(source: DeploymentSource): Promise<DeploymentSession> {
+  const table = parseDeploymentCsv(source.table.text, pathBaseName(source.table.name));
+  const matched = matchPickedFiles(table, source.table.name, source.files.map((file) => file.path));
+  const open: OpenDeploymentFile = (file) => {
+    const picked = source.files[matched.get(file)!]!;
+    return Promise.resolve(blobByteSource(picked.blob, picked.path));
+  };
+  const base = await openDeploymentTable(table, open, source.nameTime !== undefined ? { nameTime: nameTimePattern(source.nameTime) } : {});
+  const fingerprints: string[] = [];
+  for (const file of [...new Set(table.rows.map((row) => row.file))]) {
+    const picked = source.files[matched.get(file)!]!;
+    fingerprints.push(await recordingFingerprint(blobByteSource(picked.blob, picked.path)));
+  }
+  let current = base;
+  const replace = async (next: DeploymentRecording) => {
+    const previous = current;
+    current = next;
+    if (previous !== base) await previous.close();
+  };
+  return {
+    info: base.info,
+    contentHash: deploymentContentHash(source.table.text, fingerprints),
+    layout: base.layout,
+    recording: () => current,
+    passRecording: () => current.withClocks(current.clocks),
+    async syncClocks(params) {
+      const sounds = parseCalibrationCsv(params.calibration.text, pathBaseName(params.calibration.name), base.layout.origin);
+      // Arrivals are measured on each recorder's own time (as `whence sync` does), whatever clocks are in use now.
+      const sync = await syncDeployment(base, params.geometry, sounds, {
+        speedMetersPerSecond: params.speedMetersPerSecond,
+        ...(params.searchSeconds !== undefined ? { searchSeconds: params.searchSeconds } : {}),
+        ...(params.bandHz !== undefined ? { bandHz: params.bandHz } : {}),
+        ...(params.referenceRecorder !== undefined ? { referenceRecorder: params.referenceRecorder } : {}),
+      });
+      await replace(base.withClocks(sync.fit.recorders.map((r) => r.clock)));
+      return deploymentClockReport(sync, pathBaseName(params.calibration.name));
+    },
+    clearClocks: () => replace(base),
+    async close() {
+      await replace(base);
+      await base.close();
+    },
+  };
+}
