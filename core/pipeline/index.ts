@@ -7,7 +7,7 @@ export { reducePairsToReference, type ReducedDelays } from './reducePairs';
 export { locatedVerdict } from './locatedVerdict';
 export { applyReductionCheck, reductionCheck, type ReductionCheck } from './reductionCheck';
 export { DEFAULT_LOCATE_SETTINGS, type LocateSettings } from './settings';
-export { lagMarginSeconds, locateEvent, solveOptions, toSolverMicrophones, type LocateContext, type LocatedEvent, type LocatedTiming } from './locateEvent';
+export { lagMarginSeconds, locateEvent, measureEvent, solveOptions, toSolverMicrophones, type LocateContext, type LocatedEvent, type LocatedTiming, type MeasuredEvent } from './locateEvent';
 export { estimateTimingNoise, eventTiming, explainableArrivalSigmaSeconds, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 export { describeEllipseTerms, ellipseTerms, type EllipseTerm, type EllipseTermName } from './ellipseTerms';
 export { solveLocatedEvent } from './pooledTiming';

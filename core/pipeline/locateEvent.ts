@@ -1,5 +1,5 @@
-// One event from window to fix: read its frames, choose its band, correlate every pair, reduce to arrival times,
-// solve (core/locate). Times in seconds from the start of the recording.
+// One event from window to fix: read its frames, choose its band, correlate every pair, reduce to arrival times and
+// their timing evidence (measureEvent), solve (core/locate; locateEvent). Times in seconds from the start of the recording.
 import { chooseBand, type DetectedEvent } from '../detect';
 import type { FrequencyBand } from '../dsp';
 import { median, physicalLimitViolations, solveFix, type Microphone, type SolveOptions, type SolveResult } from '../locate';
@@ -13,7 +13,7 @@ import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { applyReductionCheck } from './reductionCheck';
 import { alignPairs } from './windowAlignment';
 import { MAX_EVENT_WINDOW_SECONDS, NOISE_WINDOW_SECONDS, type LocateSettings } from './settings';
-import { eventTiming, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
+import { eventTiming, explainableArrivalSigmaSeconds, PRIOR_TIMING_NOISE, type EventTiming, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 import { maxOf, minOf } from '../units';
 
 export interface LocatedEvent {
@@ -33,6 +33,12 @@ export interface LocatedEvent {
   firstArrivalSeconds: number;
   warnings: string[];
 }
+
+/**
+ * An event measured but not solved: its pair delays, their reduction to arrival times and the timing evidence of its
+ * residuals (undefined when it has no usable delay). The pipeline pools the evidence over the recording, then solves.
+ */
+export type MeasuredEvent = Omit<LocatedEvent, 'solve' | 'timing' | 'emissionTimeSeconds' | 'firstArrivalSeconds'> & { timingEvidence: TimingEvidence | undefined };
 
 export interface LocateContext {
   geometry: ArrayGeometry;
@@ -184,16 +190,47 @@ const DIRECT_PATH_PEAKS = { maxPeaks: 4, minRelativeHeight: 0.4 };
 /** Median pair peak (band-limited correlation, 1 = every component aligned) below which a ringing event counts as reverberant. */
 const REVERBERANT_PEAK_VALUE = 0.2;
 
-/** Events are located one after another in a thread (they share the scratch buffers; the work is CPU-bound anyway). */
+/** Events are measured one after another in a thread (they share the scratch buffers; the work is CPU-bound anyway). */
 let queueTail: Promise<unknown> = Promise.resolve();
 
-export function locateEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
-  const run = queueTail.then(() => locateEventNow(recording, event, context));
+/** Measures the event (./measureEvent's result) and solves it under the prior timing noise: a fix on its own. */
+export async function locateEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
+  return solveMeasuredEvent(await measureEvent(recording, event, context), context, recording.info.sampleRateHz, PRIOR_TIMING_NOISE);
+}
+
+/**
+ * The event's delays and their timing evidence, without a fix: what the pipeline pools over the recording before it
+ * solves each event once (runPipeline; the command line's worker threads and the app's worker measure this way).
+ */
+export function measureEvent(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<MeasuredEvent> {
+  const run = queueTail.then(() => measureEventNow(recording, event, context));
   queueTail = run.catch(() => undefined);
   return run;
 }
 
-async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<LocatedEvent> {
+/**
+ * Solves a measured event under `model` (PRIOR_TIMING_NOISE, or the recording's pooled model), with the reduction's
+ * closure check; a pooled model also judges the event: scatter beyond what its larger class allows, at the test level,
+ * makes the fix inconsistent (./reductionCheck). `evidence` defaults to the event's own.
+ */
+export function solveMeasuredEvent(measured: MeasuredEvent, context: LocateContext, sampleRateHz: number, model: TimingNoiseModel, evidence: TimingEvidence | undefined = measured.timingEvidence): LocatedEvent {
+  const { timingEvidence: _evidence, ...kept } = measured;
+  let solve: SolveResult = { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
+  let timing: LocatedTiming | undefined;
+  if (measured.reduced.delays.length > 0) {
+    const marginSeconds = lagMarginSeconds(context.geometry, sampleRateHz, context.settings.speedMetersPerSecond);
+    ({ solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), measured.reduced, solveOptions(context.settings, marginSeconds), model, evidence));
+    const modelSigmaSeconds = model.source === 'prior' ? undefined : explainableArrivalSigmaSeconds(model, timing.evidence.priorArrivalSigmaSeconds);
+    solve = applyReductionCheck(solve, measured.reduced, undefined, modelSigmaSeconds);
+  }
+  const { emissionTimeSeconds, firstArrivalSeconds } = eventTimes(measured.event, context, solve);
+  const { event, windowStartSeconds, windowEndSeconds, bandHz, bandSnrDb, pairs, reduced, warnings } = kept;
+  const located: LocatedEvent = { event, windowStartSeconds, windowEndSeconds, bandHz, bandSnrDb, pairs, reduced, solve, emissionTimeSeconds, firstArrivalSeconds, warnings };
+  if (timing !== undefined) located.timing = timing;
+  return located;
+}
+
+async function measureEventNow(recording: RecordingAccess, event: DetectedEvent, context: LocateContext): Promise<MeasuredEvent> {
   const fs = recording.info.sampleRateHz;
   const warnings: string[] = [];
   const onset = earliestOnset(event, context);
@@ -252,15 +289,6 @@ async function locateEventNow(recording: RecordingAccess, event: DetectedEvent, 
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
-  // Closure of the pairs at the sigma the solver finally used: an event whose peaks disagree is not `ok`.
-  let solve: SolveResult = { status: 'insufficient', warnings: ['No usable time differences for this event.'] };
-  let timing: LocatedTiming | undefined;
-  if (reduced.delays.length > 0) {
-    ({ solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds), PRIOR_TIMING_NOISE));
-    solve = applyReductionCheck(solve, reduced);
-  }
-  const { emissionTimeSeconds, firstArrivalSeconds } = eventTimes(event, context, solve);
-  const located: LocatedEvent = { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, solve, emissionTimeSeconds, firstArrivalSeconds, warnings };
-  if (timing !== undefined) located.timing = timing;
-  return located;
+  const timingEvidence = reduced.delays.length > 0 ? timingEvidenceOf(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds)) : undefined;
+  return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, warnings, timingEvidence };
 }

@@ -1,8 +1,7 @@
-// Second pass of a locate run: the timing-noise model fitted to all events of the recording (./timingNoise), then every
-// event solved again with it. Only the solve is repeated (about a millisecond per event), not the correlation. Seconds.
-import { applyReductionCheck } from './reductionCheck';
-import { eventTimes, lagMarginSeconds, solveOptions, solveWithTimingModel, toSolverMicrophones, type LocateContext, type LocatedEvent } from './locateEvent';
-import { estimateTimingNoise, explainableArrivalSigmaSeconds, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
+// Second pass of a locate run: the timing-noise model fitted to the timing evidence of all events of the recording
+// (./timingNoise), then each measured event solved once with it (no correlation again). Seconds.
+import { solveMeasuredEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
+import { estimateTimingNoise, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 
 export interface PooledTiming {
   located: LocatedEvent[];
@@ -33,16 +32,12 @@ function describeTimingModel(model: TimingNoiseModel): string {
 
 /**
  * Solves one located event again under `model` (its delays, geometry and settings as given); keeps everything else.
- * `evidence`: the event's timing evidence when it was read under this same context (the pipeline's second pass), else re-read.
+ * `evidence`: the event's timing evidence when it was read under this same context, else re-read.
  */
 export function solveLocatedEvent(located: LocatedEvent, context: LocateContext, sampleRateHz: number, model: TimingNoiseModel, evidence?: TimingEvidence): LocatedEvent {
   if (located.reduced.delays.length === 0) return located;
-  const marginSeconds = lagMarginSeconds(context.geometry, sampleRateHz, context.settings.speedMetersPerSecond);
-  const { solve, timing } = solveWithTimingModel(toSolverMicrophones(context.geometry), located.reduced, solveOptions(context.settings, marginSeconds), model, evidence);
-  // A pooled model also judges the event: scatter beyond what its larger class allows, at the test level, makes the fix inconsistent (./reductionCheck).
-  const modelSigmaSeconds = model.source === 'prior' ? undefined : explainableArrivalSigmaSeconds(model, timing.evidence.priorArrivalSigmaSeconds);
-  const checked = applyReductionCheck(solve, located.reduced, undefined, modelSigmaSeconds);
-  return { ...located, solve: checked, timing, ...eventTimes(located.event, context, checked) };
+  const { solve: _solve, timing: _timing, emissionTimeSeconds: _emission, firstArrivalSeconds: _arrival, ...measured } = located;
+  return solveMeasuredEvent({ ...measured, timingEvidence: evidence }, context, sampleRateHz, model, evidence);
 }
 
 /**
@@ -56,19 +51,19 @@ function bandClassOf(located: Pick<LocatedEvent, 'bandHz'>): string {
 }
 
 /**
- * Fits the recording's timing-noise model to the events' first solves, per band class where a class has enough events
- * (else the model of all events), and solves each event again with its class's model. The events must have been
- * located under `context` (their timing evidence is reused).
+ * Fits the recording's timing-noise model to the events' timing evidence, per band class where a class has enough events
+ * (else the model of all events), and solves each event with its class's model. The events must have been measured
+ * under `context`.
  */
-export function poolTimingNoise(located: readonly LocatedEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
-  const withTiming = located.filter((event) => event.timing !== undefined);
-  const model = estimateTimingNoise(withTiming.map((event) => event.timing!.evidence));
+export function poolTimingNoise(measured: readonly MeasuredEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
+  const withEvidence = measured.filter((event) => event.timingEvidence !== undefined);
+  const model = estimateTimingNoise(withEvidence.map((event) => event.timingEvidence!));
   const evidenceByClass = new Map<string, TimingEvidence[]>();
-  for (const event of withTiming) {
+  for (const event of withEvidence) {
     const key = bandClassOf(event);
     const members = evidenceByClass.get(key);
-    if (members === undefined) evidenceByClass.set(key, [event.timing!.evidence]);
-    else members.push(event.timing!.evidence);
+    if (members === undefined) evidenceByClass.set(key, [event.timingEvidence!]);
+    else members.push(event.timingEvidence!);
   }
   const classModels = new Map<string, TimingNoiseModel>();
   for (const [key, members] of evidenceByClass) {
@@ -76,9 +71,8 @@ export function poolTimingNoise(located: readonly LocatedEvent[], context: Locat
     const classModel = estimateTimingNoise(members);
     if (classModel.source === 'pooled') classModels.set(key, classModel);
   }
-  const modelOf = (event: LocatedEvent) => (classModels.size === 0 ? model : classModels.get(bandClassOf(event)) ?? model);
+  const modelOf = (event: MeasuredEvent) => (classModels.size === 0 ? model : classModels.get(bandClassOf(event)) ?? model);
   const classes = [...classModels.entries()].map(([key, m]) => `band class ${key}: ${describeTimingModel(m)}`);
   const note = classes.length === 0 ? describeTimingModel(model) : `${classes.join('; ')}${classModels.size < evidenceByClass.size ? `; other sounds: ${describeTimingModel(model)}` : ''}`;
-  // Same context as the first pass: each event's timing evidence is reused, only the final solve is repeated.
-  return { located: located.map((event) => solveLocatedEvent(event, context, sampleRateHz, modelOf(event), event.timing?.evidence)), model, classModels, note };
+  return { located: measured.map((event) => solveMeasuredEvent(event, context, sampleRateHz, modelOf(event))), model, classModels, note };
 }

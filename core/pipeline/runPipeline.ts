@@ -2,7 +2,7 @@
 // located as soon as it is complete, with progress and cancellation. Times in seconds from the recording's start.
 import { createDetector, manualEvent, type DetectedEvent, type DetectorConfig } from '../detect';
 import { WhenceError } from '../errors';
-import { locateEvent, type LocateContext, type LocatedEvent } from './locateEvent';
+import { measureEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
 import { maxArrayDelaySeconds } from './channelMap';
 import { poolTimingNoise } from './pooledTiming';
 import type { RecordingAccess } from './recording';
@@ -27,8 +27,11 @@ export interface PipelineOptions {
   onProgress?: (progress: PipelineProgress) => void;
   /** Checked between blocks and events; when set, the run stops and returns what it has (cancelled: true). */
   cancel?: CancelSignal;
-  /** Locates one event; defaults to locating in this thread. The command line passes a worker pool. */
-  locator?: (event: DetectedEvent) => Promise<LocatedEvent>;
+  /**
+   * Measures one event (its delays and their timing evidence, no fix: measureEvent); defaults to this thread. The
+   * command line passes a worker pool. Every event is solved once, after the recording's timing noise is pooled.
+   */
+  locator?: (event: DetectedEvent) => Promise<MeasuredEvent>;
   /** Called once every event has been handed to the locator, before waiting for them: this thread is free from then on. */
   onScanEnd?: () => void;
 }
@@ -40,7 +43,7 @@ export interface PipelineResult {
   scannedToSeconds: number;
   cancelled: boolean;
   warnings: string[];
-  /** The timing-noise model every fix was solved with (second pass), and one sentence on it for the log's notes. */
+  /** The timing-noise model every fix was solved with (pooled over the events), and one sentence on it for the log's notes. */
   timingModel?: TimingNoiseModel;
   timingNote?: string;
 }
@@ -95,10 +98,10 @@ function toRecordingChannels(event: DetectedEvent, context: LocateContext, chann
 }
 
 export async function runPipeline(recording: RecordingAccess, context: LocateContext, options: PipelineOptions = {}): Promise<PipelineResult> {
-  const locator = options.locator ?? ((event: DetectedEvent) => locateEvent(recording, event, context));
+  const locator = options.locator ?? ((event: DetectedEvent) => measureEvent(recording, event, context));
   const { sampleRateHz } = recording.info;
   const { startFrame, endFrame } = scanSpanFrames(recording, options.fromSeconds, options.toSeconds);
-  const pending: Array<Promise<LocatedEvent>> = [];
+  const pending: Array<Promise<MeasuredEvent>> = [];
   let eventsFound = 0;
   let eventsLocated = 0;
   const progress = (scannedFrame: number) => options.onProgress?.({ fraction: (scannedFrame - startFrame) / Math.max(1, endFrame - startFrame), eventsFound, eventsLocated, scannedSeconds: scannedFrame / sampleRateHz });
@@ -127,7 +130,7 @@ export async function runPipeline(recording: RecordingAccess, context: LocateCon
     if (!cancelled) emit(detector.finish());
   }
   options.onScanEnd?.();
-  // Second pass: the timing noise of the whole recording from every event's residuals, then each event solved again with it.
+  // The timing noise of the whole recording from every event's residuals, then each event solved once with it.
   const pooled = poolTimingNoise(await Promise.all(pending), context, sampleRateHz);
   const located = pooled.located;
   progress(endFrame);

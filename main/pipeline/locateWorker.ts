@@ -1,9 +1,10 @@
-// Worker thread of the command line: opens the recording (or the deployment's files) itself and locates the events it is sent.
+// Worker thread of the command line: opens the recording (or the deployment's files) itself and measures the events it is
+// sent (delays and timing evidence; the pipeline solves them once the recording's timing noise is pooled).
 import { parentPort, workerData } from 'node:worker_threads';
 import { readWavInfo } from '../../core/audio';
 import { deploymentRecording } from '../../core/deployment';
 import { isWhenceError } from '../../core/errors';
-import { locateEvent, recordingAccess, type RecordingAccess } from '../../core/pipeline';
+import { measureEvent, recordingAccess, type RecordingAccess } from '../../core/pipeline';
 import { useWasmFft } from '../dsp';
 import { openFileByteSource } from '../io';
 import type { FromWorker, ToWorker, WorkerInit } from './messages';
@@ -32,8 +33,8 @@ async function start(): Promise<void> {
       void close().finally(() => port.close());
       return;
     }
-    locateEvent(recording, message.event, init.context).then(
-      (located) => send({ kind: 'located', id: message.id, located }),
+    measureEvent(recording, message.event, init.context).then(
+      (measured) => send({ kind: 'measured', id: message.id, measured }),
       (error: unknown) => send({ kind: 'failed', id: message.id, message: error instanceof Error ? error.message : String(error), code: isWhenceError(error) ? error.code : undefined }),
     );
   });

@@ -6,21 +6,22 @@ import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { DetectedEvent } from '../../core/detect';
 import { WhenceError } from '../../core/errors';
-import type { LocateContext, LocatedEvent } from '../../core/pipeline';
+import type { LocateContext, MeasuredEvent } from '../../core/pipeline';
 import type { FromWorker, ToWorker, WorkerDeployment, WorkerInit } from './messages';
 
 export interface LocatePool {
   readonly workerCount: number;
-  locate(event: DetectedEvent): Promise<LocatedEvent>;
+  /** Measures the event in a worker (core/pipeline measureEvent: delays and timing evidence; runPipeline solves it). */
+  locate(event: DetectedEvent): Promise<MeasuredEvent>;
   /**
    * Lends this thread (free once the scan is over) to the queue when at least MIN_WAITING_TO_LEND events wait: locates
    * them with `locateHere` until none is left. Resolves then; each event's own promise carries its result or error.
    */
-  locateHereToo(locateHere: (event: DetectedEvent) => Promise<LocatedEvent>): Promise<void>;
+  locateHereToo(locateHere: (event: DetectedEvent) => Promise<MeasuredEvent>): Promise<void>;
   close(): Promise<void>;
 }
 
-interface Job { event: DetectedEvent; resolve: (located: LocatedEvent) => void; reject: (error: Error) => void }
+interface Job { event: DetectedEvent; resolve: (measured: MeasuredEvent) => void; reject: (error: Error) => void }
 interface Slot { worker: Worker; busy: number; ready: boolean; failed: boolean }
 
 /** Events posted to a worker ahead of its results: two, so it never waits for this thread to send the next one. */
@@ -68,7 +69,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
       if (job === undefined) return;
       posted.delete(message.id);
       slot.busy--;
-      if (message.kind === 'located') job.resolve(message.located);
+      if (message.kind === 'measured') job.resolve(message.measured);
       else job.reject(message.code !== undefined ? new WhenceError(message.code, message.message) : new Error(message.message));
       feed(slot);
     });
@@ -84,7 +85,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
   return {
     workerCount,
     locate(event) {
-      return new Promise<LocatedEvent>((resolve, reject) => {
+      return new Promise<MeasuredEvent>((resolve, reject) => {
         queue.push({ event, resolve, reject });
         for (const slot of slots) feed(slot);
       });

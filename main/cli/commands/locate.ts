@@ -6,7 +6,7 @@ import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
-import { DEFAULT_LOCATE_SETTINGS, locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
+import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, measureEvent, recordingAccess, runPipeline, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
 import { useWasmFft } from '../../dsp';
 import { writeFileAtomic } from '../../files';
@@ -175,7 +175,7 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
       const sharing = pool;
       options.locator = sharing.locate.bind(sharing);
       // Once the scan is over this thread locates waiting events too (the workers were the critical path).
-      options.onScanEnd = () => void sharing.locateHereToo((event) => locateEvent(recording, event, context));
+      options.onScanEnd = () => void sharing.locateHereToo((event) => measureEvent(recording, event, context));
     }
     const result = await runPipeline(recording, context, options);
     progress.done();

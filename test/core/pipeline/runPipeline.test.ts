@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { encodeWavFile, memoryByteSource, readWavInfo } from '../../../core/audio';
 import type { DetectedEvent } from '../../../core/detect';
-import { locateEvent, mapArrayToRecording, recordingAccess, runPipeline, type LocatedEvent, type LocateContext } from '../../../core/pipeline';
+import { locateEvent, mapArrayToRecording, measureEvent, recordingAccess, runPipeline, type LocateContext, type MeasuredEvent } from '../../../core/pipeline';
 import { prepareScene, renderScene, sceneFrameCount, type SceneSpec } from '../../../core/simulate';
 import { geometryOf } from '../../helpers/sceneRecording';
 
@@ -16,28 +16,52 @@ const spec: SceneSpec = {
   background: { noiseLevelDb: -56, noiseColor: 'pink' },
 };
 
+async function sceneRecording() {
+  const frames = sceneFrameCount(spec);
+  const channels = spec.microphones.map(() => new Float32Array(frames));
+  renderScene(prepareScene(spec), 0, frames, channels);
+  const source = memoryByteSource(encodeWavFile(channels, { channelCount: 4, sampleRateHz: 48_000, bitsPerSample: 24, sampleFormat: 'pcm-int' }), 'scene.wav');
+  const recording = recordingAccess(source, await readWavInfo(source));
+  const geometry = geometryOf(spec);
+  const context: LocateContext = { geometry, channelIndexOfMicrophone: mapArrayToRecording(geometry, 4, 'scene.wav').channelIndexOfMicrophone, settings: { speedMetersPerSecond: 343, speedSigmaMetersPerSecond: 0, dimensions: 2, confidence: 0.95, weighting: 'phat', sourceUpMeters: 1 } };
+  return { recording, context };
+}
+
 describe('runPipeline()', () => {
   it('calls onScanEnd once every event is handed to the locator, before it waits for them', async () => {
-    const frames = sceneFrameCount(spec);
-    const channels = spec.microphones.map(() => new Float32Array(frames));
-    renderScene(prepareScene(spec), 0, frames, channels);
-    const source = memoryByteSource(encodeWavFile(channels, { channelCount: 4, sampleRateHz: 48_000, bitsPerSample: 24, sampleFormat: 'pcm-int' }), 'scene.wav');
-    const recording = recordingAccess(source, await readWavInfo(source));
-    const geometry = geometryOf(spec);
-    const context: LocateContext = { geometry, channelIndexOfMicrophone: mapArrayToRecording(geometry, 4, 'scene.wav').channelIndexOfMicrophone, settings: { speedMetersPerSecond: 343, speedSigmaMetersPerSecond: 0, dimensions: 2, confidence: 0.95, weighting: 'phat', sourceUpMeters: 1 } };
+    const { recording, context } = await sceneRecording();
     // A locator that only works once the scan has ended (as the command line's pool lends this thread then): if the
     // pipeline waited for its events before calling onScanEnd, it would never finish.
-    const held: Array<{ event: DetectedEvent; resolve: (located: LocatedEvent) => void }> = [];
+    const held: Array<{ event: DetectedEvent; resolve: (measured: MeasuredEvent) => void }> = [];
     let dispatchedAtScanEnd = -1;
     const result = await runPipeline(recording, context, {
-      locator: (event) => new Promise<LocatedEvent>((resolve) => held.push({ event, resolve })),
+      locator: (event) => new Promise<MeasuredEvent>((resolve) => held.push({ event, resolve })),
       onScanEnd: () => {
         dispatchedAtScanEnd = held.length;
-        for (const { event, resolve } of held) void locateEvent(recording, event, context).then(resolve);
+        for (const { event, resolve } of held) void measureEvent(recording, event, context).then(resolve);
       },
     });
     expect(result.eventsFound).toBe(2);
     expect(dispatchedAtScanEnd).toBe(2);
     expect(result.located.filter((located) => located.solve.fix !== undefined)).toHaveLength(2);
+  });
+
+  it('measures each event without a fix and solves it once: with two events (the prior timing noise) the fixes of locateEvent()', async () => {
+    const { recording, context } = await sceneRecording();
+    const measured: MeasuredEvent[] = [];
+    const result = await runPipeline(recording, context, { locator: async (event) => { const m = await measureEvent(recording, event, context); measured.push(m); return m; } });
+    expect(measured.map((m) => 'solve' in m)).toEqual([false, false]);
+    expect(measured.every((m) => m.timingEvidence !== undefined)).toBe(true);
+    expect(result.timingModel?.source).toBe('prior'); // fewer than MIN_POOLED_EVENTS = 3 events (core/pipeline/timingNoise.ts)
+    for (const located of result.located) {
+      const alone = await locateEvent(recording, located.event, context);
+      // Same delays, evidence and model: the same solve to rounding (1e-9 m; computed the same way, common practice).
+      expect(located.solve.status).toBe(alone.solve.status);
+      expect(located.solve.fix!.eastMeters).toBeCloseTo(alone.solve.fix!.eastMeters, 9);
+      expect(located.solve.fix!.northMeters).toBeCloseTo(alone.solve.fix!.northMeters, 9);
+      expect(located.solve.fix!.ellipse.semiMajorMeters).toBeCloseTo(alone.solve.fix!.ellipse.semiMajorMeters, 9);
+      expect(located.timing!.evidence).toEqual(alone.timing!.evidence);
+      expect(located.emissionTimeSeconds).toBeCloseTo(alone.emissionTimeSeconds!, 12);
+    }
   });
 });

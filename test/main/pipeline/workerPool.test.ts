@@ -3,10 +3,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { DetectedEvent } from '../../../core/detect';
-import type { LocateContext, LocatedEvent } from '../../../core/pipeline';
+import type { LocateContext, MeasuredEvent } from '../../../core/pipeline';
 import { createLocatePool } from '../../../main/pipeline';
 
-// A stand-in locate worker speaking the pool's messages: answers after 15 ms with who located the event and how many
+// A stand-in locate worker speaking the pool's messages: answers after 15 ms with who measured the event and how many
 // events it held at that moment (its own queue included).
 const standIn = `
 import { parentPort } from 'node:worker_threads';
@@ -16,7 +16,7 @@ parentPort.on('message', (message) => {
   held++;
   const heldNow = held;
   if (message.event.index === 99) throw new Error('stand-in worker failed');
-  setTimeout(() => { held--; parentPort.postMessage({ kind: 'located', id: message.id, located: { by: 'worker', index: message.event.index, held: heldNow } }); }, 15);
+  setTimeout(() => { held--; parentPort.postMessage({ kind: 'measured', id: message.id, measured: { by: 'worker', index: message.event.index, held: heldNow } }); }, 15);
 });
 parentPort.postMessage({ kind: 'ready' });
 `;
@@ -36,7 +36,7 @@ describe('createLocatePool()', () => {
     try {
       await pool.locate(event(100)); // the worker has started
       const results = Array.from({ length: 12 }, (_, i) => pool.locate(event(i)));
-      await pool.locateHereToo(async (e) => { await sleep(25); return { by: 'here', index: e.index } as unknown as LocatedEvent; });
+      await pool.locateHereToo(async (e) => { await sleep(25); return { by: 'here', index: e.index } as unknown as MeasuredEvent; });
       const answers = (await Promise.all(results)) as unknown as Answer[];
       expect(answers.map((a) => a.index)).toEqual(Array.from({ length: 12 }, (_, i) => i));
       const byWorker = answers.filter((a) => a.by === 'worker');
@@ -53,7 +53,7 @@ describe('createLocatePool()', () => {
     try {
       await pool.locate(event(100)); // the worker has started
       const results = Array.from({ length: 5 }, (_, i) => pool.locate(event(i))); // two posted, three waiting
-      await pool.locateHereToo(async (e) => ({ by: 'here', index: e.index }) as unknown as LocatedEvent);
+      await pool.locateHereToo(async (e) => ({ by: 'here', index: e.index }) as unknown as MeasuredEvent);
       const answers = (await Promise.all(results)) as unknown as Answer[];
       expect(answers.every((a) => a.by === 'worker')).toBe(true);
     } finally {
