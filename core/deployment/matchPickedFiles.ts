@@ -1,5 +1,5 @@
 // Matches the files a deployment table names to the files the user picked in the app (paths relative to the picked
-// folder, or bare names): the path joined to the table's folder, else as written, else one picked path ending so, else the name.
+// folder, or bare names): the path joined to the table's folder, else as written, else the longest shared ending, else the name.
 import { WhenceError } from '../errors';
 import { printableText } from '../text';
 import type { DeploymentTable } from './deploymentTable';
@@ -25,6 +25,20 @@ function isAbsolutePath(path: string): boolean {
   return /^([a-zA-Z]:)?[\\/]/.test(path);
 }
 
+/** Of the picked files `candidates` (those of the same name), the one sharing the most trailing path components with `file`, two at least. */
+function longestCommonEnding(file: string, candidates: readonly number[], pickedParts: readonly string[][]): number | undefined {
+  const parts = file.replace(/\\/g, '/').split('/').filter((part) => part !== '' && part !== '.');
+  let best = 1;
+  let bestIndex: number | undefined;
+  candidates.forEach((index) => {
+    const candidate = pickedParts[index]!;
+    let common = 0;
+    while (common < parts.length && common < candidate.length && parts[parts.length - 1 - common] === candidate[candidate.length - 1 - common]) common++;
+    if (common > best) { best = common; bestIndex = index; } else if (common === best) bestIndex = undefined;
+  });
+  return bestIndex;
+}
+
 /**
  * For each file the table names (as written), the index of the picked file it is. `tablePath` is the table's own path in
  * the picked folder (`site/deployment.csv`) or its bare name. Throws a WhenceError naming the table line when a file
@@ -37,6 +51,7 @@ export function matchPickedFiles(table: DeploymentTable, tablePath: string, pick
   const byName = new Map<string, number[]>();
   const add = (map: Map<string, number[]>, key: string, index: number) => { const list = map.get(key); if (list === undefined) map.set(key, [index]); else list.push(index); };
   picked.forEach((path, index) => { add(byPath, path, index); add(byName, pathBaseName(path), index); });
+  const pickedParts = picked.map((path) => path.split('/'));
   const unique = (list: readonly number[] | undefined) => (list !== undefined && list.length === 1 ? list[0] : undefined);
   const where = (file: string) => {
     const line = table.rows.find((row) => row.file === file)!.lineNumber;
@@ -44,13 +59,12 @@ export function matchPickedFiles(table: DeploymentTable, tablePath: string, pick
   };
   const matches = new Map<string, number>();
   for (const file of new Set(table.rows.map((row) => row.file))) {
-    const written = isAbsolutePath(file) ? undefined : normalisePickedPath(file);
-    const joined = written === undefined ? undefined : normalisePickedPath(tableFolder === '' ? file : `${tableFolder}/${file}`);
-    const tail = normalisePickedPath(file.replace(/^([a-zA-Z]:)?[\\/]+/, ''));
-    const endings = tail === undefined || tail === '' ? [] : picked.flatMap((path, index) => (path === tail || path.endsWith(`/${tail}`) ? [index] : []));
+    const absolute = isAbsolutePath(file);
+    const written = absolute ? undefined : normalisePickedPath(file);
+    const joined = absolute ? undefined : normalisePickedPath(tableFolder === '' ? file : `${tableFolder}/${file}`);
     const found = (joined !== undefined ? unique(byPath.get(joined)) : undefined)
       ?? (written !== undefined ? unique(byPath.get(written)) : undefined)
-      ?? unique(endings);
+      ?? longestCommonEnding(file, byName.get(pathBaseName(file)) ?? [], pickedParts);
     if (found !== undefined) { matches.set(file, found); continue; }
     const name = pathBaseName(file);
     const named = byName.get(name) ?? [];
