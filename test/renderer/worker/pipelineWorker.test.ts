@@ -11,7 +11,8 @@ const T0 = 5 * 3600;
 /** A mono float file of `frames` samples of value `level`, with a bext start `secondsOfDay` after midnight of 2026-05-14. */
 function file(frames: number, secondsOfDay: number, level: number): Blob {
   const bext = { description: '', originator: '', originationDate: '2026-05-14', originationTime: '05:00:00', timeReferenceFrames: Math.round(secondsOfDay * FS) };
-  return new Blob([encodeWavFile([new Float32Array(frames).fill(level)], { channelCount: 1, sampleRateHz: FS, bitsPerSample: 32, sampleFormat: 'ieee-float', bext })]);
+  const bytes = encodeWavFile([new Float32Array(frames).fill(level)], { channelCount: 1, sampleRateHz: FS, bitsPerSample: 32, sampleFormat: 'ieee-float', bext });
+  return new Blob([bytes.slice().buffer as ArrayBuffer]);
 }
 const TABLE = 'recorder,file,file_channel,microphone\nA,north/a.wav,1,MA\nB,south/b.wav,1,MB\n';
 const FILES = [{ path: 'north/a.wav', blob: file(2000, T0, 0.25) }, { path: 'south/b.wav', blob: file(1000, T0 + 1, 0.5) }];
