@@ -1,15 +1,16 @@
 // The workspace: a toolbar, the array and settings on the left, the map (the largest panel), the recording and
 // correlations under both, the events and the fix log on the right; panels resize and collapse. Work runs in the pipeline worker.
-import { useEffect, useMemo, useState, type DragEvent } from 'react';
+import { useEffect, useMemo, useRef, useState, type DragEvent } from 'react';
 import { WHENCE_VERSION } from '../core/version';
 import { locatedVerdict } from '../core/pipeline';
 import { CorrelationsView } from './correlations';
+import { ClockFitPanel, OpenDeploymentDialog, RecordersTimeline } from './deployment';
 import { FixLogPanel, fixLogFileName, loggedEventIndices, openRecordingIdentity } from './fixlog';
 import { detectHost } from './host';
 import { MapView } from './map';
 import { MicrophonesPanel } from './microphones';
 import { CautionsPanel } from './panels/CautionsPanel';
-import { RecordingView } from './recording';
+import { RecordingView, type ViewSpan } from './recording';
 import { SettingsPanel } from './settings';
 import { SitePictureControl, useSitePictureImage } from './sitePicture';
 import { useWorkspace } from './state/useWorkspace';
@@ -22,7 +23,7 @@ import { clampPanelLayout, defaultPanelLayout, panelGridTracks, type PanelLayout
 import { Splitter } from './workspace/Splitter';
 
 type SideTab = 'microphones' | 'settings';
-type BottomTab = 'recording' | 'correlations' | 'safety';
+type BottomTab = 'recording' | 'clocks' | 'correlations' | 'safety';
 
 const host = detectHost();
 
@@ -60,6 +61,15 @@ export function App() {
   const [bottomTab, setBottomTab] = useState<BottomTab>('recording');
   const [overlayKind, setOverlayKind] = useState<'none' | 'precision' | 'srp'>('none');
   const [layout, changeLayout] = usePanelLayout();
+  const [deploymentDialogOpen, setDeploymentDialogOpen] = useState(false);
+  // The recording view's span (marked on the recorders time line) and a span the time line asks it to show.
+  const [recordingViewSpan, setRecordingViewSpan] = useState<ViewSpan | undefined>(undefined);
+  const [viewRequest, setViewRequest] = useState<(ViewSpan & { serial: number }) | undefined>(undefined);
+  const deployment = state.recording?.deployment;
+  // A new clock fit (or the way back) redraws the recording view from scratch: its spectrogram was read through the old clocks.
+  const clocksSerial = useRef({ clocks: state.clocks, serial: 0 });
+  if (clocksSerial.current.clocks !== state.clocks) clocksSerial.current = { clocks: state.clocks, serial: clocksSerial.current.serial + 1 };
+  const shownBottomTab: BottomTab = bottomTab === 'clocks' && deployment === undefined ? 'recording' : bottomTab;
   const tracks = panelGridTracks(layout);
   const speedMetersPerSecond = 'error' in workspace.speed ? 343 : workspace.speed.speedMetersPerSecond;
   const selected = state.selectedEventIndex === undefined ? undefined : state.events[state.selectedEventIndex];
@@ -80,6 +90,8 @@ export function App() {
   const logged = useMemo(() => loggedEventIndices(state.document.fixes, state.recording === undefined ? undefined : openRecordingIdentity(state.recording), state.events), [state.document.fixes, state.recording, state.events]);
   const recordingEvents = useMemo(() => state.events.map((located, index) => ({ index, number: located.event.index + 1, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, status: located.solve.status, selected: index === state.selectedEventIndex })), [state.events, state.selectedEventIndex]);
   const channelLabels = useMemo(() => {
+    // a deployment's channels are its microphones, named in its table
+    if (state.recording?.deployment !== undefined) return state.recording.deployment.microphones.map((m) => m.label);
     const count = state.recording?.info.channelCount ?? 0;
     return Array.from({ length: count }, (_, channel) => state.document.array.microphones.find((m) => m.channel === channel + 1)?.label ?? `ch ${channel + 1}`);
   }, [state.recording, state.document.array.microphones]);
@@ -109,6 +121,7 @@ export function App() {
         onUndo={workspace.undo}
         onRedo={workspace.redo}
         onOpenRecording={() => void workspace.openRecording()}
+        onOpenDeployment={() => setDeploymentDialogOpen(true)}
         onOpenArray={() => void workspace.openArray()}
         onOpenProject={() => void workspace.openProject()}
         onSave={() => void workspace.saveProject(false)}
@@ -130,7 +143,7 @@ export function App() {
               <MicrophonesPanel
                 microphones={state.document.array.microphones}
                 origin={state.document.array.origin}
-                recordingChannelCount={state.recording?.info.channelCount}
+                recordingChannelCount={deployment === undefined ? state.recording?.info.channelCount : undefined}
                 onChange={(list, origin) => workspace.setArray({ ...state.document.array, microphones: list, ...(origin !== undefined ? { origin } : {}) })}
                 onImportArray={() => void workspace.openArray()}
                 onExportArray={(text) => void workspace.exportArray(text)}
@@ -170,13 +183,19 @@ export function App() {
           <section className={`bottom-area${layout.bottomOpen ? '' : ' collapsed'}`} data-testid="panel-bottom">
             <nav className="tabs" role="tablist">
               <PanelBar title="Recording" side="bottom" open={layout.bottomOpen} onToggle={() => changeLayout((l) => ({ ...l, bottomOpen: !l.bottomOpen }))} testId="collapse-bottom" />
-              <button type="button" role="tab" aria-selected={bottomTab === 'recording'} onClick={() => setBottomTab('recording')} data-testid="tab-recording">Recording</button>
-              <button type="button" role="tab" aria-selected={bottomTab === 'correlations'} onClick={() => setBottomTab('correlations')} data-testid="tab-correlations">Correlations</button>
-              <button type="button" role="tab" aria-selected={bottomTab === 'safety'} onClick={() => setBottomTab('safety')} data-testid="tab-safety">Safety &amp; about</button>
+              <button type="button" role="tab" aria-selected={shownBottomTab === 'recording'} onClick={() => setBottomTab('recording')} data-testid="tab-recording">Recording</button>
+              {deployment !== undefined && <button type="button" role="tab" aria-selected={shownBottomTab === 'clocks'} onClick={() => setBottomTab('clocks')} data-testid="tab-clocks" title="The recorders' clocks: fit them from calibration sounds">Clock fit{state.clocks.kind === 'files' ? ' (not fitted)' : ''}</button>}
+              <button type="button" role="tab" aria-selected={shownBottomTab === 'correlations'} onClick={() => setBottomTab('correlations')} data-testid="tab-correlations">Correlations</button>
+              <button type="button" role="tab" aria-selected={shownBottomTab === 'safety'} onClick={() => setBottomTab('safety')} data-testid="tab-safety">Safety &amp; about</button>
             </nav>
             <div className="tab-body">
-              {bottomTab === 'recording' && (state.recording !== undefined ? (
+              {shownBottomTab === 'recording' && state.recording !== undefined && deployment !== undefined && (
+                <RecordersTimeline layout={deployment} clocks={state.clocks} view={recordingViewSpan} startTimeIso={state.recording.info.startTime?.isoLocal}
+                  onMoveView={(span) => setViewRequest((previous) => ({ ...span, serial: (previous?.serial ?? 0) + 1 }))} />
+              )}
+              {shownBottomTab === 'recording' && (state.recording !== undefined ? (
                 <RecordingView
+                  key={`clocks-${clocksSerial.current.serial}`}
                   info={{ name: state.recording.name, channelCount: state.recording.info.channelCount, sampleRateHz: state.recording.info.sampleRateHz, frameCount: state.recording.info.frameCount, durationSeconds: state.recording.info.durationSeconds, ...(state.recording.info.startTime ? { startTimeIso: state.recording.info.startTime.isoLocal } : {}) }}
                   channelLabels={channelLabels}
                   envelope={state.envelope}
@@ -187,12 +206,18 @@ export function App() {
                   onSelectSpan={workspace.selectSpan}
                   onLocateSpan={(start, end) => void workspace.locateSpan(start, end)}
                   onSelectEvent={workspace.selectEvent}
+                  onViewChange={setRecordingViewSpan}
+                  {...(viewRequest !== undefined ? { viewRequest } : {})}
                 />
-              ) : <p className="muted empty">No recording open. Open one from the toolbar or drop a WAV file here.</p>)}
-              {bottomTab === 'correlations' && (selected !== undefined && workspace.correlations !== undefined ? (
+              ) : <p className="muted empty">No recording open. Open one (or a deployment of several recorders) from the toolbar, or drop a WAV file here.</p>)}
+              {shownBottomTab === 'clocks' && (
+                <ClockFitPanel layout={deployment} clocks={state.clocks} calibrationTables={workspace.deploymentCalibrationTables} busy={state.busy !== undefined}
+                  onFit={(calibration, options) => void workspace.fitClocks(calibration, options)} onClear={() => void workspace.clearClocks()} />
+              )}
+              {shownBottomTab === 'correlations' && (selected !== undefined && workspace.correlations !== undefined ? (
                 <CorrelationsView pairs={workspace.correlations.pairs} autocorrelations={workspace.correlations.autocorrelations} bandHz={selected.bandHz} weighting={state.document.settings.weighting} />
               ) : <p className="muted empty">Select a sound to see its correlations.</p>)}
-              {bottomTab === 'safety' && <CautionsPanel />}
+              {shownBottomTab === 'safety' && <CautionsPanel />}
             </div>
           </section>
         {layout.rightOpen ? <Splitter orientation="vertical" label="Drag to resize the events and fix log panel" testId="splitter-right" onDrag={(d) => changeLayout((l) => ({ ...l, rightPixels: l.rightPixels - d }))} /> : <span className="splitter-gap splitter-gap-right" />}
@@ -209,6 +234,7 @@ export function App() {
           />
         </aside>
       </div>
+      <OpenDeploymentDialog open={deploymentDialogOpen} onPick={(how, nameTime) => void workspace.openDeployment(how, nameTime)} onClose={() => setDeploymentDialogOpen(false)} />
       <ConfirmDialog question={workspace.question} onAnswer={workspace.answerQuestion} />
     </div>
   );

@@ -2,6 +2,7 @@
 // times, the calibration sounds and how they are looked for; opens the deployment and fits its clocks when asked.
 import { basename } from 'node:path';
 import { clockFitHeadLines, nameTimePattern, parseCalibrationCsv, parseSharedSoundsCsv, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentRecording, type DeploymentSync } from '../../core/deployment';
+import { deploymentHeadNotes as headNotesOf } from '../../core/export';
 import type { ArrayGeometry } from '../../core/project';
 import { openDeployment } from '../pipeline';
 import type { CliIo } from './io';
@@ -73,16 +74,7 @@ export async function openDeploymentFromOptions(values: ParsedCommand['values'],
   }
 }
 
-/** Head lines of a survey log for a deployment: the table, the time base and one clock line per recorder. */
+/** Head lines of a survey log for a deployment (core/export, shared with the app): the table, the time base and one clock line per recorder. */
 export function deploymentHeadNotes(opened: OpenedDeployment): string[] {
-  const { recording, sync } = opened;
-  const files = recording.layout.recorders.flatMap((recorder) => recorder.files);
-  const sources = [...new Set(files.map((file) => file.startSource))].map((source) => `${files.filter((file) => file.startSource === source).length} from ${source}`);
-  const gaps = recording.layout.recorders.reduce((count, recorder) => count + recorder.gaps.length, 0);
-  const lines = [
-    `deployment: ${recording.layout.tableName}, ${recording.layout.recorders.length} recorders, ${recording.layout.microphones.length} microphones; time_s from its earliest start ${recording.info.startTime?.isoLocal ?? ''}`,
-    `file start times: ${sources.join(', ')}; ${gaps} gap${gaps === 1 ? '' : 's'} between files (silent, flagged on the events they touch)`,
-  ];
-  if (sync === undefined) return [...lines, 'clocks: not fitted (no --calibration): each recorder\'s file stamps taken as true'];
-  return [...lines, ...clockFitHeadLines(sync.fit)];
+  return headNotesOf(opened.recording.layout, opened.sync === undefined ? undefined : clockFitHeadLines(opened.sync.fit));
 }

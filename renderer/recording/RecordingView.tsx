@@ -21,6 +21,10 @@ export interface RecordingViewProps {
   onSelectSpan: (startSeconds: number, endSeconds: number) => void;
   onLocateSpan: (startSeconds: number, endSeconds: number) => void;
   onSelectEvent: (index: number) => void;
+  /** Told the span on screen whenever it changes (the recorders time line marks it). */
+  onViewChange?: (view: ViewSpan) => void;
+  /** A span to show, asked for from outside (the recorders time line); a new `serial` asks again. */
+  viewRequest?: ViewSpan & { serial: number };
 }
 
 const gutterPixels = 92;
@@ -42,7 +46,7 @@ interface SpectrogramShown {
 }
 
 export function RecordingView(props: RecordingViewProps) {
-  const { info, channelLabels, envelope, envelopeProgress, events, selection, requestSpectrogram, onSelectSpan, onLocateSpan, onSelectEvent } = props;
+  const { info, channelLabels, envelope, envelopeProgress, events, selection, requestSpectrogram, onSelectSpan, onLocateSpan, onSelectEvent, onViewChange, viewRequest } = props;
   const duration = Math.max(info.durationSeconds, 1 / info.sampleRateHz);
   const minSpan = Math.min(duration, Math.max(24 / info.sampleRateHz, 0.001));
   const nyquistHz = info.sampleRateHz / 2;
@@ -76,6 +80,14 @@ export function RecordingView(props: RecordingViewProps) {
     setLocalSelection(undefined);
     setTopHz(info.sampleRateHz / 2);
   }, [recordingKey, duration, info.sampleRateHz]);
+
+  useEffect(() => { onViewChange?.(view); }, [view, onViewChange]);
+  const requestSerial = viewRequest?.serial;
+  useEffect(() => {
+    if (viewRequest === undefined) return;
+    setView(clampSpan(viewRequest, duration, minSpan));
+    // only a new request moves the view, not a new duration
+  }, [requestSerial]);
 
   useLayoutEffect(() => {
     const element = containerRef.current;

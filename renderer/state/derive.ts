@@ -3,6 +3,7 @@
 import { fixLogContextFor, locatedByEntryId, openRecordingIdentity, type FixLogContext } from '../fixlog';
 import { describeSpeed } from '../settings';
 import { WhenceError } from '../../core/errors';
+import { microphonesByLabel, type DeploymentLayout } from '../../core/deployment';
 import { mapArrayToRecording, type LocateContext, type LocatedEvent, type LocateSettings } from '../../core/pipeline';
 import type { ArrayGeometry, ProjectDocument, ProjectMedium } from '../../core/project';
 import type { WorkspaceState } from './workspace';
@@ -32,19 +33,28 @@ export function locateSettings(document: ProjectDocument, speed: SpeedInUse): Lo
   return settings;
 }
 
-export function locateContext(document: ProjectDocument, speed: SpeedInUse): LocateContext {
-  return { geometry: geometryOf(document), channelIndexOfMicrophone: document.array.microphones.map((m) => m.channel - 1), settings: locateSettings(document, speed) };
+/**
+ * The worker's locate context. A recording's channels are the array's `channel` column; a deployment's are its microphones
+ * in table order, matched by label as `whence locate --deployment` matches them.
+ */
+export function locateContext(document: ProjectDocument, speed: SpeedInUse, deployment?: Pick<DeploymentLayout, 'microphones'>): LocateContext {
+  const labels = deployment?.microphones.map((m) => m.label);
+  const channelIndexOfMicrophone = document.array.microphones.map((m) => (labels === undefined ? m.channel - 1 : labels.indexOf(m.label)));
+  return { geometry: geometryOf(document), channelIndexOfMicrophone, settings: locateSettings(document, speed) };
 }
 
 /**
  * The context of a locate run over the open recording, or the problems that stop one, in words: the channel checks are
  * core/pipeline's mapArrayToRecording (as `whence locate` makes them), the speed is the medium's.
  */
-export function locateReadiness(document: ProjectDocument, recording: { name: string; info: { channelCount: number } } | undefined): { context: LocateContext } | { problems: string[] } {
+export function locateReadiness(document: ProjectDocument, recording: { name: string; info: { channelCount: number }; deployment?: DeploymentLayout } | undefined): { context: LocateContext } | { problems: string[] } {
   if (recording === undefined) return { problems: ['Open a recording first.'] };
   const problems: string[] = [];
   try {
-    mapArrayToRecording(geometryOf(document), recording.info.channelCount, recording.name);
+    const { deployment } = recording;
+    if (deployment === undefined) mapArrayToRecording(geometryOf(document), recording.info.channelCount, recording.name);
+    else if (document.array.microphones.length < 3) problems.push(`The array has ${document.array.microphones.length} microphone${document.array.microphones.length === 1 ? '' : 's'}; a position fix needs at least 3 (4 for a 3-D fix). Open the array table (its labels as in the deployment table's microphone column).`);
+    else microphonesByLabel(geometryOf(document), { layout: deployment });
   } catch (error) {
     if (!(error instanceof WhenceError)) throw error;
     problems.push(`${error.message.charAt(0).toUpperCase()}${error.message.slice(1)}`);
@@ -55,7 +65,7 @@ export function locateReadiness(document: ProjectDocument, recording: { name: st
   } catch (error) {
     problems.push(error instanceof Error ? error.message : String(error));
   }
-  return speed === undefined || problems.length > 0 ? { problems } : { context: locateContext(document, speed) };
+  return speed === undefined || problems.length > 0 ? { problems } : { context: locateContext(document, speed, recording.deployment) };
 }
 
 /** What the fix log's exports say about the run, with this session's located events by entry id; undefined without a recording or a speed. */

@@ -52,3 +52,34 @@ export function discardWorkQuestion(document: Pick<ProjectDocument, 'name' | 'fi
     cancelId: 'cancel',
   };
 }
+
+/** Asked when the picked folder (or files) hold several deployment tables: which one to open. Choice ids are the paths. */
+export function deploymentTableQuestion(paths: readonly string[], what: string): Question {
+  return {
+    title: 'Which deployment table?',
+    text: `${what} holds ${paths.length} deployment tables (CSV files starting with recorder,file,file_channel,microphone). Which one describes the deployment to open? Its files are looked for among the files picked.`,
+    choices: [...paths.map((path, index) => ({ id: `table:${path}`, label: path, ...(index === 0 ? { primary: true } : {}) })), { id: 'cancel', label: 'Cancel' }],
+    cancelId: 'cancel',
+  };
+}
+
+/** What to open after a project (or its recovery copy) was opened: its recording, or its deployment (named by its table, a .csv). */
+export function reopenRecordingHint(recording: { name: string } | undefined): string {
+  if (recording === undefined) return 'Open a recording (or a deployment) to locate.';
+  if (/\.csv$/i.test(recording.name)) return `Open its deployment ${recording.name} again (Open deployment…: the folder with the table and its WAV files, and the same file-name time pattern if one was given) to locate again.`;
+  return `Open its recording ${recording.name} again to locate again.`;
+}
+
+/** Asked when the clocks of a deployment change while the fix log holds fixes of it located with the clocks before. */
+export function staleFixesQuestion(count: number, deploymentName: string, clocksBefore: string, clocksNow: string): Question {
+  const fixes = `${count} fix${count === 1 ? '' : 'es'}`;
+  return {
+    title: 'Fixes located with other clocks',
+    text: `The fix log holds ${fixes} of ${deploymentName} located with the ${clocksBefore}. The deployment is now read through the ${clocksNow}, which moves its sounds' time differences: those fixes are out of date. Remove them from the log (Undo brings them back) and log the fixes located again, or keep them as they are?`,
+    choices: [
+      { id: 'remove', label: `Remove the ${fixes}`, primary: true },
+      { id: 'keep', label: 'Keep them' },
+    ],
+    cancelId: 'keep',
+  };
+}

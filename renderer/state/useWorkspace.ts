@@ -11,10 +11,16 @@ import { recoveryTimeText } from '../workspace/recoveryTime';
 import { duplicateLocateQuestion, loggedFixesInSpan } from '../workspace/duplicateLocate';
 import { exportFileName } from '../workspace/exportFileName';
 import { surveyLogRunNotes } from '../../core/export';
-import { conditionsQuestion, discardWorkQuestion, type Question } from './questions';
+import { pathBaseName, type DeploymentClockReport } from '../../core/deployment';
+import { conditionsQuestion, deploymentTableQuestion, discardWorkQuestion, reopenRecordingHint, staleFixesQuestion, type Question } from './questions';
 import type { Host, OpenedRecording } from '../host';
-import { PipelineBridge, type WorkerCall } from '../worker/bridge';
-import { fixLogContextOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
+import { pickFiles } from '../host/pickFiles';
+import { PipelineBridge, WorkerCallError, type WorkerCall } from '../worker/bridge';
+import type { SyncClocksParams, WorkerOpenResult } from '../worker/protocol';
+import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath } from '../deployment/pickedFiles';
+import { clocksInUseText, type ClocksInUse } from '../deployment/clockFitRows';
+import { deploymentLogNotes, deploymentOpenedText, deploymentErrorHint } from '../deployment/deploymentNotes';
+import { fixLogContextOf, geometryOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
 import { initialWorkspace, NEW_PROJECT_NAME, workspaceReducer, type WorkspaceState } from './workspace';
 import { maxOf } from '../../core/units';
@@ -36,11 +42,25 @@ function createWorker(): Worker {
   return new Worker(new URL('../worker/pipelineWorker.ts', import.meta.url), { type: 'module' });
 }
 
+/** How a deployment is picked: a folder holding its table and files, or the table and its files picked together. */
+export type DeploymentPick = 'folder' | 'files';
+
+/** A calibration table of the picked deployment's folder (or files), offered by the Clock fit panel. */
+export interface PickedTable { name: string; text: string }
+
 export interface WorkspaceController {
   state: WorkspaceState;
   speed: SpeedInUse | { error: string };
   correlations: CorrelationPlots | undefined;
   openRecording(): Promise<void>;
+  /** Picks and opens a deployment; `nameTime` is the file-name time pattern (the command line's --name-time), if any. */
+  openDeployment(how: DeploymentPick, nameTime: string | undefined): Promise<void>;
+  /** Calibration tables found beside the open deployment's table. */
+  deploymentCalibrationTables: PickedTable[];
+  /** Fits the open deployment's clocks from a calibration table ('pick': the user chooses the file now). */
+  fitClocks(calibration: PickedTable | 'pick', options: { referenceRecorder?: string; searchSeconds?: number }): Promise<void>;
+  /** Back to each recorder's own file stamps. */
+  clearClocks(): Promise<void>;
   openRecordingFile(file: File): Promise<void>;
   openArray(): Promise<void>;
   importArrayText(name: string, text: string): void;
@@ -120,28 +140,57 @@ export function useWorkspace(host: Host): WorkspaceController {
   }, []);
 
   const speed = useMemo(() => currentSpeed(state.document.medium), [state.document.medium]);
-  // The head notes of the last locate run (as `whence locate` writes them), for the recording it ran over.
-  const [runNotes, setRunNotes] = useState<{ recordingName: string; notes: string[] } | undefined>(undefined);
+  // The head notes of the last locate run (as `whence locate` writes them), for the recording (and clocks) it ran over;
+  // a deployment's head lines (its files and clocks, as `whence locate --deployment` writes them) come first.
+  const [runNotes, setRunNotes] = useState<{ recordingName: string; clocks: ClocksInUse; notes: string[] } | undefined>(undefined);
   const fixLogContext = useMemo(() => {
     const context = fixLogContextOf({ document: state.document, recording: state.recording, events: state.events });
-    return context !== undefined && runNotes !== undefined && runNotes.recordingName === state.recording?.name ? { ...context, runNotes: runNotes.notes } : context;
-  }, [state.document, state.recording, state.events, runNotes]);
+    if (context === undefined) return undefined;
+    if (runNotes !== undefined && runNotes.recordingName === state.recording?.name && runNotes.clocks === state.clocks) return { ...context, runNotes: runNotes.notes };
+    const deployment = state.recording?.deployment;
+    return deployment === undefined ? context : { ...context, runNotes: deploymentLogNotes(deployment, state.clocks) };
+  }, [state.document, state.recording, state.clocks, state.events, runNotes]);
+  // Calibration tables picked with the open deployment (offered by the Clock fit panel).
+  const [deploymentCalibrationTables, setDeploymentCalibrationTables] = useState<PickedTable[]>([]);
+
+  /** The overview (envelope) of the open recording: a sampled one first for a long recording, then the exact one. */
+  const buildOverview = useCallback(async (name: string, info: WavInfo): Promise<void> => {
+    const worker = bridge();
+    dispatch({ type: 'busy/set', busy: { label: `Overview of ${name}`, progress: 0 } });
+    if (envelopePreviewWorthwhile(info.frameCount)) {
+      // A long recording: a sampled overview within seconds, then the exact one from a pass over every frame.
+      const preview = worker.call<EnvelopePyramid>('envelopePreview', {});
+      workRef.current = preview;
+      previewShownRef.current = preview.promise.then(() => undefined, () => undefined);
+      dispatch({ type: 'envelope/done', envelope: await preview.promise });
+    }
+    const call = worker.call<EnvelopePyramid>('envelope', {}, (fraction) => {
+      dispatch({ type: 'envelope/progress', fraction: fraction as number });
+      dispatch({ type: 'busy/set', busy: { label: `Overview of ${name}`, progress: fraction as number } });
+    });
+    workRef.current = call;
+    const envelope = await call.promise;
+    dispatch({ type: 'envelope/done', envelope });
+  }, [bridge]);
 
   const loadRecording = useCallback(async (opened: OpenedRecording): Promise<WavInfo | undefined> => {
     const previous = recordingRef.current;
     const worker = bridge();
     worker.setByteReader(opened.byteReader);
-    dispatch({ type: 'busy/set', busy: { label: `Reading ${opened.name}`, progress: 0 } });
+    const isDeployment = opened.workerSource.kind === 'deployment';
+    dispatch({ type: 'busy/set', busy: { label: `Reading ${isDeployment ? 'the deployment ' : ''}${opened.name}`, progress: 0 } });
     let info: WavInfo;
     let contentHash: string;
+    let deployment: WorkerOpenResult['deployment'];
     try {
-      ({ info, contentHash } = await worker.call<{ info: WavInfo; contentHash: string }>('open', { source: opened.workerSource }).promise);
+      ({ info, contentHash, deployment } = await worker.call<WorkerOpenResult>('open', { source: opened.workerSource }).promise);
     } catch (error) {
       // The recording that was open stays open and in use.
       worker.setByteReader(previous?.byteReader);
       await opened.close().catch(() => undefined);
       dispatch({ type: 'busy/set', busy: undefined });
-      notify('error', `${opened.name} could not be opened: ${message(error)} Your project and the recording in use are unchanged.`);
+      const hint = isDeployment ? deploymentErrorHint(error instanceof WorkerCallError ? error.code : undefined) : '';
+      notify('error', `${isDeployment ? 'The deployment ' : ''}${opened.name} could not be opened: ${message(error)}${hint === '' ? '' : ` ${hint}`} Your project and the recording in use are unchanged.`);
       return undefined;
     }
     recordingRef.current = opened;
@@ -159,23 +208,11 @@ export function useWorkspace(host: Host): WorkspaceController {
           dispatch({ type: 'conditions/reset', leaveDemo: false });
         }
       }
-      dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash });
-      for (const warning of info.warnings) notify('warning', `${opened.name}: ${warning}`);
-      dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: 0 } });
-      if (envelopePreviewWorthwhile(info.frameCount)) {
-        // A long recording: a sampled overview within seconds, then the exact one from a pass over every frame.
-        const preview = worker.call<EnvelopePyramid>('envelopePreview', {});
-        workRef.current = preview;
-        previewShownRef.current = preview.promise.then(() => undefined, () => undefined);
-        dispatch({ type: 'envelope/done', envelope: await preview.promise });
-      }
-      const call = worker.call<EnvelopePyramid>('envelope', {}, (fraction) => {
-        dispatch({ type: 'envelope/progress', fraction: fraction as number });
-        dispatch({ type: 'busy/set', busy: { label: `Overview of ${opened.name}`, progress: fraction as number } });
-      });
-      workRef.current = call;
-      const envelope = await call.promise;
-      dispatch({ type: 'envelope/done', envelope });
+      dispatch({ type: 'recording/opened', name: opened.name, sizeBytes: opened.sizeBytes, info, contentHash, ...(deployment !== undefined ? { deployment } : {}) });
+      if (deployment !== undefined) notify('info', deploymentOpenedText(deployment));
+      const warnings = [...info.warnings, ...(deployment?.warnings ?? []).filter((warning) => !info.warnings.includes(warning))];
+      for (const warning of warnings) notify('warning', `${opened.name}: ${warning}`);
+      await buildOverview(opened.name, info);
       return info;
     } catch (error) {
       notify('error', `${opened.name} could not be opened: ${message(error)} Your project is unchanged.`);
@@ -184,7 +221,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       workRef.current = undefined;
       dispatch({ type: 'busy/set', busy: undefined });
     }
-  }, [bridge, notify, ask]);
+  }, [bridge, notify, ask, buildOverview]);
 
   const locateAll = useCallback(async () => {
     const ready = locateReadiness(stateRef.current.document, stateRef.current.recording);
@@ -199,7 +236,8 @@ export function useWorkspace(host: Host): WorkspaceController {
     try {
       const result = await call.promise;
       dispatch({ type: 'events/replace', events: result.located });
-      if (stateRef.current.recording !== undefined) setRunNotes({ recordingName: stateRef.current.recording.name, notes: surveyLogRunNotes(result) });
+      const { recording, clocks } = stateRef.current;
+      if (recording !== undefined) setRunNotes({ recordingName: recording.name, clocks, notes: [...(recording.deployment !== undefined ? deploymentLogNotes(recording.deployment, clocks) : []), ...surveyLogRunNotes(result)] });
       const fixed = result.located.filter((l) => l.solve.status === 'ok').length;
       notify(result.cancelled ? 'warning' : 'info', `${result.cancelled ? 'Stopped: ' : ''}${result.eventsFound} event${result.eventsFound === 1 ? '' : 's'} found, ${fixed} ok.`);
       for (const warning of result.warnings) notify('warning', warning);
@@ -248,7 +286,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     const changed = key.some((part, i) => part !== solveKey.current[i]);
     solveKey.current = key;
     if (!changed || state.events.length === 0 || state.recording === undefined || 'error' in speed) return;
-    const context = locateContext(state.document, speed);
+    const context = locateContext(state.document, speed, state.recording.deployment);
     const fs = state.recording.info.sampleRateHz;
     const selected = state.selectedEventIndex;
     if (selected !== undefined && state.events[selected] !== undefined) {
@@ -268,7 +306,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     if (located === undefined || 'error' in speed || state.recording === undefined) { setCorrelations(undefined); return; }
     let live = true;
     const usedPairs = located.reduced.droppedPairs.length === 0 ? undefined : located.pairs.filter((p) => !located.reduced.droppedPairs.some((d) => d.indexA === p.indexA && d.indexB === p.indexB)).map((p) => `${p.indexA}-${p.indexB}`);
-    bridge().call<CorrelationPlots>('correlations', { context: locateContext(stateRef.current.document, speed), startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, usedPairs }).promise.then(
+    bridge().call<CorrelationPlots>('correlations', { context: locateContext(stateRef.current.document, speed, stateRef.current.recording?.deployment), startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, usedPairs }).promise.then(
       (plots) => { if (live) setCorrelations(plots); },
       (error: unknown) => { if (live) { setCorrelations(undefined); notify('warning', `Correlation plots: ${message(error)}`); } },
     );
@@ -367,12 +405,149 @@ export function useWorkspace(host: Host): WorkspaceController {
     await exportText(fixLogFileName(kind, stateRef.current.document.name, new Date()), result.text, kind);
   }, [exportText, notify, fixLogContext]);
 
+  /** After the clocks changed: the overview again, a warning about logged fixes of the old clocks, and the events located again. */
+  const afterClocksChanged = useCallback(async (before: ClocksInUse, hadEvents: boolean) => {
+    const current = stateRef.current;
+    const recording = current.recording;
+    if (recording === undefined) return;
+    const identity = openRecordingIdentity(recording);
+    const stale = current.document.fixes.filter((entry) => sameRecording(entry.recording, identity));
+    if (stale.length > 0) {
+      const choice = await ask(staleFixesQuestion(stale.length, recording.name, clocksInUseText(before), clocksInUseText(current.clocks)));
+      if (choice === 'remove') {
+        const ids = new Set(stale.map((entry) => entry.id));
+        dispatch({ type: 'fixes/set', fixes: stateRef.current.document.fixes.filter((entry) => !ids.has(entry.id)) });
+        notify('info', `Removed ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with the ${clocksInUseText(before)} from the log (Undo brings them back).`);
+      } else {
+        notify('warning', `The fix log keeps ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with the ${clocksInUseText(before)}, not the clocks now in use: they are not moved. Log the fixes located again and delete the old ones when you are sure.`);
+      }
+    }
+    try {
+      await buildOverview(recording.name, recording.info);
+    } catch (error) {
+      notify('warning', `The overview could not be redrawn: ${message(error)}`);
+    } finally {
+      workRef.current = undefined;
+      dispatch({ type: 'busy/set', busy: undefined });
+    }
+    if (hadEvents) {
+      notify('info', `Locating again with the ${clocksInUseText(stateRef.current.clocks)}: the events found with the ${clocksInUseText(before)} are gone.`);
+      await locateAll();
+    }
+  }, [ask, buildOverview, locateAll, notify]);
+
+  const openDeployment = useCallback(async (how: DeploymentPick, nameTime: string | undefined) => {
+    // the file input first, while the click that asked for it still counts as the user's
+    const files = await pickFiles(how === 'folder' ? { directory: true, testId: 'deployment-folder-input' } : { multiple: true, accept: '.csv,.wav,.rf64,.bw64,text/csv,audio/wav,audio/x-wav', testId: 'deployment-files-input' });
+    if (files === null) return;
+    const unchanged = 'Nothing was opened; your project and the recording in use are unchanged.';
+    try {
+      const folderName = how === 'folder' ? files[0]?.webkitRelativePath.split('/')[0] : undefined;
+      const what = folderName !== undefined && folderName !== '' ? `The folder ${folderName}` : 'The files you picked';
+      const audio = files.filter((file) => isAudioFileName(file.name)).map((file) => ({ path: pickedPath(file.name, file.webkitRelativePath), blob: file as Blob }));
+      const csvs = await Promise.all(files.filter((file) => isCsvFileName(file.name)).map(async (file) => {
+        const text = await file.text();
+        return { path: pickedPath(file.name, file.webkitRelativePath), name: file.name, text, kind: csvKindOfHead(text) };
+      }));
+      const choice = chooseDeploymentTable(csvs, audio.length, what);
+      if (choice.kind === 'none') { notify('error', `${choice.message} ${unchanged}`); return; }
+      let tablePath = choice.kind === 'one' ? choice.path : undefined;
+      if (choice.kind === 'ask') {
+        const answer = await ask(deploymentTableQuestion(choice.paths, what));
+        if (!answer.startsWith('table:')) return;
+        tablePath = answer.slice('table:'.length);
+      }
+      const table = csvs.find((csv) => csv.path === tablePath)!;
+      if (audio.length === 0) {
+        notify('error', `${what} holds the deployment table ${table.path} but no WAV files. Pick the folder that holds the recorders' files too, or pick the table and its WAV files together. ${unchanged}`);
+        return;
+      }
+      const sizeBytes = deploymentSizeBytes(table, audio.map((file) => ({ path: file.path, sizeBytes: file.blob.size }))) ?? audio.reduce((sum, file) => sum + file.blob.size, 0);
+      const opened: OpenedRecording = {
+        name: pathBaseName(table.path), sizeBytes,
+        workerSource: { kind: 'deployment', table: { name: table.path, text: table.text }, files: audio, ...(nameTime !== undefined ? { nameTime } : {}) },
+        close: () => Promise.resolve(),
+      };
+      const info = await loadRecording(opened);
+      if (info === undefined) return;
+      setDeploymentCalibrationTables(csvs.filter((csv) => csv.kind === 'calibration').map((csv) => ({ name: csv.path, text: csv.text })));
+      // An empty array (a new project, or after the demo) takes the array table picked with the deployment.
+      const arrays = csvs.filter((csv) => csv.kind === 'array');
+      if (stateRef.current.document.array.microphones.length === 0 && arrays.length === 1) importArrayText(arrays[0]!.path, arrays[0]!.text);
+    } catch (error) {
+      dispatch({ type: 'busy/set', busy: undefined });
+      notify('error', `The deployment could not be opened: ${message(error)} ${unchanged}`);
+    }
+  }, [ask, importArrayText, loadRecording, notify]);
+
+  const fitClocks = useCallback(async (source: PickedTable | 'pick', options: { referenceRecorder?: string; searchSeconds?: number }) => {
+    let calibration = source;
+    if (calibration === 'pick') {
+      const files = await pickFiles({ accept: '.csv,.txt,text/csv', testId: 'calibration-file-input' });
+      if (files === null) return;
+      calibration = { name: files[0]!.name, text: await files[0]!.text() };
+    }
+    const current = stateRef.current;
+    const unchanged = `The clocks in use are unchanged (${clocksInUseText(current.clocks)}).`;
+    if (current.recording?.deployment === undefined) { notify('warning', 'Open a deployment first (Open deployment…): the clock fit is for separate recorders.'); return; }
+    const speedNow = currentSpeed(current.document.medium);
+    if ('error' in speedNow) { notify('warning', `The clock fit needs the speed of sound: ${speedNow.error} Correct it in Settings. ${unchanged}`); return; }
+    if (current.document.array.microphones.length === 0) { notify('warning', `The clock fit needs the array (the microphones' positions, labelled as in the deployment table): open the array table first. ${unchanged}`); return; }
+    const before = current.clocks;
+    const hadEvents = current.events.length > 0;
+    dispatch({ type: 'busy/set', busy: { label: `Fitting the clocks from ${calibration.name}`, progress: 0.5 } });
+    const params: SyncClocksParams = {
+      calibration, geometry: geometryOf(current.document), speedMetersPerSecond: speedNow.speedMetersPerSecond,
+      ...(options.referenceRecorder !== undefined ? { referenceRecorder: options.referenceRecorder } : {}),
+      ...(options.searchSeconds !== undefined ? { searchSeconds: options.searchSeconds } : {}),
+    };
+    const band = current.document.settings.bandHz;
+    if (band !== 'automatic') params.bandHz = band;
+    let report: DeploymentClockReport;
+    try {
+      const call = bridge().call<DeploymentClockReport>('syncClocks', params);
+      workRef.current = call as WorkerCall<unknown>;
+      report = await call.promise;
+    } catch (error) {
+      notify('error', `The clock fit from ${calibration.name} failed: ${message(error)} ${unchanged}`);
+      return;
+    } finally {
+      workRef.current = undefined;
+      dispatch({ type: 'busy/set', busy: undefined });
+    }
+    dispatch({ type: 'clocks/set', clocks: { kind: 'fitted', report } });
+    const poor = report.recorders.filter((r) => r.warning !== undefined).map((r) => r.name);
+    notify(poor.length > 0 ? 'warning' : 'info', `Clocks fitted from ${calibration.name}: ${report.recorders.length} recorders, ${report.sounds.length} calibration sounds${poor.length > 0 ? `; poor fit for ${poor.join(', ')} (see Clock fit)` : ''}. The deployment is now read through them.`);
+    for (const warning of report.warnings) notify('warning', `Clock fit: ${warning}`);
+    await afterClocksChanged(before, hadEvents);
+  }, [afterClocksChanged, bridge, notify]);
+
+  const clearClocks = useCallback(async () => {
+    const current = stateRef.current;
+    if (current.recording?.deployment === undefined || current.clocks.kind === 'files') return;
+    const before = current.clocks;
+    const hadEvents = current.events.length > 0;
+    try {
+      await bridge().call<null>('clearClocks', {}).promise;
+    } catch (error) {
+      notify('error', `Could not go back to the files' own clocks: ${message(error)} The clocks in use are unchanged (${clocksInUseText(before)}).`);
+      return;
+    }
+    dispatch({ type: 'clocks/set', clocks: { kind: 'files' } });
+    notify('info', `The deployment is read through the files' own clocks again (each recorder's file stamps taken as true).`);
+    await afterClocksChanged(before, hadEvents);
+  }, [afterClocksChanged, bridge, notify]);
+
   const controller: WorkspaceController = {
     state,
     speed,
     correlations,
     recoveryOffer: recovery,
     fixLogContext,
+    openDeployment,
+    deploymentCalibrationTables,
+    fitClocks,
+    clearClocks,
     async openRecording() {
       try {
         const opened = await host.openRecording();
@@ -405,7 +580,7 @@ export function useWorkspace(host: Host): WorkspaceController {
         if (opened === null) return;
         dispatch({ type: 'document/replace', document: opened.document, path: opened.path, dirty: false });
         if (opened.note !== undefined) notify('info', opened.note);
-        notify('info', `Opened the project ${opened.document.name}. Open its recording to locate again.`);
+        notify('info', `Opened the project ${opened.document.name}. ${reopenRecordingHint(opened.document.recording)}`);
       } catch (error) {
         notify('error', `${message(error)} The project in use is unchanged.`);
       }
@@ -448,7 +623,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       if (recovery === undefined) return;
       dispatch({ type: 'document/replace', document: recovery.document, path: recovery.path, dirty: true });
       setRecovery(undefined);
-      notify('info', `Restored the unsaved work from ${recoveryTimeText(recovery.savedAtIso)}. Open its recording to locate again, and save it.`);
+      notify('info', `Restored the unsaved work from ${recoveryTimeText(recovery.savedAtIso)}. ${reopenRecordingHint(recovery.document.recording)} Save it.`);
     },
     discardRecovery() {
       setRecovery(undefined);

@@ -1,6 +1,7 @@
 // The workspace state and its reducer: the project document (what is saved) and the session around it
 // (open recording, located events, selection, running work, notices). Pure; tested in test/renderer/state.
 import type { WavInfo } from '../../core/audio';
+import type { DeploymentLayout } from '../../core/deployment';
 import type { EnvelopePyramid } from '../../core/overview';
 import { locatedVerdict, type LocatedEvent } from '../../core/pipeline';
 import { emptyProjectDocument, sameRecording, type FixLogEntry, type ProjectArray, type ProjectDocument, type ProjectMedium, type ProjectSettings, type SitePicture } from '../../core/project';
@@ -8,16 +9,23 @@ import type { SolveResult } from '../../core/locate';
 import { fixLogEntryFromLocated, loggedEventIndices, openRecordingIdentity } from '../fixlog';
 import { EMPTY_HISTORY, recordEdit, redoEdit, snapshotOf, undoEdit, type EditHistory, type EditSnapshot } from './editHistory';
 import { addNotice, type NoticeItem } from '../workspace/noticeList';
+import type { ClocksInUse } from '../deployment/clockFitRows';
 
 export type Notice = NoticeItem;
+export interface OpenRecording { name: string; sizeBytes: number; info: WavInfo; contentHash?: string; deployment?: DeploymentLayout }
 export interface Busy { label: string; progress: number; detail?: string }
 
 export interface WorkspaceState {
   document: ProjectDocument;
   projectPath: string | undefined;
   dirty: boolean;
-  /** The open recording; contentHash is core/audio recordingFingerprint's (absent until the worker computed it). */
-  recording: { name: string; sizeBytes: number; info: WavInfo; contentHash?: string } | undefined;
+  /**
+   * The open recording; contentHash is core/audio recordingFingerprint's (absent until the worker computed it). A deployment
+   * is its virtual recording (name: its table's file name, size: its files' sum) with its layout.
+   */
+  recording: OpenRecording | undefined;
+  /** The clocks the open deployment is read through (files' own for a recording). */
+  clocks: ClocksInUse;
   envelope: EnvelopePyramid | undefined;
   envelopeProgress: number | undefined;
   events: LocatedEvent[];
@@ -39,7 +47,9 @@ export type WorkspaceAction =
   | { type: 'medium/set'; medium: ProjectMedium }
   | { type: 'settings/set'; settings: ProjectSettings }
   | { type: 'sitePicture/set'; sitePicture: SitePicture | undefined }
-  | { type: 'recording/opened'; name: string; sizeBytes: number; info: WavInfo; contentHash?: string }
+  | { type: 'recording/opened'; name: string; sizeBytes: number; info: WavInfo; contentHash?: string; deployment?: DeploymentLayout }
+  /** The open deployment is now read through these clocks; the located events of the old clocks go (they are stale). */
+  | { type: 'clocks/set'; clocks: ClocksInUse }
   /** Conditions (medium, settings) back to a new project's; leaving the demo also resets the name and the array. The log stays. */
   | { type: 'conditions/reset'; leaveDemo: boolean }
   | { type: 'edit/undo' }
@@ -61,7 +71,7 @@ export type WorkspaceAction =
   | { type: 'project/saved'; path: string | undefined };
 
 export function initialWorkspace(document: ProjectDocument): WorkspaceState {
-  return { document, projectPath: undefined, dirty: false, recording: undefined, envelope: undefined, envelopeProgress: undefined, events: [], selectedEventIndex: undefined, selectedFixId: undefined, selection: undefined, busy: undefined, notices: [], nextNoticeId: 1, history: EMPTY_HISTORY, fromDemo: false };
+  return { document, projectPath: undefined, dirty: false, recording: undefined, clocks: { kind: 'files' }, envelope: undefined, envelopeProgress: undefined, events: [], selectedEventIndex: undefined, selectedFixId: undefined, selection: undefined, busy: undefined, notices: [], nextNoticeId: 1, history: EMPTY_HISTORY, fromDemo: false };
 }
 
 /** An edit the user can undo: `before` is the part it replaces. */
@@ -89,7 +99,7 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
       // The located events belong to the old document's array: they go; the recording stays open only if the new project names it.
       const reference = action.document.recording;
       const keepRecording = state.recording !== undefined && reference !== undefined && sameRecording(reference, openRecordingIdentity(state.recording));
-      const session = keepRecording ? {} : { recording: undefined, envelope: undefined, envelopeProgress: undefined };
+      const session = keepRecording ? {} : { recording: undefined, clocks: { kind: 'files' } as const, envelope: undefined, envelopeProgress: undefined };
       return { ...state, ...session, document: action.document, projectPath: action.path, dirty: action.dirty, selectedFixId: undefined, events: [], selectedEventIndex: undefined, selection: undefined, history: EMPTY_HISTORY, fromDemo: action.fromDemo ?? false };
     }
     case 'array/set':
@@ -114,14 +124,17 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
     }
     case 'recording/opened': {
       const { info } = action;
-      const opened = { name: action.name, sizeBytes: action.sizeBytes, info, ...(action.contentHash !== undefined ? { contentHash: action.contentHash } : {}) };
+      const opened: OpenRecording = { name: action.name, sizeBytes: action.sizeBytes, info, ...(action.contentHash !== undefined ? { contentHash: action.contentHash } : {}), ...(action.deployment !== undefined ? { deployment: action.deployment } : {}) };
       const recording = { ...openRecordingIdentity(opened), channelCount: info.channelCount, sampleRateHz: info.sampleRateHz, frameCount: info.frameCount };
       // Reopening the project's own recording only completes its identity: nothing the user made has changed.
       const previous = state.document.recording;
       const same = previous !== undefined && sameRecording(previous, recording);
       const path = same && previous.path !== undefined ? { path: previous.path } : {};
-      return { ...state, recording: opened, envelope: undefined, envelopeProgress: 0, events: [], selectedEventIndex: undefined, selection: undefined, document: { ...state.document, recording: { ...recording, ...path } }, dirty: same ? state.dirty : true };
+      return { ...state, recording: opened, clocks: { kind: 'files' }, envelope: undefined, envelopeProgress: 0, events: [], selectedEventIndex: undefined, selection: undefined, document: { ...state.document, recording: { ...recording, ...path } }, dirty: same ? state.dirty : true };
     }
+    case 'clocks/set':
+      if (state.recording?.deployment === undefined) return state;
+      return { ...state, clocks: action.clocks, events: [], selectedEventIndex: undefined, envelope: undefined, envelopeProgress: 0 };
     case 'envelope/progress':
       return { ...state, envelopeProgress: action.fraction };
     case 'envelope/done':

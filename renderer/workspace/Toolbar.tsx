@@ -15,6 +15,7 @@ export interface ToolbarProps {
   onUndo(): void;
   onRedo(): void;
   onOpenRecording(): void;
+  onOpenDeployment(): void;
   onOpenArray(): void;
   onOpenProject(): void;
   onSave(): void;
@@ -33,6 +34,7 @@ export function Toolbar(props: ToolbarProps) {
       <div className="toolbar-buttons">
         <button type="button" onClick={props.onNewProject} data-testid="new-project">New project</button>
         <button type="button" onClick={props.onOpenRecording} data-testid="open-recording">Open recording</button>
+        <button type="button" onClick={props.onOpenDeployment} data-testid="open-deployment" title="Several recorders, each with its own files and clock: a deployment table (CSV) and its WAV files">Open deployment…</button>
         <button type="button" onClick={props.onOpenArray} data-testid="open-array">Open array</button>
         <button type="button" onClick={props.onOpenProject} data-testid="open-project">Open project</button>
         <button type="button" onClick={props.onSave} data-testid="save-project">Save project</button>
