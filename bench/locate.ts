@@ -7,27 +7,13 @@ import { mkdtempSync, rmSync, writeFileSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { median } from '../core/locate';
-import type { SceneSource, SceneSpec } from '../core/simulate';
+import type { SceneSpec } from '../core/simulate';
 import { writeSceneWav } from '../main/simulate';
+import { benchArrayCsv, benchScene } from './benchScene';
 
-const microphones: Array<[number, number, number]> = [[0, 0, 1.2], [45, 0, 1.6], [50, 42, 2.1], [4, 46, 1.0], [24, 22, 2.6], [-12, 22, 1.8], [26, -8, 1.4], [28, 50, 1.9]];
-
+/** One sound every 10 s from 2 s on. */
 function scene(durationSeconds: number): SceneSpec {
-  const sources: SceneSource[] = [];
-  for (let t = 2, i = 0; t < durationSeconds - 2; t += 10, i++) {
-    const east = 5 + ((i * 17) % 40);
-    const north = 5 + ((i * 29) % 40);
-    const base = { id: `s${i}`, eastMeters: east, northMeters: north, upMeters: 1, emissionTimeSeconds: t, levelDb: -10 };
-    sources.push(i % 2 === 0
-      ? { ...base, kind: 'fm-call', durationSeconds: 0.2, startFrequencyHz: 2000, endFrequencyHz: 4000 }
-      : { ...base, kind: 'click', peakFrequencyHz: 5000, ringFrequencyHz: 2800, ringDecaySeconds: 0.004, ringLevelDb: -3 });
-  }
-  return {
-    sampleRateHz: 48_000, durationSeconds, seed: 5, speedMetersPerSecond: 343,
-    microphones: microphones.map(([e, n, u], i) => ({ label: `M${i + 1}`, channel: i + 1, eastMeters: e, northMeters: n, upMeters: u })),
-    groundUpMeters: 0, sources,
-    background: { noiseLevelDb: -56, noiseColor: 'pink', wind: { levelDb: -46 } },
-  };
+  return benchScene({ durationSeconds, firstSoundSeconds: 2, secondsBetweenSounds: 10, seed: 5 });
 }
 
 function timedRun(command: string, args: string[]): { seconds: number; ok: boolean; stderr: string } {
@@ -61,7 +47,7 @@ const folder = mkdtempSync(join(tmpdir(), 'whence-bench-locate-'));
 try {
   spawnSync(process.execPath, ['scripts/build.mjs', 'cli'], { stdio: 'inherit' });
   const arrayPath = join(folder, 'array.csv');
-  writeFileSync(arrayPath, 'channel,label,x_m,y_m,z_m,sigma_m\n' + microphones.map(([e, n, u], i) => `${i + 1},M${i + 1},${e},${n},${u},0.02`).join('\n') + '\n');
+  writeFileSync(arrayPath, benchArrayCsv());
   console.log('locate: whence locate on 8-channel 48 kHz 24-bit recordings, one sound per 10 s (workers: cores - 1)');
   for (const minutes of [1, 10]) {
     const spec = scene(minutes * 60);
