@@ -110,6 +110,7 @@ export interface GccEngine {
 
 interface ChannelState {
   spectrum: Float64Array;
+  /** The window's samples, kept only for the Welch-based weightings (empty otherwise: no copy, no megabytes per channel). */
   samples: Float64Array;
   /** samples[0 .. lengthFrames), kept so that a pair allocates nothing. */
   heard: Float64Array;
@@ -241,7 +242,7 @@ class Engine implements GccEngine {
     if (!state) {
       state = {
         spectrum: new Float64Array(this.fftSizePoints + 2),
-        samples: new Float64Array(this.windowFrames),
+        samples: new Float64Array(this.welch ? this.windowFrames : 0),
         heard: new Float64Array(0),
         lengthFrames: 0,
         welchAuto: this.welch && welchNeeds(this.weighting) === 'auto' ? new Float64Array(this.welch.segmentPoints / 2 + 1) : null,
@@ -259,9 +260,11 @@ class Engine implements GccEngine {
       throw new WhenceError('dsp-signal-not-finite', `Channel ${channelIndex} holds a sample that is not a finite number (NaN or infinity).`);
     }
     input.fill(0, length);
-    if (state.lengthFrames !== length) state.heard = state.samples.subarray(0, length);
+    if (this.welch) {
+      if (state.lengthFrames !== length) state.heard = state.samples.subarray(0, length);
+      state.samples.set(input.subarray(0, this.windowFrames));
+    }
     state.lengthFrames = length;
-    state.samples.set(input.subarray(0, this.windowFrames));
     this.plan.forwardRealHalf(input, state.spectrum);
     if (state.welchAuto && this.welch) this.welch.autoSpectrum(state.heard, state.welchAuto);
   }
