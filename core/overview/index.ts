@@ -41,3 +41,4 @@ export {
   type MicrophonePosition,
   type PairCorrelationPlot,
 } from './correlationPlots';
+export { alignCorrelationPlots } from './alignCorrelationPlots';

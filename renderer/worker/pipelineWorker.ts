@@ -3,11 +3,12 @@
 import { readWavInfo, recordingFingerprint, type ByteSource, type WavInfo } from '../../core/audio';
 import { isWhenceError, WhenceError } from '../../core/errors';
 import { manualEvent } from '../../core/detect';
-import { correlationPlots, envelopeFromFrames, envelopeFromSource, envelopePreviewFromFrames, envelopePreviewFromSource, spectrogramFromFrames, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
+import { envelopeFromFrames, envelopeFromSource, envelopePreviewFromFrames, envelopePreviewFromSource, spectrogramFromFrames, spectrogramFromSource, type SpectrogramRequest } from '../../core/overview';
 import { locateEvent, recordingAccess, runPipeline, type LocateContext, type RecordingAccess } from '../../core/pipeline';
 import { blobByteSource } from '../io';
 import { openDeploymentSession, type DeploymentSession } from './deploymentSession';
 import { proxyByteSource, type ProxyReads } from './proxyByteSource';
+import { spanCorrelations, type SpanCorrelationParams } from './spanCorrelations';
 import { useWasmFftInWorker } from './wasmFft';
 import type { FromWorker, SyncClocksParams, ToWorker, WorkerOpenResult, WorkerSource } from './protocol';
 
@@ -129,17 +130,8 @@ const handlers: Record<string, Handler> = {
     const { recording, info } = requireAccess();
     return locateEvent(recording, manualEvent(params.startSeconds, params.endSeconds, info.channelCount, params.index), params.context);
   },
-  async correlations(params: { context: LocateContext; startSeconds: number; endSeconds: number; bandHz: { lowHz: number; highHz: number }; usedPairs?: string[] }) {
-    const { recording, info } = requireAccess();
-    const fs = info.sampleRateHz;
-    const startFrame = Math.max(0, Math.floor(params.startSeconds * fs));
-    const frames = Math.max(1, Math.min(info.frameCount - startFrame, Math.ceil((params.endSeconds - params.startSeconds) * fs)));
-    const all = await recording.readFrames(startFrame, frames);
-    const channels = params.context.channelIndexOfMicrophone.map((channel) => all[channel]!);
-    const microphones = params.context.geometry.microphones;
-    const used = params.usedPairs === undefined ? undefined : new Set(params.usedPairs);
-    const options = used === undefined ? {} : { isPairUsed: (a: number, b: number) => used.has(`${a}-${b}`) };
-    return correlationPlots(channels, microphones.map((m) => m.label), microphones, params.context.settings.speedMetersPerSecond, fs, params.bandHz, params.context.settings.weighting, options);
+  async correlations(params: SpanCorrelationParams) {
+    return spanCorrelations(requireAccess().recording, params);
   },
 };
 

@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readWavInfo } from '../../../core/audio';
 import { clockNominalSeconds, clockRelativeTo, deploymentChannelIndices } from '../../../core/deployment';
 import { median } from '../../../core/locate';
+import { maxOf } from '../../../core/units';
 import { envelopeFromFrames, envelopeFromSource, envelopePreviewFromFrames, spectrogramFromFrames, spectrogramFromSource } from '../../../core/overview';
 import { parseArrayCsv } from '../../../core/project';
 import { runPipeline, type LocateContext } from '../../../core/pipeline';
@@ -17,6 +18,7 @@ import { useWasmFft } from '../../../main/dsp';
 import { openFileByteSource } from '../../../main/io';
 import { writeDeploymentScene, writeSceneWav, type WrittenDeployment } from '../../../main/simulate';
 import { openDeploymentSession, type DeploymentSource } from '../../../renderer/worker/deploymentSession';
+import { spanCorrelations } from '../../../renderer/worker/spanCorrelations';
 import { runCliInProcess } from '../../helpers/cli';
 import { DEPLOYMENT_CLOCKS, deploymentScene } from '../../helpers/deploymentScenes';
 
@@ -172,14 +174,13 @@ describe('openDeploymentSession() on a deployment with clock offsets and drifts'
     await session.close();
   }, 180_000);
 
-  it('run on the fitted deployment gives the fixes whence locate --deployment gives for the same files (same events within 1 mm)', async () => {
+  it('run on the fitted deployment gives the fixes whence locate --deployment gives for the same files (same events within 1 mm), and correlations the same pair delays', async () => {
     const session = await openDeploymentSession(source);
     const report = await session.syncClocks(syncParams());
     const values = { 'sound-speed': '343', height: '1' };
     const geometry = parseArrayCsv(arrayText, 'array.csv');
     const context: LocateContext = { geometry, channelIndexOfMicrophone: deploymentChannelIndices(session.layout, geometry), settings: settingsFromOptions(values, chooseSpeed(values)) };
     const result = await runPipeline(session.recording(), context);
-    await session.close();
     const cli = await runCliInProcess(['locate', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--calibration', written.calibrationPath!, '--sound-speed', '343', '--height', '1', '--json']);
     expect(cli.exitCode, cli.stderr).toBe(0);
     const log = JSON.parse(cli.stdout) as { log: { notes: string[] }; fixes: Array<{ event: string; time_s?: number; x_m?: number; y_m?: number; status: string }> };
@@ -201,5 +202,22 @@ describe('openDeploymentSession() on a deployment with clock offsets and drifts'
       return located?.solve.fix === undefined ? Number.POSITIVE_INFINITY : Math.hypot(located.solve.fix.eastMeters - sound.eastMeters, located.solve.fix.northMeters - sound.northMeters);
     });
     expect(median(errors)).toBeLessThan(0.01);
+    // the correlation plots of each calibration click's window: every pair's delay on true time, as the fix's pairs are
+    const gaps: number[] = [];
+    for (const id of scene.calibrationIds) {
+      const sound = scene.spec.scene.sources.find((s) => s.id === id)!;
+      const onReference = clockNominalSeconds(DEPLOYMENT_CLOCKS[0]!, sound.emissionTimeSeconds);
+      const located = result.located.find((event) => Math.abs(event.emissionTimeSeconds! - onReference) < 0.05)!;
+      const plots = await spanCorrelations(session.recording(), { context, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, atSeconds: located.firstArrivalSeconds });
+      for (const pair of plots.pairs) {
+        // expected: the fix's own delay of the pair (core/pipeline locateEvent, aligned by alignPairs) over the same window
+        const fixed = located.pairs.find((p) => p.indexA === pair.indexA && p.indexB === pair.indexB);
+        if (fixed !== undefined) gaps.push(Math.abs(pair.delaySeconds - fixed.delaySeconds));
+      }
+    }
+    expect(gaps.length).toBeGreaterThanOrEqual(6 * 14); // most of the 15 pairs of each of the six clicks
+    // the plots' window is untapered where the fix's is tapered: a fraction of a microsecond apart (a sample is 20.8 µs)
+    expect(maxOf(gaps)).toBeLessThan(1e-6);
+    await session.close();
   }, 300_000);
 });
