@@ -11,7 +11,8 @@ import { median } from '../../../core/locate';
 import { maxOf } from '../../../core/units';
 import { envelopeFromFrames, envelopeFromSource, envelopePreviewFromFrames, spectrogramFromFrames, spectrogramFromSource } from '../../../core/overview';
 import { parseArrayCsv } from '../../../core/project';
-import { runPipeline, type LocateContext } from '../../../core/pipeline';
+import { manualEvent } from '../../../core/detect';
+import { locateEvent, runPipeline, type LocateContext } from '../../../core/pipeline';
 import { settingsFromOptions } from '../../../main/cli/commands/locate';
 import { chooseSpeed } from '../../../main/cli/mediumOptions';
 import { useWasmFft } from '../../../main/dsp';
@@ -218,6 +219,10 @@ describe('openDeploymentSession() on a deployment with clock offsets and drifts'
     expect(gaps.length).toBeGreaterThanOrEqual(6 * 14); // most of the 15 pairs of each of the six clicks
     // the plots' window is untapered where the fix's is tapered: a fraction of a microsecond apart (a sample is 20.8 µs)
     expect(maxOf(gaps)).toBeLessThan(1e-6);
+    // a span located by hand (the worker's locateSpan) around the second calibration click: its fix is the run's
+    const click = result.located.find((event) => Math.abs(event.emissionTimeSeconds! - clockNominalSeconds(DEPLOYMENT_CLOCKS[0]!, 10)) < 0.05)!;
+    const byHand = await locateEvent(session.recording(), manualEvent(click.windowStartSeconds, click.windowEndSeconds, session.info.channelCount, 99), context);
+    expect(Math.hypot(byHand.solve.fix!.eastMeters - click.solve.fix!.eastMeters, byHand.solve.fix!.northMeters - click.solve.fix!.northMeters)).toBeLessThan(0.01); // the run's fix (pooled timing aside), to 1 cm
     await session.close();
   }, 300_000);
 });
