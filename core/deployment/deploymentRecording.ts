@@ -24,8 +24,11 @@ export interface DeploymentRecording extends RecordingAccess {
   close(): Promise<void>;
 }
 
-/** Files kept open at once; older ones are closed when more are needed. */
-const MAX_OPEN_FILES = 32;
+/**
+ * Files of one recorder kept open at once: a window needs at most the file it is in and its neighbour across a split. Each
+ * open file keeps a read buffer as large as the largest window read from it (core/audio), so stale files are closed.
+ */
+const OPEN_FILES_PER_RECORDER = 2;
 
 interface Segment { fileIndex: number; base: number; kStart: number; kEnd: number }
 
@@ -80,32 +83,43 @@ export function deploymentRecording(layout: DeploymentLayout, open: OpenDeployme
   /** Per recorder, the deployment channel of each of its microphones. */
   const channelsOfRecorder: number[][] = layout.recorders.map(() => []);
   for (const [c, mic] of layout.microphones.entries()) channelsOfRecorder[mic.recorderIndex]![mic.indexInRecorder] = c;
-  const openFiles = new Map<string, Promise<ByteSource & { close?(): Promise<void> }>>();
-  const inUse = new Map<string, number>();
-  async function withSource<T>(file: string, use: (source: ByteSource) => Promise<T>): Promise<T> {
-    let source = openFiles.get(file);
-    if (source === undefined) {
-      if (openFiles.size >= MAX_OPEN_FILES) {
-        for (const [name, opened] of openFiles) {
-          if ((inUse.get(name) ?? 0) > 0) continue;
-          openFiles.delete(name);
-          void opened.then((s) => s.close?.(), () => undefined);
-          break;
-        }
-      }
-      source = open(file);
-      openFiles.set(file, source);
-    } else {
-      openFiles.delete(file);
-      openFiles.set(file, source); // most recently used last
-    }
-    inUse.set(file, (inUse.get(file) ?? 0) + 1);
-    try {
-      return await use(await source);
-    } finally {
-      inUse.set(file, inUse.get(file)! - 1);
+  /** Open files, least recently used first, with the recorder each belongs to and how many reads are using it. */
+  const openFiles = new Map<string, { recorderIndex: number; source: Promise<ByteSource & { close?(): Promise<void> }>; users: number }>();
+  function closeStaleFiles(recorderIndex: number): void {
+    let open = 0;
+    for (const entry of openFiles.values()) if (entry.recorderIndex === recorderIndex) open++;
+    for (const [name, entry] of openFiles) {
+      if (open < OPEN_FILES_PER_RECORDER) break;
+      if (entry.recorderIndex !== recorderIndex || entry.users > 0) continue;
+      openFiles.delete(name);
+      open--;
+      void entry.source.then((s) => s.close?.(), () => undefined);
     }
   }
+  async function withSource<T>(recorderIndex: number, file: string, use: (source: ByteSource) => Promise<T>): Promise<T> {
+    let entry = openFiles.get(file);
+    if (entry === undefined) {
+      closeStaleFiles(recorderIndex);
+      entry = { recorderIndex, source: open(file), users: 0 };
+    } else {
+      openFiles.delete(file); // most recently used last
+    }
+    openFiles.set(file, entry);
+    const held = entry;
+    held.users++;
+    try {
+      return await use(await held.source);
+    } finally {
+      held.users--;
+    }
+  }
+
+  /** Frames of the file channels no microphone takes: decoded (a file's frames are interleaved) and dropped, into one array kept for reuse. */
+  let discarded = new Float32Array(0);
+  const discardedFrames = (frames: number) => {
+    if (discarded.length < frames) discarded = new Float32Array(frames);
+    return discarded.subarray(0, frames);
+  };
 
   /** Fills `outs` (one per microphone of the recorder, the recorder's channels in file order) from recorder frames uStart...; returns the segments. */
   async function fillRecorder(recorderIndex: number, uStart: number, count: number, outs: Array<Float32Array | undefined>): Promise<Segment[]> {
@@ -114,11 +128,18 @@ export function deploymentRecording(layout: DeploymentLayout, open: OpenDeployme
     const segments = segmentsOf(recorder, uStart, count);
     for (const segment of segments) {
       const file = recorder.files[segment.fileIndex]!;
-      const wanted = recorder.microphones.map((microphone, m) => ({ out: outs[m], channel: microphone.channelOfFile[segment.fileIndex] })).filter((w) => w.out !== undefined && w.channel !== undefined);
-      if (wanted.length === 0) continue;
       const frames = segment.kEnd - segment.kStart;
-      const channels = await withSource(file.file, (source) => readFrames(source, file.info as WavInfo, segment.base + segment.kStart, frames));
-      for (const { out, channel } of wanted) out!.set(channels[channel!]!.subarray(0, frames), segment.kStart);
+      // Each wanted file channel is decoded straight into its output; the file's other channels into one discarded scratch.
+      const targets: Array<Float32Array | undefined> = new Array<Float32Array | undefined>(file.info.channelCount).fill(undefined);
+      recorder.microphones.forEach((microphone, m) => {
+        const channel = microphone.channelOfFile[segment.fileIndex];
+        const out = outs[m];
+        if (out !== undefined && channel !== undefined) targets[channel] = out.subarray(segment.kStart, segment.kEnd);
+      });
+      if (targets.every((target) => target === undefined)) continue;
+      const unused = targets.includes(undefined) ? discardedFrames(frames) : undefined;
+      const into = targets.map((target) => target ?? unused!);
+      await withSource(recorderIndex, file.file, (source) => readFrames(source, file.info as WavInfo, segment.base + segment.kStart, frames, into));
     }
     return segments;
   }
@@ -182,7 +203,7 @@ export function deploymentRecording(layout: DeploymentLayout, open: OpenDeployme
     async close() {
       const all = [...openFiles.values()];
       openFiles.clear();
-      await Promise.all(all.map((opened) => opened.then((s) => s.close?.(), () => undefined)));
+      await Promise.all(all.map((entry) => entry.source.then((s) => s.close?.(), () => undefined)));
     },
   };
 }

@@ -26,7 +26,9 @@ export function createBandEnergyChannel(bandHz: DetectionBand, sampleRateHz: num
   const c = new Float64Array(15);
   sections.forEach((s, i) => c.set([s.b0, s.b1, s.b2, s.a1, s.a2], 5 * i));
   const z = new Float64Array(6);
-  let partialSum = 0;
+  // The running hop's sum is kept in a typed array, not a closure variable: a double written to a closure variable is boxed
+  // (a new heap number on every call), which made this loop the largest allocator of a locate run's scanning thread.
+  const partialSum = new Float64Array(1);
   let partialFrames = 0;
 
   return {
@@ -35,7 +37,7 @@ export function createBandEnergyChannel(bandHz: DetectionBand, sampleRateHz: num
       const b01 = c[5]!, b11 = c[6]!, b21 = c[7]!, a11 = c[8]!, a21 = c[9]!;
       const b02 = c[10]!, b12 = c[11]!, b22 = c[12]!, a12 = c[13]!, a22 = c[14]!;
       let z10 = z[0]!, z20 = z[1]!, z11 = z[2]!, z21 = z[3]!, z12 = z[4]!, z22 = z[5]!;
-      let sum = partialSum;
+      let sum = partialSum[0]!;
       let inHop = partialFrames;
       let completed = 0;
       let i = fromFrame;
@@ -67,7 +69,7 @@ export function createBandEnergyChannel(bandHz: DetectionBand, sampleRateHz: num
         }
       }
       z[0] = z10; z[1] = z20; z[2] = z11; z[3] = z21; z[4] = z12; z[5] = z22;
-      partialSum = sum;
+      partialSum[0] = sum;
       partialFrames = inHop;
       return completed;
     },

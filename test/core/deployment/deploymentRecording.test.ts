@@ -85,6 +85,50 @@ describe('deploymentRecording()', () => {
     expect(at('MA')).toBeCloseTo(11 / 10000, 7);
   });
 
+  it('decodes only into the caller\'s arrays, the file channels no microphone takes into a scratch it drops', async () => {
+    const ramp = Float32Array.from({ length: 1000 }, (_, i) => (i + 1) / 10000);
+    const stereo = encodeWavFile([ramp.map((v) => 2 * v), ramp.map((v) => -v)], { channelCount: 2, sampleRateHz: FS, bitsPerSample: 32, sampleFormat: 'ieee-float', bext: { description: '', originator: '', originationDate: '2026-05-14', originationTime: '05:00:00', timeReferenceFrames: T0 * FS } });
+    const { layout: l, open } = await layout('recorder,file,file_channel,microphone\nC,c.wav,2,MX\nA,a1.wav,1,MA\n', undefined, { 'c.wav': stereo });
+    const recording = deploymentRecording(l, open);
+    const out = [new Float32Array(8), new Float32Array(8)];
+    const channels = await recording.readFrames(10, 8, out);
+    expect(channels.map((c) => c.buffer)).toEqual(out.map((c) => c.buffer)); // the caller's arrays, not copies
+    const x = channels[l.microphones.findIndex((m) => m.label === 'MX')]!;
+    // the samples written above: file channel 2 holds -(frame + 1)/10000; channel 1 (twice the ramp) is in no window
+    expect(Array.from(x)).toEqual(Array.from({ length: 8 }, (_, i) => Math.fround(-(10 + i + 1) / 10000)));
+  });
+
+  it('keeps at most two files of each recorder open while it reads through many', async () => {
+    const many: Record<string, Uint8Array> = {};
+    const rows = ['recorder,file,file_channel,microphone'];
+    for (const [recorder, startSeconds] of [['P', 0], ['Q', 0.25]] as const) {
+      for (let f = 0; f < 6; f++) {
+        const name = `${recorder.toLowerCase()}${f}.wav`;
+        many[name] = file(200 * f, 200, T0 + startSeconds + 0.2 * f);
+        rows.push(`${recorder},${name},1,M${recorder}`);
+      }
+    }
+    const { layout: l, open } = await layout(`${rows.join('\n')}\n`, undefined, many);
+    const opened = new Set<string>();
+    let most = 0;
+    const counting = async (name: string) => {
+      const source = await open(name);
+      opened.add(name);
+      for (const recorder of ['p', 'q']) most = Math.max(most, [...opened].filter((n) => n.startsWith(recorder)).length);
+      return { ...source, close: () => { opened.delete(name); return Promise.resolve(); } };
+    };
+    const recording = deploymentRecording(l, counting);
+    for (let frame = 0; frame + 50 <= 1450; frame += 50) {
+      const [p, q] = await recording.readFrames(frame, 50);
+      // P's sample at deployment frame n is (n + 1)/10000 until it ends at 1.2 s; Q starts 0.25 s (250 frames) later
+      if (frame + 50 <= 1200) expect(p![49]).toBeCloseTo((frame + 49 + 1) / 10000, 7);
+      if (frame >= 250) expect(q![0]).toBeCloseTo((frame - 250 + 1) / 10000, 7);
+    }
+    expect(most).toBe(2);
+    await recording.close();
+    expect(opened.size).toBe(0);
+  });
+
   it('maps deployment time through each clock to the nearest whole frame and reports the fractional remainder as a shift', async () => {
     const { layout: l, open } = await layout();
     const recording = deploymentRecording(l, open, [{ clockStartSeconds: 0, offsetSeconds: 0, drift: 0 }, { clockStartSeconds: 0.5, offsetSeconds: 0.0103, drift: 1e-3 }]);
