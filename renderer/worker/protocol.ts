@@ -3,10 +3,13 @@
 import type { WavInfo } from '../../core/audio';
 import type { DeploymentClockReport, DeploymentLayout } from '../../core/deployment';
 import type { ArrayGeometry } from '../../core/project';
+import type { SpanCorrelationParams } from './spanCorrelations';
 
 /**
  * A deployment: its table, and the files the user picked, each by its path relative to the picked folder (the folder's
- * own name removed) or its bare name when single files were picked; the table's files are matched to them by path, else name.
+ * own name removed) or its bare name when single files were picked; the table's files are matched to them by path, else name
+ * (core/deployment matchPickedFiles). `table.name` may be the table's own path in the picked folder ('site/deployment.csv'):
+ * the table's relative paths then start from its folder.
  */
 export type WorkerSource =
   | { kind: 'blob'; blob: Blob; name: string }
@@ -35,6 +38,8 @@ export interface WorkerRequestMap {
   syncClocks: SyncClocksParams;
   /** Back to each recorder's own file stamps; needs an open deployment. */
   clearClocks: Record<string, never>;
+  /** Correlation plots of a span; for a deployment each pair's delay is aligned at `atSeconds` (default the span's start). */
+  correlations: SpanCorrelationParams;
 }
 
 export interface WorkerResultMap {
