@@ -2,8 +2,9 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { clockRelativeTo } from '../../../core/deployment';
-import { writeDeploymentScene, type WrittenDeployment } from '../../../main/simulate';
+import { clockNominalSeconds, clockRelativeTo } from '../../../core/deployment';
+import { median } from '../../../core/locate';
+import { writeDeploymentScene, writeSceneWav, type WrittenDeployment } from '../../../main/simulate';
 import { runCliInProcess } from '../../helpers/cli';
 import { DEPLOYMENT_CLOCKS, deploymentScene } from '../../helpers/deploymentScenes';
 
@@ -82,6 +83,37 @@ describe('whence sync --shared-sounds (clocks fitted with the places of sounds e
     expect(run.stdout).toMatch(/time base: recorder 'R1' is the reference .*shared sounds/);
     expect(run.stdout).toMatch(/shared sounds \(places fitted\):\n\s*S1\s+emitted [\d.]+ s at 20\.0\d, 10\.0\d, 1\.[45]\d m/); // the first calibration place (deploymentScenes.ts)
   }, 60_000);
+
+  it('locate --deployment --shared-sounds fixes the sounds the fit did not use as accurately as a synchronized multichannel file', async () => {
+    const multichannelPath = join(folder, 'shared', 'multichannel.wav');
+    await writeSceneWav(scene.spec.scene, multichannelPath);
+    const common = ['--array', written.arrayPath, '--sound-speed', '343', '--height', '1', '--json'];
+    const deployment = await runCliInProcess(['locate', '--deployment', written.deploymentPath, '--shared-sounds', sharedPath, ...common]);
+    expect(deployment.exitCode, deployment.stderr).toBe(0);
+    const multichannel = await runCliInProcess(['locate', multichannelPath, ...common]);
+    expect(multichannel.exitCode, multichannel.stderr).toBe(0);
+    interface LogFix { time_s: number; x_m?: number; y_m?: number }
+    const log = JSON.parse(deployment.stdout) as { log: { notes: string[] }; fixes: LogFix[] };
+    const multichannelFixes = (JSON.parse(multichannel.stdout) as { fixes: LogFix[] }).fixes;
+    /** Horizontal error of each test sound's fix (matched by emission time on the log's time base), the sounds in the shared-sound table or the others. */
+    const errors = (fixes: LogFix[], toLogSeconds: (trueSeconds: number) => number, inTable: boolean) => scene.spec.scene.sources
+      .filter((source) => scene.soundIds.includes(source.id) && sharedSeconds.includes(source.emissionTimeSeconds) === inTable)
+      .map((source) => {
+        const matched = fixes.filter((fix) => Math.abs(fix.time_s - toLogSeconds(source.emissionTimeSeconds)) < 0.05);
+        expect(matched, source.id).toHaveLength(1);
+        return Math.hypot(matched[0]!.x_m! - source.eastMeters, matched[0]!.y_m! - source.northMeters);
+      });
+    // The log's time base is the reference recorder's (R1's) clock, counted from the deployment's earliest start.
+    const onR1 = (t: number) => clockNominalSeconds(DEPLOYMENT_CLOCKS[0]!, t);
+    const between = errors(log.fixes, onR1, false); // the five calls between the shared clicks
+    expect(between).toHaveLength(5);
+    expect(median(between)).toBeLessThanOrEqual(1.2 * median(errors(multichannelFixes, (t) => t, false))); // issue 9: median error within 20 %
+    const shared = errors(log.fixes, onR1, true);
+    expect(median([...between, ...shared])).toBeLessThan(0.01); // inside the array at ~20 dB SNR, as test/e2e/deployment.test.ts
+    // The log's head records the fit: its time base (shared sounds) and one clock line per recorder.
+    expect(log.log.notes.some((note) => /clock time base: .*shared sounds/.test(note))).toBe(true);
+    expect(log.log.notes.filter((note) => note.startsWith('clock R'))).toHaveLength(6);
+  }, 300_000);
 
   it('refuses --calibration with --shared-sounds, and --offset-sigma without --shared-sounds (usage, exit 2)', async () => {
     const both = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath, '--calibration', sharedPath]);
