@@ -72,3 +72,8 @@ export function soundResidualRows(report: DeploymentClockReport, microphones: re
 export function clocksInUseText(clocks: ClocksInUse): string {
   return clocks.kind === 'files' ? 'files\' own clocks' : `fitted from ${clocks.report.calibrationName}`;
 }
+
+/** The same in a sentence: "the files' own clocks", "the clocks fitted from calibration.csv". */
+export function clocksPhrase(clocks: ClocksInUse): string {
+  return clocks.kind === 'files' ? 'the files\' own clocks' : `the clocks fitted from ${clocks.report.calibrationName}`;
+}

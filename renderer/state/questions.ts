@@ -75,7 +75,7 @@ export function staleFixesQuestion(count: number, deploymentName: string, clocks
   const fixes = `${count} fix${count === 1 ? '' : 'es'}`;
   return {
     title: 'Fixes located with other clocks',
-    text: `The fix log holds ${fixes} of ${deploymentName} located with the ${clocksBefore}. The deployment is now read through the ${clocksNow}, which moves its sounds' time differences: those fixes are out of date. Remove them from the log (Undo brings them back) and log the fixes located again, or keep them as they are?`,
+    text: `The fix log holds ${fixes} of ${deploymentName} located with ${clocksBefore}. The deployment is now read through ${clocksNow}, which moves its sounds' time differences: those fixes are out of date. Remove them from the log (Undo brings them back) and log the fixes located again, or keep them as they are?`,
     choices: [
       { id: 'remove', label: `Remove the ${fixes}`, primary: true },
       { id: 'keep', label: 'Keep them' },

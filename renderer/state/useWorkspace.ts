@@ -18,7 +18,7 @@ import { pickFiles } from '../host/pickFiles';
 import { PipelineBridge, WorkerCallError, type WorkerCall } from '../worker/bridge';
 import type { SyncClocksParams, WorkerOpenResult } from '../worker/protocol';
 import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath } from '../deployment/pickedFiles';
-import { clocksInUseText, type ClocksInUse } from '../deployment/clockFitRows';
+import { clocksInUseText, clocksPhrase, type ClocksInUse } from '../deployment/clockFitRows';
 import { deploymentLogNotes, deploymentOpenedText, deploymentErrorHint } from '../deployment/deploymentNotes';
 import { fixLogContextOf, geometryOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
@@ -406,20 +406,20 @@ export function useWorkspace(host: Host): WorkspaceController {
   }, [exportText, notify, fixLogContext]);
 
   /** After the clocks changed: the overview again, a warning about logged fixes of the old clocks, and the events located again. */
-  const afterClocksChanged = useCallback(async (before: ClocksInUse, hadEvents: boolean) => {
+  const afterClocksChanged = useCallback(async (before: ClocksInUse, after: ClocksInUse, hadEvents: boolean) => {
     const current = stateRef.current;
     const recording = current.recording;
     if (recording === undefined) return;
     const identity = openRecordingIdentity(recording);
     const stale = current.document.fixes.filter((entry) => sameRecording(entry.recording, identity));
     if (stale.length > 0) {
-      const choice = await ask(staleFixesQuestion(stale.length, recording.name, clocksInUseText(before), clocksInUseText(current.clocks)));
+      const choice = await ask(staleFixesQuestion(stale.length, recording.name, clocksPhrase(before), clocksPhrase(after)));
       if (choice === 'remove') {
         const ids = new Set(stale.map((entry) => entry.id));
         dispatch({ type: 'fixes/set', fixes: stateRef.current.document.fixes.filter((entry) => !ids.has(entry.id)) });
-        notify('info', `Removed ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with the ${clocksInUseText(before)} from the log (Undo brings them back).`);
+        notify('info', `Removed ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with ${clocksPhrase(before)} from the log (Undo brings them back).`);
       } else {
-        notify('warning', `The fix log keeps ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with the ${clocksInUseText(before)}, not the clocks now in use: they are not moved. Log the fixes located again and delete the old ones when you are sure.`);
+        notify('warning', `The fix log keeps ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with ${clocksPhrase(before)}, not ${clocksPhrase(after)} now in use: they are not moved. Log the fixes located again and delete the old ones when you are sure.`);
       }
     }
     try {
@@ -431,7 +431,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       dispatch({ type: 'busy/set', busy: undefined });
     }
     if (hadEvents) {
-      notify('info', `Locating again with the ${clocksInUseText(stateRef.current.clocks)}: the events found with the ${clocksInUseText(before)} are gone.`);
+      notify('info', `Locating again through ${clocksPhrase(after)}: the events found through ${clocksPhrase(before)} are gone.`);
       await locateAll();
     }
   }, [ask, buildOverview, locateAll, notify]);
@@ -515,11 +515,12 @@ export function useWorkspace(host: Host): WorkspaceController {
       workRef.current = undefined;
       dispatch({ type: 'busy/set', busy: undefined });
     }
-    dispatch({ type: 'clocks/set', clocks: { kind: 'fitted', report } });
+    const after: ClocksInUse = { kind: 'fitted', report };
+    dispatch({ type: 'clocks/set', clocks: after });
     const poor = report.recorders.filter((r) => r.warning !== undefined).map((r) => r.name);
     notify(poor.length > 0 ? 'warning' : 'info', `Clocks fitted from ${calibration.name}: ${report.recorders.length} recorders, ${report.sounds.length} calibration sounds${poor.length > 0 ? `; poor fit for ${poor.join(', ')} (see Clock fit)` : ''}. The deployment is now read through them.`);
     for (const warning of report.warnings) notify('warning', `Clock fit: ${warning}`);
-    await afterClocksChanged(before, hadEvents);
+    await afterClocksChanged(before, after, hadEvents);
   }, [afterClocksChanged, bridge, notify]);
 
   const clearClocks = useCallback(async () => {
@@ -533,9 +534,10 @@ export function useWorkspace(host: Host): WorkspaceController {
       notify('error', `Could not go back to the files' own clocks: ${message(error)} The clocks in use are unchanged (${clocksInUseText(before)}).`);
       return;
     }
-    dispatch({ type: 'clocks/set', clocks: { kind: 'files' } });
+    const after: ClocksInUse = { kind: 'files' };
+    dispatch({ type: 'clocks/set', clocks: after });
     notify('info', `The deployment is read through the files' own clocks again (each recorder's file stamps taken as true).`);
-    await afterClocksChanged(before, hadEvents);
+    await afterClocksChanged(before, after, hadEvents);
   }, [afterClocksChanged, bridge, notify]);
 
   const controller: WorkspaceController = {

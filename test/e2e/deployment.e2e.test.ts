@@ -176,6 +176,41 @@ describe.runIf(run)('a deployment of separate recorders in the app (issue 9, ite
     expect(appErrors.length).toBeGreaterThanOrEqual(Math.min(5, cliErrors.length));
     // the app's logged (ok) fixes are within 20 % of the command line's median error on the same sounds (issue 9's bar for accuracy)
     expect(median(appErrors)).toBeLessThanOrEqual(1.2 * median(cliErrors) + 1e-3);
+    console.log(`deployment e2e: ${appErrors.length} app fixes, median error ${median(appErrors).toFixed(4)} m; CLI ${cliErrors.length} fixes, median ${median(cliErrors).toFixed(4)} m`);
     expect(pageErrors).toEqual([]);
   }, 400_000);
+
+  it('going back to the files\' own clocks asks about the fixes logged with the fitted ones, and locates again', async () => {
+    const logged = await page.locator('[data-testid^="fixlog-row-"]').count();
+    await byTestId(page, 'tab-clocks').click();
+    await byTestId(page, 'clear-clocks').click();
+    await byTestId(page, 'confirm-dialog').waitFor({ state: 'visible', timeout: 30_000 });
+    expect(await byTestId(page, 'confirm-text').textContent()).toMatch(new RegExp(`${logged} fixes of deployment\\.csv located with the clocks fitted from calibration\\.csv\\. The deployment is now read through the files' own clocks`));
+    await shots(page, 'deployment-05-stale-fixes');
+    await byTestId(page, 'confirm-remove').click();
+    expect(await page.locator('[data-testid^="fixlog-row-"]').count()).toBe(0);
+    expect(await byTestId(page, 'clocks-in-use').textContent()).toBe('files\' own clocks');
+    // the events of the fitted clocks are gone at once, and the deployment is located again through the files' clocks
+    // (which find fewer: onsets up to a second apart across recorders do not agree within the array's largest delay)
+    expect(await page.locator('[data-testid^="event-row-"]').count()).toBe(0);
+    await expect.poll(async () => (await page.locator('[data-testid="busy"]').count()) === 0 && (await page.locator('[data-testid^="event-row-"]').count()) > 0, { timeout: 180_000 }).toBe(true);
+    await byTestId(page, 'undo').click();
+    expect(await page.locator('[data-testid^="fixlog-row-"]').count()).toBe(logged);
+  }, 300_000);
+
+  it('refuses a table whose files were not all picked, says what to do and keeps the open deployment', async () => {
+    await byTestId(page, 'tab-recording').click();
+    const events = await page.locator('[data-testid^="event-row-"]').count();
+    const chooserOpened = page.waitForEvent('filechooser');
+    await byTestId(page, 'open-deployment').click();
+    await byTestId(page, 'deployment-pick-files').click();
+    await (await chooserOpened).setFiles([join(folder, 'deployment.csv'), join(folder, 'rec-1_20250517_050950_1.wav')]);
+    await byTestId(page, 'notice-error').waitFor({ state: 'visible', timeout: 30_000 });
+    const text = await byTestId(page, 'notice-error').getAttribute('title');
+    expect(text).toMatch(/^The deployment deployment\.csv could not be opened: deployment\.csv line 3: rec-1_20250517_051030_2\.wav is not among the 1 picked file\. .*Your project and the recording in use are unchanged\./);
+    expect(await page.locator('[data-testid^="recorder-lane-"]').count()).toBe(6);
+    expect(await page.locator('[data-testid^="event-row-"]').count()).toBe(events);
+    await shots(page, 'deployment-06-refused');
+    expect(pageErrors).toEqual([]);
+  }, 120_000);
 });

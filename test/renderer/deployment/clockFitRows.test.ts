@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { DeploymentClockReport } from '../../../core/deployment';
-import { clocksInUseText, recorderClockRows, residualMicrophones, soundResidualRows } from '../../../renderer/deployment/clockFitRows';
+import { clocksInUseText, clocksPhrase, recorderClockRows, residualMicrophones, soundResidualRows } from '../../../renderer/deployment/clockFitRows';
 
 // An invented clock report (the shape core/deployment deploymentClockReport gives); expected texts are its numbers in
 // the panel's units (ms, ppm, µs), rounded by hand.
@@ -42,5 +42,10 @@ describe('clocksInUseText()', () => {
   it('names the files\' own clocks or the calibration table of the fit', () => {
     expect(clocksInUseText({ kind: 'files' })).toBe('files\' own clocks');
     expect(clocksInUseText({ kind: 'fitted', report: REPORT })).toBe('fitted from calibration.csv');
+  });
+
+  it('clocksPhrase() says the same within a sentence', () => {
+    expect(clocksPhrase({ kind: 'files' })).toBe('the files\' own clocks');
+    expect(clocksPhrase({ kind: 'fitted', report: REPORT })).toBe('the clocks fitted from calibration.csv');
   });
 });

@@ -72,8 +72,8 @@ describe('questions and hints for deployments', () => {
   });
 
   it('staleFixesQuestion() names the clocks before and now, offers removal first and keeps them on Escape', () => {
-    const question = staleFixesQuestion(3, 'deployment.csv', 'files\' own clocks', 'fitted from calibration.csv');
-    expect(question.text).toMatch(/3 fixes of deployment\.csv located with the files' own clocks\. The deployment is now read through the fitted from calibration\.csv/);
+    const question = staleFixesQuestion(3, 'deployment.csv', 'the files\' own clocks', 'the clocks fitted from calibration.csv');
+    expect(question.text).toMatch(/3 fixes of deployment\.csv located with the files' own clocks\. The deployment is now read through the clocks fitted from calibration\.csv, which moves/);
     expect(question.choices.map((choice) => choice.id)).toEqual(['remove', 'keep']);
     expect(question.cancelId).toBe('keep');
   });
