@@ -1,10 +1,11 @@
 // Writes a simulated deployment to a folder: each recorder's files as BWF WAV (bext start = the file's nominal stamp),
 // the deployment table (paths relative to it), the array table and, when asked, the calibration table. Atomic writes.
 import { join } from 'node:path';
-import { encodeFrames, encodeWavHeader, wavFileLayout, type WavWriteSpec } from '../../core/audio';
+import type { WavWriteSpec } from '../../core/audio';
 import { addSeconds, formatLocalInstant, type LocalInstant } from '../../core/deployment';
 import { NOISE_TILE_FRAMES, prepareDeploymentScene, type DeploymentSceneSpec, type PreparedDeploymentScene } from '../../core/simulate';
-import { writeFileAtomic, writeFileAtomicWith } from '../files';
+import { writeFileAtomic } from '../files';
+import { writeRenderedWav } from './writeRenderedWav';
 
 export interface WriteDeploymentOptions {
   /** Local time of the nominal origin (deployment time 0). */
@@ -34,23 +35,7 @@ async function writeRecorderFile(prepared: PreparedDeploymentScene, r: number, f
     channelCount: recorder.microphones.length, sampleRateHz: fs, bitsPerSample, sampleFormat: 'pcm-int', frameCount: file.frameCount,
     bext: { description: `simulated recorder ${recorder.name}`, originator: 'Whence simulate', originationDate: iso.slice(0, 10), originationTime: iso.slice(11, 19), timeReferenceFrames: Math.round(start.secondsOfDay * fs) },
   };
-  const layout = wavFileLayout(spec);
-  const channels = recorder.microphones.map(() => new Float32Array(NOISE_TILE_FRAMES));
-  const buffer = new Uint8Array(NOISE_TILE_FRAMES * layout.blockAlignBytes);
-  await writeFileAtomicWith(path, async (handle) => {
-    let position = 0;
-    const write = async (bytes: Uint8Array) => {
-      for (let done = 0; done < bytes.length;) done += (await handle.write(bytes, done, bytes.length - done, position + done)).bytesWritten;
-      position += bytes.length;
-    };
-    await write(encodeWavHeader(spec));
-    for (let frame = 0; frame < file.frameCount; frame += NOISE_TILE_FRAMES) {
-      const count = Math.min(NOISE_TILE_FRAMES, file.frameCount - frame);
-      prepared.renderFile(r, f, frame, count, channels);
-      await write(encodeFrames(channels, 0, count, spec, buffer));
-    }
-    if (layout.padLengthBytes > 0) await write(new Uint8Array(layout.padLengthBytes));
-  });
+  await writeRenderedWav(path, spec, (frame, count, channels) => prepared.renderFile(r, f, frame, count, channels), { blockFrames: NOISE_TILE_FRAMES });
 }
 
 /** Writes every file, deployment.csv, array.csv (and calibration.csv) into `folder`; file stamps are whole frames since midnight. */

@@ -1,9 +1,9 @@
 // Writes a synthesized scene to a WAV/RF64 file block by block (never the whole recording in memory), atomically
-// (main/files writeFileAtomicWith: temporary file, flush, rename). Sizes in bytes, counts in frames.
-import { encodeFrames, encodeWavHeader, wavFileLayout, type WavBextSpec, type WavWriteSpec } from '../../core/audio';
+// (./writeRenderedWav). Sizes in bytes, counts in frames.
+import type { WavBextSpec, WavWriteSpec } from '../../core/audio';
 import { WhenceError } from '../../core/errors';
 import { NOISE_TILE_FRAMES, PreparedScene, prepareScene, renderScene, type SceneSpec } from '../../core/simulate';
-import { writeFileAtomicWith } from '../files';
+import { writeRenderedWav } from './writeRenderedWav';
 
 export interface WriteSceneWavOptions {
   /** Default 24. */
@@ -74,46 +74,22 @@ export async function writeSceneWav(scene: SceneSpec | PreparedScene, path: stri
     bext: options.bext,
     container: options.container,
   };
-  const layout = wavFileLayout(spec);
-  const header = encodeWavHeader(spec);
-
-  const channels = Array.from({ length: prepared.channelCount }, () => new Float32Array(Math.min(blockFrames, Math.max(1, prepared.frameCount))));
-  const buffers = [0, 1].map(() => new Uint8Array(channels[0].length * layout.blockAlignBytes));
   let clippedSampleCount = 0;
   let peakAbsolute = 0;
-  await writeFileAtomicWith(path, async (handle) => {
-    let position = 0;
-    const write = async (bytes: Uint8Array) => {
-      let done = 0;
-      while (done < bytes.length) {
-        const { bytesWritten } = await handle.write(bytes, done, bytes.length - done, position + done);
-        done += bytesWritten;
-      }
-      position += bytes.length;
-    };
-    await write(header);
-    // Double buffering: block k is written while block k + 1 is rendered.
-    let pending: Promise<void> | undefined;
-    for (let start = 0, block = 0; start < prepared.frameCount; start += blockFrames, block++) {
-      const frames = Math.min(blockFrames, prepared.frameCount - start);
-      renderScene(prepared, start, frames, channels);
-      const { clipped, peak } = countClipped(channels, frames, spec);
-      clippedSampleCount += clipped;
-      peakAbsolute = Math.max(peakAbsolute, peak);
-      const bytes = encodeFrames(channels, 0, frames, spec, buffers[block % 2]);
-      if (pending !== undefined) await pending;
-      pending = write(bytes);
-      options.onProgress?.(start + frames, prepared.frameCount);
-    }
-    if (pending !== undefined) await pending;
-    if (layout.padLengthBytes > 0) await write(new Uint8Array(layout.padLengthBytes));
-  }, ` (${layout.fileLengthBytes} bytes needed)`);
+  const countBlock = (channels: readonly Float32Array[], frames: number) => {
+    const { clipped, peak } = countClipped(channels, frames, spec);
+    clippedSampleCount += clipped;
+    peakAbsolute = Math.max(peakAbsolute, peak);
+  };
+  const fileLengthBytes = await writeRenderedWav(path, spec, (start, frames, channels) => renderScene(prepared, start, frames, channels), {
+    blockFrames, onBlock: countBlock, ...(options.onProgress !== undefined ? { onProgress: options.onProgress } : {}),
+  });
   return {
     path,
     frameCount: prepared.frameCount,
     channelCount: prepared.channelCount,
     sampleRateHz: prepared.sampleRateHz,
-    fileLengthBytes: layout.fileLengthBytes,
+    fileLengthBytes,
     clippedSampleCount,
     peakAbsolute,
   };
