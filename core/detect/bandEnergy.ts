@@ -1,6 +1,6 @@
-// Band energy per hop of one channel: a Butterworth high-pass (4th order) and low-pass (2nd order) run sample by sample
-// in one fused loop, squared outputs summed per hop (signal units² · frames). Sections from core/dsp (RBJ cookbook),
-// transposed direct form II with the feedback term added last, which shortens the recursion's dependency chain.
+// Band energy per hop: a Butterworth high-pass (4th order) and low-pass (2nd order) run sample by sample in one fused
+// loop, squared outputs summed per hop (signal units² · frames); sections from core/dsp (RBJ cookbook), transposed direct
+// form II with the feedback term added last. Channels one by one, or in groups through a host kernel (bit-identical).
 import { butterworthSections, type BiquadCoefficients } from '../dsp';
 import type { DetectionBand } from './types';
 
@@ -72,6 +72,64 @@ export function createBandEnergyChannel(bandHz: DetectionBand, sampleRateHz: num
       partialSum[0] = sum;
       partialFrames = inHop;
       return completed;
+    },
+  };
+}
+
+/**
+ * Filters a fixed group of channels at once with the coefficients `detectionSections` gives, each channel exactly as
+ * BandEnergyChannel.run would (bit-identical sums, the same state carried over calls): a host-supplied kernel such
+ * as main/dsp's WebAssembly SIMD one, which runs two channels per vector instruction.
+ */
+export interface BandEnergyGroup {
+  /**
+   * As BandEnergyChannel.run for channels c = firstChannel .. firstChannel + groupChannels - 1: inputs[c] into
+   * hopEnergies[c]; returns the completed hops.
+   */
+  run(inputs: readonly Float32Array[], firstChannel: number, fromFrame: number, toFrame: number, hopEnergies: readonly Float64Array[]): number;
+}
+
+/** The host's group kernels: the group size and a maker, which returns undefined when it cannot make one. */
+export interface BandEnergyKernels {
+  /** Channels per group. */
+  groupChannels: number;
+  /** A group filtering with `coefficients` (b0, b1, b2, a1, a2 of each of the three sections) in hops of `hopFrames`. */
+  createGroup(coefficients: Float64Array, hopFrames: number): BandEnergyGroup | undefined;
+}
+
+let groupKernels: BandEnergyKernels | undefined;
+
+/** Host hook: group kernels for the detection filter in this thread (undefined: plain TypeScript, one channel at a time). */
+export function useBandEnergyKernels(kernels: BandEnergyKernels | undefined): void {
+  groupKernels = kernels;
+}
+
+/** Every channel's band energy: groups of the host's kernel where there is one, the remaining channels one by one. */
+export interface BandEnergyBank {
+  /** As BandEnergyChannel.run for every channel c: block[c] into hopEnergies[c]; returns the completed hops. */
+  run(block: readonly Float32Array[], fromFrame: number, toFrame: number, hopEnergies: readonly Float64Array[]): number;
+}
+
+export function createBandEnergyBank(bandHz: DetectionBand, sampleRateHz: number, hopFrames: number, channelCount: number): BandEnergyBank {
+  const coefficients = new Float64Array(15);
+  detectionSections(bandHz, sampleRateHz).forEach((s, i) => coefficients.set([s.b0, s.b1, s.b2, s.a1, s.a2], 5 * i));
+  const groups: Array<{ first: number; group: BandEnergyGroup }> = [];
+  const size = groupKernels?.groupChannels ?? 0;
+  let next = 0;
+  while (groupKernels !== undefined && size > 0 && next + size <= channelCount) {
+    const group = groupKernels.createGroup(coefficients, hopFrames);
+    if (group === undefined) break;
+    groups.push({ first: next, group });
+    next += size;
+  }
+  const singles: Array<{ channel: number; filter: BandEnergyChannel }> = [];
+  for (let channel = next; channel < channelCount; channel++) singles.push({ channel, filter: createBandEnergyChannel(bandHz, sampleRateHz, hopFrames) });
+  return {
+    run(block, fromFrame, toFrame, hopEnergies) {
+      let hops = 0;
+      for (const { first, group } of groups) hops = group.run(block, first, fromFrame, toFrame, hopEnergies);
+      for (const { channel, filter } of singles) hops = filter.run(block[channel]!, fromFrame, toFrame, hopEnergies[channel]!);
+      return hops;
     },
   };
 }

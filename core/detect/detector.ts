@@ -2,7 +2,7 @@
 // Blocks of any size in, events out (times in seconds); work per sample is three filter sections and a square;
 // memory is fixed by the settings (the floor windows, the first second's hop energies), not by the recording's length.
 import { WhenceError } from '../errors';
-import { createBandEnergyChannel, type BandEnergyChannel } from './bandEnergy';
+import { createBandEnergyBank } from './bandEnergy';
 import { ChannelTrigger } from './channelTrigger';
 import { resolveDetectorConfig } from './config';
 import { EventAssembler } from './eventAssembler';
@@ -31,12 +31,11 @@ const tinyMeanSquare = 1e-20;
 export function createDetector(config: DetectorConfig): StreamingDetector {
   const settings = resolveDetectorConfig(config);
   const { channelCount, hopFrames, floorBlockHops, initialHops, settleHops, sampleRateHz } = settings;
-  const filters: BandEnergyChannel[] = [];
+  const filters = createBandEnergyBank(settings.detectionBandHz, sampleRateHz, hopFrames, channelCount);
   const floors: NoiseFloorTracker[] = [];
   const triggers: ChannelTrigger[] = [];
   const hopBuffers: Float64Array[] = [];
   for (let c = 0; c < channelCount; c++) {
-    filters.push(createBandEnergyChannel(settings.detectionBandHz, sampleRateHz, hopFrames));
     floors.push(createNoiseFloorTracker(settings.floorWindowBlocks, settings.noiseQuantile));
     triggers.push(new ChannelTrigger(hopFrames, settings.thresholdDb, settings.releaseDb, settings.hangoverHops));
     hopBuffers.push(new Float64Array(Math.ceil(chunkFrames / hopFrames) + 1));
@@ -115,8 +114,7 @@ export function createDetector(config: DetectorConfig): StreamingDetector {
       const out: DetectedEvent[] = [];
       for (let from = 0; from < frameCount; from += chunkFrames) {
         const to = Math.min(frameCount, from + chunkFrames);
-        let hops = 0;
-        for (let c = 0; c < channelCount; c++) hops = filters[c]!.run(block[c]!, from, to, hopBuffers[c]!);
+        const hops = filters.run(block, from, to, hopBuffers);
         for (let j = 0; j < hops; j++) {
           for (let c = 0; c < channelCount; c++) hopEnergies[c] = hopBuffers[c]![j]!;
           processHop(out);

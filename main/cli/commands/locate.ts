@@ -8,7 +8,7 @@ import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, survey
 import { parseArrayCsv } from '../../../core/project';
 import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, measureEvent, recordingAccess, runPipeline, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
-import { useWasmFft } from '../../dsp';
+import { useWasmBandEnergy, useWasmFft } from '../../dsp';
 import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
 import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
@@ -167,6 +167,8 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     // This thread locates too (with no worker, or the waiting events once the scan is over): its correlations use the
     // WebAssembly FFT when it loads, as the workers' do (each loads its own), so no event's backend depends on its thread.
     await useWasmFft();
+    // Its scan filters four channels at a time in WebAssembly SIMD where it validates (the same hop energies bit for bit).
+    useWasmBandEnergy();
     const progress = progressLine(io);
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
     if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
