@@ -7,14 +7,14 @@ import { printableText } from '../text';
 import { minOf } from '../units';
 import { geodeticToEnu } from './localEnu';
 import type { GeodeticPosition } from './types';
-import { utmToGeodetic } from './utm';
+import { utmToGeodetic, type UtmZone } from './utm';
 import { affineDeterminant, affinePoint, type PixelAffine } from './worldFile';
 
 /** The frame a picture's map coordinates are in. */
 export type PictureFrame =
   | { kind: 'local' }
   | { kind: 'wgs84' }
-  | { kind: 'utm'; zone: number; hemisphere: 'north' | 'south' };
+  | UtmZone;
 
 export interface PictureSize {
   widthPixels: number;

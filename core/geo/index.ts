@@ -7,7 +7,7 @@ export { geodeticToEcef } from './geodeticToEcef';
 export { ecefToGeodetic } from './ecefToGeodetic';
 export { ecefToEnu, enuToEcef, geodeticToEnu, enuToGeodetic } from './localEnu';
 export { parseDegrees } from './parseDegrees';
-export { utmToGeodetic, utmCentralMeridianDegrees, type UtmPosition } from './utm';
+export { utmToGeodetic, utmCentralMeridianDegrees, utmZoneOf, type UtmPosition, type UtmZone } from './utm';
 export { parseWorldFile, affinePoint, affineDeterminant, type PixelAffine } from './worldFile';
 export {
   placeInLocalFrame,

@@ -25,6 +25,19 @@ const RECTIFYING_RADIUS_K0_METERS = SCALE_ON_CENTRAL_MERIDIAN * (WGS84.semiMajor
 const BETA = [n / 2 - (2 / 3) * n ** 2 + (37 / 96) * n ** 3, n ** 2 / 48 + n ** 3 / 15, (17 / 480) * n ** 3];
 const DELTA = [2 * n - (2 / 3) * n ** 2 - 2 * n ** 3, (7 / 3) * n ** 2 - (8 / 5) * n ** 3, (56 / 15) * n ** 3];
 
+/** A UTM zone and hemisphere; also the frame of a picture in UTM metres (./imagePlacement PictureFrame). */
+export interface UtmZone {
+  kind: 'utm';
+  zone: number;
+  hemisphere: 'north' | 'south';
+}
+
+/** UTM zone and hemisphere of a WGS84 position (the Norway and Svalbard exceptions are not applied). */
+export function utmZoneOf(position: GeodeticPosition): UtmZone {
+  const zone = Math.min(60, Math.max(1, Math.floor((((position.longitudeDegrees + 180) % 360) + 360) % 360 / 6) + 1));
+  return { kind: 'utm', zone, hemisphere: position.latitudeDegrees < 0 ? 'south' : 'north' };
+}
+
 /** Central meridian of a UTM zone, degrees east. */
 export function utmCentralMeridianDegrees(zone: number): number {
   return 6 * zone - 183;

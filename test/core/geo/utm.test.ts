@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import proj4 from 'proj4';
 import { describe, expect, it } from 'vitest';
-import { utmCentralMeridianDegrees, utmToGeodetic } from '../../../core/geo';
+import { utmCentralMeridianDegrees, utmToGeodetic, utmZoneOf } from '../../../core/geo';
 import { expectWhenceError, geodeticDistanceMeters } from './geoTestHelpers';
 
 function proj4Utm(zone: number, hemisphere: 'north' | 'south') {
@@ -48,5 +48,25 @@ describe('utmToGeodetic()', () => {
     expectWhenceError(() => utmToGeodetic({ zone: 61, hemisphere: 'north', eastingMeters: 500_000, northingMeters: 0 }), 'utm-invalid', ['zones are whole numbers 1 to 60']);
     expectWhenceError(() => utmToGeodetic({ zone: 33, hemisphere: 'north', eastingMeters: 2_500_000, northingMeters: 5_000_000 }), 'utm-invalid', ['check the zone']);
     expectWhenceError(() => utmToGeodetic({ zone: 33, hemisphere: 'north', eastingMeters: Number.NaN, northingMeters: 0 }), 'utm-invalid');
+  });
+});
+
+describe('utmZoneOf()', () => {
+  // An invented site origin (only its latitude and longitude matter here).
+  const ORIGIN = { latitudeDegrees: 51.92503, longitudeDegrees: 14.08512, heightMeters: 96.4 };
+
+  it('gives the UTM zone of a longitude (zone z spans 6z − 186 .. 6z − 180 degrees, common practice) and the hemisphere of its latitude', () => {
+    expect(utmZoneOf(ORIGIN)).toEqual({ kind: 'utm', zone: 33, hemisphere: 'north' });
+    expect(utmZoneOf({ ...ORIGIN, longitudeDegrees: -0.5, latitudeDegrees: -33 })).toEqual({ kind: 'utm', zone: 30, hemisphere: 'south' });
+    expect(utmZoneOf({ ...ORIGIN, longitudeDegrees: -180 })).toMatchObject({ zone: 1 });
+    expect(utmZoneOf({ ...ORIGIN, longitudeDegrees: 179.99 })).toMatchObject({ zone: 60 });
+  });
+
+  it('puts every longitude within 3 degrees of its zone’s central meridian (a sweep in steps of 0.1 degree)', () => {
+    for (let tenths = -1800; tenths < 1800; tenths++) {
+      const longitudeDegrees = tenths / 10 + 0.05;
+      const { zone } = utmZoneOf({ ...ORIGIN, longitudeDegrees });
+      expect(Math.abs(longitudeDegrees - utmCentralMeridianDegrees(zone)), `${longitudeDegrees}`).toBeLessThanOrEqual(3);
+    }
   });
 });
