@@ -176,7 +176,6 @@ describe.runIf(run)('a deployment of separate recorders in the app (issue 9, ite
     expect(appErrors.length).toBeGreaterThanOrEqual(Math.min(5, cliErrors.length));
     // the app's logged (ok) fixes are within 20 % of the command line's median error on the same sounds (issue 9's bar for accuracy)
     expect(median(appErrors)).toBeLessThanOrEqual(1.2 * median(cliErrors) + 1e-3);
-    console.log(`deployment e2e: ${appErrors.length} app fixes, median error ${median(appErrors).toFixed(4)} m; CLI ${cliErrors.length} fixes, median ${median(cliErrors).toFixed(4)} m`);
     expect(pageErrors).toEqual([]);
   }, 400_000);
 
