@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, pickedPath } from '../../../renderer/deployment/pickedFiles';
+import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath } from '../../../renderer/deployment/pickedFiles';
 import { FIXTURE_TABLE } from './layoutFixture';
 
 // Expected values: this project's rules for picked files (paths relative to the picked folder, the deployment table told
@@ -16,6 +16,13 @@ describe('isAudioFileName()', () => {
   it('takes WAV, RF64 and BW64 names in any case, nothing else', () => {
     expect(['A.WAV', 'b.wav', 'c.rf64', 'd.BW64'].every(isAudioFileName)).toBe(true);
     expect(['a.csv', 'a.wav.txt', 'wav'].some(isAudioFileName)).toBe(false);
+  });
+});
+
+describe('isCsvFileName()', () => {
+  it('takes .csv names in any case', () => {
+    expect(isCsvFileName('Deployment.CSV')).toBe(true);
+    expect(isCsvFileName('deployment.csv.bak')).toBe(false);
   });
 });
 
