@@ -474,6 +474,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       // An empty array (a new project, or after the demo) takes the array table picked with the deployment.
       const arrays = csvs.filter((csv) => csv.kind === 'array');
       if (stateRef.current.document.array.microphones.length === 0 && arrays.length === 1) importArrayText(arrays[0]!.path, arrays[0]!.text);
+      else if (arrays.length > 0) notify('info', `${what} also holds ${arrays.map((csv) => csv.path).join(', ')}; the project's array is kept. Open ${arrays.length === 1 ? 'it' : 'one'} with Open array if it is this deployment's.`);
     } catch (error) {
       dispatch({ type: 'busy/set', busy: undefined });
       notify('error', `The deployment could not be opened: ${message(error)} ${unchanged}`);
