@@ -11,6 +11,8 @@ import type { FromWorker, ToWorker, WorkerDeployment, WorkerInit } from './messa
 
 export interface LocatePool {
   readonly workerCount: number;
+  /** Resolves once every worker thread runs (its V8 isolate is set up), or has failed. */
+  readonly online: Promise<void>;
   /** Measures the event in a worker (core/pipeline measureEvent: delays and timing evidence; runPipeline solves it). */
   locate(event: DetectedEvent): Promise<MeasuredEvent>;
   /**
@@ -57,6 +59,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
     }
   }
 
+  const onlineSignals: Array<Promise<void>> = [];
   const slots: Slot[] = Array.from({ length: workerCount }, () => {
     const slot: Slot = { worker: new Worker(workerPath, { workerData: init }), busy: 0, ready: false, failed: false };
     slot.worker.on('message', (message: FromWorker) => {
@@ -73,6 +76,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
       else job.reject(message.code !== undefined ? new WhenceError(message.code, message.message) : new Error(message.message));
       feed(slot);
     });
+    onlineSignals.push(new Promise<void>((resolve) => { slot.worker.once('online', resolve); slot.worker.once('error', () => resolve()); }));
     slot.worker.on('error', (error) => {
       slot.failed = true;
       for (const [id, job] of posted) if (job.slot === slot) { posted.delete(id); slot.busy--; job.reject(error); }
@@ -84,6 +88,7 @@ export function createLocatePool(recordingPath: string, context: LocateContext, 
 
   return {
     workerCount,
+    online: Promise.all(onlineSignals).then(() => undefined),
     locate(event) {
       return new Promise<MeasuredEvent>((resolve, reject) => {
         queue.push({ event, resolve, reject });

@@ -11,7 +11,7 @@ import { WHENCE_VERSION } from '../../../core/version';
 import { useWasmBandEnergy, useWasmFft } from '../../dsp';
 import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
-import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
+import { bundledWorkerPath, createLocatePool, holdYoungGenerationSize, type LocatePool } from '../../pipeline';
 import { verdictTally } from '../format';
 import type { CliIo } from '../io';
 import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
@@ -164,6 +164,9 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const context: LocateContext = { geometry, channelIndexOfMicrophone: mapping.channelIndexOfMicrophone, settings };
     const workerPath = bundledWorkerPath();
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(recordingPath, context, workerCount, workerPath);
+    // This thread's young generation held at its size once the workers' isolates are set up (./youngGeneration).
+    if (pool === undefined) holdYoungGenerationSize();
+    else void pool.online.then(holdYoungGenerationSize);
     // This thread locates too (with no worker, or the waiting events once the scan is over): its correlations use the
     // WebAssembly FFT when it loads, as the workers' do (each loads its own), so no event's backend depends on its thread.
     await useWasmFft();

@@ -61,6 +61,19 @@ describe('createLocatePool()', () => {
     }
   });
 
+  it('online resolves once the worker thread runs', async () => {
+    const pool = createLocatePool('unused.wav', context, 1, workerPath);
+    try {
+      let online = false;
+      void pool.online.then(() => { online = true; });
+      await pool.locate(event(100)); // answered by the worker, so it ran
+      await sleep(0);
+      expect(online).toBe(true);
+    } finally {
+      await pool.close();
+    }
+  });
+
   it('rejects the events of a worker that fails, and those still waiting when no worker is left', async () => {
     const pool = createLocatePool('unused.wav', context, 1, workerPath);
     try {
