@@ -8,7 +8,7 @@ import { runPipeline, type LocateContext } from '../../../core/pipeline';
 import { printableText } from '../../../core/text';
 import { WHENCE_VERSION } from '../../../core/version';
 import { useWasmFft } from '../../dsp';
-import { bundledWorkerPath, createLocatePool, type LocatePool } from '../../pipeline';
+import { bundledWorkerPath, createLocatePool, holdYoungGenerationSize, type LocatePool } from '../../pipeline';
 import { deploymentHeadNotes, openDeploymentFromOptions } from '../deploymentOptions';
 import { outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
 import type { CliIo } from '../io';
@@ -50,6 +50,10 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     const workerPath = bundledWorkerPath();
     const tablePath = optionalString(values, 'deployment')!;
     if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(tablePath, context, workerCount, workerPath, { tablePath, layout: recording.layout, clocks: [...recording.clocks] });
+    // This thread's young generation held at its size once the workers' isolates are set up (main/pipeline/youngGeneration):
+    // left to grow, it doubled twice over an hour's scan and solve as results survived its collections (bench/deployment.ts).
+    if (pool === undefined) holdYoungGenerationSize();
+    else void pool.online.then(holdYoungGenerationSize);
     // Without workers this thread locates: the WebAssembly FFT when it loads, as in the workers and `whence locate`.
     if (pool === undefined) await useWasmFft();
     const progress = progressLine(io);
