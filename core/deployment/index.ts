@@ -8,10 +8,10 @@ export { fitClocks, type ClockFitInput, type ClockFitResult, type ClockObservati
 export { deploymentRecording, type DeploymentRecording, type OpenDeploymentFile } from './deploymentRecording';
 export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from './calibrationTable';
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
-export { microphonesByLabel, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
+export { DEFAULT_OFFSET_SIGMA_SECONDS, microphonesByLabel, OFFSET_SIGMA_LIMITS_SECONDS, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
 export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
-export { clockFitHeadLines, clockFitJson, clockFitLines, clockFitText, soundResiduals } from './clockFitReport';
-export { deploymentClockReport, type DeploymentClockReport } from './deploymentClockReport';
+export { clockFitHeadLines, clockFitJson, clockFitLines, clockFitText, soundResiduals, type FittedSoundPlaces } from './clockFitReport';
+export { deploymentClockReport, type ClockFitKind, type DeploymentClockReport } from './deploymentClockReport';
 export { openDeploymentTable, pathBaseName, type OpenDeploymentTableOptions } from './openDeploymentTable';
 export { matchPickedFiles, normalisePickedPath } from './matchPickedFiles';
 export { deploymentChannelIndices, deploymentContentHash } from './deploymentIdentity';

@@ -26,6 +26,8 @@ export interface SharedSoundFitInput {
 export interface SharedSoundFitResult extends ClockFitResult {
   /** Fitted position of every shared sound, metres east/north/up of the array's origin. */
   soundPositions: Array<{ eastMeters: number; northMeters: number; upMeters: number }>;
+  /** One-sigma of each fitted position, metres (clocks' uncertainty included; the height's 0 when fixed in 2-D; NaN for a sound left out). */
+  soundPositionSigmas: Array<{ eastMeters: number; northMeters: number; upMeters: number }>;
   /** The observations with rangeSeconds set from the fitted sound positions. */
   observations: ClockObservation[];
 }
@@ -313,15 +315,15 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
     };
   });
   for (const fit of fits) warnings.push(...fit.warnings);
-  // emission sigma: [Vi + Vi Wᵀ C W Vi]_TT
-  const emissionSigma = (i: number) => {
+  // sigma of sound i's unknown t (a position coordinate / c, or the emission time): [Vi + Vi Wᵀ C W Vi]_tt
+  const soundSigma = (i: number, t: number) => {
     const { Vi, W } = blocks[i]!;
-    const t = dimensions;
     const u = Float64Array.from({ length: nc }, (_, p) => W[p]!.reduce((sum, v, a) => sum + v * Vi[a]![t]!, 0));
     let extra = 0;
     for (let p = 0; p < nc; p++) for (let q = 0; q < nc; q++) extra += u[p]! * covariance[p]![q]! * u[q]!;
     return Math.sqrt(Math.max(0, Vi[t]![t]! + extra)) * sigmaScale;
   };
+  const emissionSigma = (i: number) => soundSigma(i, dimensions);
   const stateOf = new Map(soundIndexOf.map((k, i) => [k, i]));
   return {
     recorders: fits,
@@ -334,6 +336,11 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
       if (i === undefined) return { eastMeters: Number.NaN, northMeters: Number.NaN, upMeters: Number.NaN };
       const s = states[i]!;
       return { eastMeters: s[0]! * c, northMeters: s[1]! * c, upMeters: dimensions === 3 ? s[2]! * c : soundUpMeters };
+    }),
+    soundPositionSigmas: sounds.map((_, k) => {
+      const i = stateOf.get(k);
+      if (i === undefined) return { eastMeters: Number.NaN, northMeters: Number.NaN, upMeters: Number.NaN };
+      return { eastMeters: soundSigma(i, 0) * c, northMeters: soundSigma(i, 1) * c, upMeters: dimensions === 3 ? soundSigma(i, 2) * c : 0 };
     }),
     observations: fittedObservations,
     residualsSeconds, chiSquare, degreesOfFreedom, sigmaScale,

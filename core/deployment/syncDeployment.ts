@@ -7,6 +7,7 @@ import { maxOf, minOf } from '../units';
 import { measureCalibrationArrivals, type ArrivalOptions } from './calibrationArrivals';
 import type { CalibrationSound } from './calibrationTable';
 import { fitClocks, type ClockFitResult, type ClockObservation } from './clockFit';
+import type { FittedSoundPlaces } from './clockFitReport';
 import type { StartSource } from './deploymentLayout';
 import type { DeploymentRecording } from './deploymentRecording';
 import { fitClocksFromSharedSounds } from './sharedSoundFit';
@@ -16,8 +17,10 @@ export interface DeploymentSync {
   fit: ClockFitResult;
   observations: ClockObservation[];
   warnings: string[];
-  /** Fitted places of shared sounds (clock fit from shared sounds only), metres east/north/up. */
-  soundPositions?: Array<{ eastMeters: number; northMeters: number; upMeters: number }>;
+  /** Fitted places of shared sounds with their sigmas (clock fit from shared sounds only), metres east/north/up. */
+  soundPlaces?: FittedSoundPlaces;
+  /** Shared sounds: each recorder's offset prior, one-sigma seconds, in the recorders' order. */
+  offsetPriorSigmasSeconds?: number[];
 }
 
 /** The array's microphones by label; every microphone of the array must be on a recorder of the deployment. */
@@ -54,8 +57,15 @@ export interface SharedSoundSyncOptions extends ArrivalOptions {
   soundUpMeters?: number;
 }
 
+/** The offset prior's one-sigma, seconds: from 0.1 ms (a clock already fitted) to an hour (hardly a prior at all). */
+export const OFFSET_SIGMA_LIMITS_SECONDS = { min: 1e-4, max: 3600 } as const;
+
 /** The clock fit from sounds every recorder heard at unknown places: arrivals measured as for calibration sounds, then the joint fit. */
 export async function syncDeploymentFromSharedSounds(recording: DeploymentRecording, geometry: ArrayGeometry, sounds: readonly SharedSound[], options: SharedSoundSyncOptions): Promise<DeploymentSync> {
+  const prior = options.offsetSigmaSeconds;
+  if (prior !== undefined && !(prior >= OFFSET_SIGMA_LIMITS_SECONDS.min && prior <= OFFSET_SIGMA_LIMITS_SECONDS.max)) {
+    throw new WhenceError('invalid-offset-sigma', `the offset prior must be ${OFFSET_SIGMA_LIMITS_SECONDS.min * 1e3} ms to ${OFFSET_SIGMA_LIMITS_SECONDS.max} s (how far each recorder's stamps may be off, one sigma); got ${prior} s.`);
+  }
   const microphones = microphonesByLabel(geometry, recording);
   const { observations, warnings } = await measureCalibrationArrivals(recording, microphones, sounds, options);
   const recorders = recording.layout.recorders.map((recorder) => ({
@@ -68,7 +78,10 @@ export async function syncDeploymentFromSharedSounds(recording: DeploymentRecord
     recorders, sounds: sounds.map((sound) => ({ label: sound.label })), observations, microphones, speedMetersPerSecond: options.speedMetersPerSecond, dimensions,
     referenceIndex: referenceIndexOf(recorders, options.referenceRecorder), ...(options.soundUpMeters !== undefined ? { soundUpMeters: options.soundUpMeters } : {}),
   });
-  return { fit, observations: fit.observations, warnings: [...warnings, ...fit.warnings], soundPositions: fit.soundPositions };
+  return {
+    fit, observations: fit.observations, warnings: [...warnings, ...fit.warnings], soundPlaces: { positions: fit.soundPositions, sigmas: fit.soundPositionSigmas },
+    offsetPriorSigmasSeconds: recorders.map((recorder) => recorder.offsetPriorSigmaSeconds),
+  };
 }
 
 export async function syncDeployment(recording: DeploymentRecording, geometry: ArrayGeometry, sounds: readonly CalibrationSound[], options: ArrivalOptions & { referenceRecorder?: string }): Promise<DeploymentSync> {

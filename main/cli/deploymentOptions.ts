@@ -1,7 +1,7 @@
 // Options shared by the commands that read a recorder deployment (sync, locate --deployment): the table, file-name
 // times, the calibration sounds and how they are looked for; opens the deployment and fits its clocks when asked.
 import { basename } from 'node:path';
-import { clockFitHeadLines, nameTimePattern, parseCalibrationCsv, parseSharedSoundsCsv, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentRecording, type DeploymentSync } from '../../core/deployment';
+import { clockFitHeadLines, nameTimePattern, OFFSET_SIGMA_LIMITS_SECONDS, parseCalibrationCsv, parseSharedSoundsCsv, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentRecording, type DeploymentSync } from '../../core/deployment';
 import { deploymentHeadNotes as headNotesOf } from '../../core/export';
 import type { ArrayGeometry } from '../../core/project';
 import { openDeployment } from '../pipeline';
@@ -44,7 +44,7 @@ export async function openDeploymentFromOptions(values: ParsedCommand['values'],
   const offsetSigmaSeconds = optionalNumber(values, 'offset-sigma', 'seconds');
   if (calibrationPath !== undefined && sharedPath !== undefined) throw new UsageError('give either --calibration (sounds at surveyed points) or --shared-sounds (sounds at unknown places), not both.');
   if (offsetSigmaSeconds !== undefined && sharedPath === undefined) throw new UsageError('--offset-sigma is the prior of the shared-sound clock fit; give --shared-sounds FILE too.');
-  if (offsetSigmaSeconds !== undefined && !(offsetSigmaSeconds >= 1e-4 && offsetSigmaSeconds <= 3600)) throw new UsageError(`--offset-sigma must be 0.0001 to 3600 seconds; got ${offsetSigmaSeconds}.`);
+  if (offsetSigmaSeconds !== undefined && !(offsetSigmaSeconds >= OFFSET_SIGMA_LIMITS_SECONDS.min && offsetSigmaSeconds <= OFFSET_SIGMA_LIMITS_SECONDS.max)) throw new UsageError(`--offset-sigma must be ${OFFSET_SIGMA_LIMITS_SECONDS.min} to ${OFFSET_SIGMA_LIMITS_SECONDS.max} seconds; got ${offsetSigmaSeconds}.`);
   const recording = await openDeployment(tablePath, nameTimeText !== undefined ? { nameTime: nameTimePattern(nameTimeText) } : {});
   if (calibrationPath === undefined && sharedPath === undefined) return { recording };
   try {

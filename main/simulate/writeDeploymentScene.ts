@@ -1,5 +1,5 @@
 // Writes a simulated deployment to a folder: each recorder's files as BWF WAV (bext start = the file's nominal stamp),
-// the deployment table (paths relative to it), the array table and, when asked, the calibration table. Atomic writes.
+// the deployment table (paths relative to it), the array table and, when asked, the calibration and shared-sound tables. Atomic writes.
 import { join } from 'node:path';
 import type { WavWriteSpec } from '../../core/audio';
 import { addSeconds, formatLocalInstant, type LocalInstant } from '../../core/deployment';
@@ -12,6 +12,8 @@ export interface WriteDeploymentOptions {
   origin: LocalInstant;
   /** Sounds (scene source ids) to list in calibration.csv with their positions and rough times. */
   calibrationSoundIds?: string[];
+  /** Sounds (scene source ids) to list in shared-sounds.csv by label and rough time only (places not given). */
+  sharedSoundIds?: string[];
   /** Survey sigma written to the array table, metres. Default 0.01. */
   surveySigmaMeters?: number;
   bitsPerSample?: 16 | 24;
@@ -22,6 +24,7 @@ export interface WrittenDeployment {
   deploymentPath: string;
   arrayPath: string;
   calibrationPath?: string;
+  sharedSoundsPath?: string;
   files: string[];
 }
 
@@ -38,7 +41,7 @@ async function writeRecorderFile(prepared: PreparedDeploymentScene, r: number, f
   await writeRenderedWav(path, spec, (frame, count, channels) => prepared.renderFile(r, f, frame, count, channels), { blockFrames: NOISE_TILE_FRAMES });
 }
 
-/** Writes every file, deployment.csv, array.csv (and calibration.csv) into `folder`; file stamps are whole frames since midnight. */
+/** Writes every file, deployment.csv, array.csv (and calibration.csv, shared-sounds.csv) into `folder`; file stamps are whole frames since midnight. */
 export async function writeDeploymentScene(spec: DeploymentSceneSpec, folder: string, options: WriteDeploymentOptions): Promise<WrittenDeployment> {
   const prepared = prepareDeploymentScene(spec);
   const rows = ['recorder,file,file_channel,microphone'];
@@ -67,6 +70,16 @@ export async function writeDeploymentScene(spec: DeploymentSceneSpec, folder: st
     });
     await writeFileAtomic(calibrationPath, 'label,time,x_m,y_m,z_m\n' + lines.join('\n') + '\n');
     written.calibrationPath = calibrationPath;
+  }
+  if (options.sharedSoundIds !== undefined) {
+    const sharedSoundsPath = join(folder, 'shared-sounds.csv');
+    const lines = options.sharedSoundIds.map((id) => {
+      const source = spec.scene.sources.find((s) => s.id === id);
+      if (source === undefined) throw new Error(`no source '${id}' in the scene`);
+      return `${id},${formatLocalInstant(addSeconds(options.origin, source.emissionTimeSeconds), 1)}`;
+    });
+    await writeFileAtomic(sharedSoundsPath, 'label,time\n' + lines.join('\n') + '\n');
+    written.sharedSoundsPath = sharedSoundsPath;
   }
   return written;
 }

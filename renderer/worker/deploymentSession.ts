@@ -2,9 +2,10 @@
 // the virtual recording (core/deployment) through each recorder's own stamps or, after syncClocks, through fitted clocks. No DOM.
 import { recordingFingerprint, type WavInfo } from '../../core/audio';
 import {
-  deploymentClockReport, deploymentContentHash, matchPickedFiles, nameTimePattern, openDeploymentTable, parseCalibrationCsv, parseDeploymentCsv, pathBaseName, syncDeployment,
-  type DeploymentClockReport, type DeploymentLayout, type DeploymentRecording, type OpenDeploymentFile,
+  deploymentClockReport, deploymentContentHash, matchPickedFiles, nameTimePattern, openDeploymentTable, parseCalibrationCsv, parseDeploymentCsv, parseSharedSoundsCsv, pathBaseName,
+  syncDeployment, syncDeploymentFromSharedSounds, type DeploymentClockReport, type DeploymentLayout, type DeploymentRecording, type DeploymentSync, type OpenDeploymentFile,
 } from '../../core/deployment';
+import { WhenceError } from '../../core/errors';
 import { blobByteSource } from '../io';
 import type { SyncClocksParams, WorkerSource } from './protocol';
 
@@ -18,7 +19,7 @@ export interface DeploymentSession {
   recording(): DeploymentRecording;
   /** The same recording with files of its own, for one long pass (the overview envelope); close it after the pass. */
   passRecording(): DeploymentRecording;
-  /** Fits the clocks from calibration sounds (as `whence sync`) and reads through them from now on. */
+  /** Fits the clocks from calibration or shared sounds (as `whence sync`) and reads through them from now on. */
   syncClocks(params: SyncClocksParams): Promise<DeploymentClockReport>;
   /** Back to each recorder's own file stamps. */
   clearClocks(): Promise<void>;
@@ -51,16 +52,34 @@ export async function openDeploymentSession(source: DeploymentSource): Promise<D
     recording: () => current,
     passRecording: () => current.withClocks(current.clocks),
     async syncClocks(params) {
-      const sounds = parseCalibrationCsv(params.calibration.text, pathBaseName(params.calibration.name), base.layout.origin);
-      // Arrivals are measured on each recorder's own time (as `whence sync` does), whatever clocks are in use now.
-      const sync = await syncDeployment(base, params.geometry, sounds, {
+      const options = {
         speedMetersPerSecond: params.speedMetersPerSecond,
         ...(params.searchSeconds !== undefined ? { searchSeconds: params.searchSeconds } : {}),
         ...(params.bandHz !== undefined ? { bandHz: params.bandHz } : {}),
         ...(params.referenceRecorder !== undefined ? { referenceRecorder: params.referenceRecorder } : {}),
-      });
+      };
+      // Arrivals are measured on each recorder's own time (as `whence sync` does), whatever clocks are in use now.
+      let sync: DeploymentSync;
+      let table: { name: string; text: string };
+      if (params.sharedSounds !== undefined && params.calibration !== undefined) {
+        throw new WhenceError('clock-fit-two-tables', 'Fit the clocks from either a calibration table (sounds at surveyed points) or a shared-sound table (sounds at unknown places), not both.');
+      } else if (params.sharedSounds !== undefined) {
+        table = params.sharedSounds;
+        const sounds = parseSharedSoundsCsv(table.text, pathBaseName(table.name), base.layout.origin);
+        sync = await syncDeploymentFromSharedSounds(base, params.geometry, sounds, {
+          ...options,
+          ...(params.offsetSigmaSeconds !== undefined ? { offsetSigmaSeconds: params.offsetSigmaSeconds } : {}),
+          ...(params.dimensions !== undefined ? { dimensions: params.dimensions } : {}),
+          ...(params.soundUpMeters !== undefined ? { soundUpMeters: params.soundUpMeters } : {}),
+        });
+      } else if (params.calibration !== undefined) {
+        table = params.calibration;
+        sync = await syncDeployment(base, params.geometry, parseCalibrationCsv(table.text, pathBaseName(table.name), base.layout.origin), options);
+      } else {
+        throw new WhenceError('clock-fit-no-table', 'The clock fit needs a table: a calibration table (time,x_m,y_m of sounds made at surveyed points) or a shared-sound table (time of sounds every recorder heard).');
+      }
       await replace(base.withClocks(sync.fit.recorders.map((r) => r.clock)));
-      return deploymentClockReport(sync, pathBaseName(params.calibration.name));
+      return deploymentClockReport(sync, pathBaseName(table.name));
     },
     clearClocks: () => replace(base),
     async close() {

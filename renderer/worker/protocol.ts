@@ -19,9 +19,26 @@ export type WorkerSource =
 /** What `open` resolves to: the recording's (for a deployment its virtual recording's) header and content hash, and the deployment's layout. */
 export interface WorkerOpenResult { info: WavInfo; contentHash: string; deployment?: DeploymentLayout }
 
-/** Fits the open deployment's clocks from calibration sounds, as `whence sync` does (same defaults). */
-export interface SyncClocksParams {
-  calibration: { name: string; text: string };
+/**
+ * Fits the open deployment's clocks as `whence sync` does (same defaults): from a calibration table (calibration sounds at
+ * surveyed points, `--calibration`), or from a shared-sound table (sounds every recorder heard at unknown places, fitted
+ * with their places and times, `--shared-sounds`) steadied by the offset prior (`--offset-sigma`). Give exactly one table.
+ */
+export type SyncClocksParams = ClockFitCommonParams & (
+  | { calibration: { name: string; text: string }; sharedSounds?: undefined }
+  | {
+    sharedSounds: { name: string; text: string };
+    calibration?: undefined;
+    /** One-sigma of every recorder's offset prior, seconds (0.0001 to 3600); default by its first file's stamp: 1 s to the sample, 2 s whole-second. */
+    offsetSigmaSeconds?: number;
+    /** 3: each sound's height fitted (default when the microphones differ in height by 0.1 m or more); 2: fixed at soundUpMeters. */
+    dimensions?: 2 | 3;
+    /** 2-D: the sounds' height, metres up (default the microphones' mean height). */
+    soundUpMeters?: number;
+  });
+
+/** What every clock fit takes, whichever its table. */
+export interface ClockFitCommonParams {
   geometry: ArrayGeometry;
   speedMetersPerSecond: number;
   /** Recorder whose clock is the time base (default: the table's first). */

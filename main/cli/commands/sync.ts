@@ -48,16 +48,14 @@ export async function runSync(argv: string[], io: CliIo): Promise<number> {
     let text: string;
     let data: unknown;
     if (asJson) {
-      const json = clockFitJson(fit, sync!.observations) as { sounds: Array<Record<string, unknown>> };
-      const positions = sync!.soundPositions;
-      if (positions !== undefined) json.sounds = json.sounds.map((sound, k) => ({ ...sound, fittedEastMeters: positions[k]!.eastMeters, fittedNorthMeters: positions[k]!.northMeters, fittedUpMeters: positions[k]!.upMeters }));
+      const json = clockFitJson(fit, sync!.observations, sync!.soundPlaces);
       data = { deployment: basename(optionalString(values, 'deployment')!), origin: recording.info.startTime?.isoLocal, speedOfSoundMetersPerSecond: speed.speedMetersPerSecond, startTimes: sources, ...json };
       text = JSON.stringify(data, null, 2) + '\n';
     } else {
       text = [
         `deployment ${basename(optionalString(values, 'deployment')!)}: ${recording.layout.recorders.length} recorders, time 0 = ${recording.info.startTime?.isoLocal ?? '?'}`,
         'start times:', ...sources.map((line) => `  ${line}`),
-        ...clockFitText(fit, sync!.observations, sync!.soundPositions),
+        ...clockFitText(fit, sync!.observations, sync!.soundPlaces),
       ].join('\n') + '\n';
     }
     if (outPath !== undefined) {

@@ -13,7 +13,7 @@ let layout: DeploymentLayout;
 beforeAll(async () => { layout = await fixtureLayout(); });
 
 const info = { channelCount: 2, sampleRateHz: 1000, frameCount: 3000, durationSeconds: 3, warnings: [], startTime: { isoLocal: '2026-05-14T05:00:00.000' } } as unknown as WavInfo;
-const report = { calibrationName: 'calibration.csv', recorders: [], sounds: [], lines: [], headJson: {}, headLines: ['clock time base: x'], warnings: [] } as DeploymentClockReport;
+const report = { kind: 'calibration', tableName: 'calibration.csv', recorders: [], sounds: [], lines: [], headJson: {}, headLines: ['clock time base: x'], warnings: [] } as DeploymentClockReport;
 const speed = { speedMetersPerSecond: 343, speedSigmaMetersPerSecond: 0.5, description: 'air', reference: 'fixed' };
 
 function documentWith(labels: string[]): ProjectDocument {

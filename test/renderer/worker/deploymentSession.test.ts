@@ -1,7 +1,7 @@
 // The app worker's deployment handling (renderer/worker/deploymentSession) on simulated deployments (core/simulate, invented
-// test scenes) written to a folder and read back as Blobs: opening, overview passes, the clock fit and locating, against
+// test scenes) written to a folder and read back as Blobs: opening, overview passes, the clock fit (calibration or shared sounds) and locating, against
 // the simulated truth, a synchronized multichannel file of the same scene and the command line's own code path.
-import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -19,6 +19,7 @@ import { useWasmFft } from '../../../main/dsp';
 import { openFileByteSource } from '../../../main/io';
 import { writeDeploymentScene, writeSceneWav, type WrittenDeployment } from '../../../main/simulate';
 import { openDeploymentSession, type DeploymentSource } from '../../../renderer/worker/deploymentSession';
+import type { SyncClocksParams } from '../../../renderer/worker/protocol';
 import { spanCorrelations } from '../../../renderer/worker/spanCorrelations';
 import { runCliInProcess } from '../../helpers/cli';
 import { DEPLOYMENT_CLOCKS, deploymentScene } from '../../helpers/deploymentScenes';
@@ -145,7 +146,7 @@ describe('openDeploymentSession() on a deployment with clock offsets and drifts'
   it('syncClocks() recovers every recorder\'s offset within 20 µs and drift within 0.5 ppm (issue 9), and prints what whence sync prints', async () => {
     const session = await openDeploymentSession(source);
     const report = await session.syncClocks(syncParams());
-    expect(report.calibrationName).toBe('calibration.csv');
+    expect(report.tableName).toBe('calibration.csv');
     expect(report.recorders.map((r) => r.name)).toEqual(['R1', 'R2', 'R3', 'R4', 'R5', 'R6']);
     expect(report.recorders[0]!.reference).toBe(true);
     report.recorders.forEach((recorder, r) => {
@@ -225,4 +226,97 @@ describe('openDeploymentSession() on a deployment with clock offsets and drifts'
     expect(Math.hypot(byHand.solve.fix!.eastMeters - click.solve.fix!.eastMeters, byHand.solve.fix!.northMeters - click.solve.fix!.northMeters)).toBeLessThan(0.01); // the run's fix (pooled timing aside), to 1 cm
     await session.close();
   }, 300_000);
+});
+
+describe('openDeploymentSession() syncClocks() from shared sounds (sounds every recorder heard, places unknown)', () => {
+  // The clock truth of test/helpers/deploymentScenes; nine loud clicks 6 s apart (each alone in its 3 s search span plus
+  // the largest clock offset) at the six calibration places of deploymentScenes, listed by rough time only; no gap.
+  const CLICK_SECONDS = [4, 10, 16, 22, 28, 34, 40, 46, 52];
+  const scene = deploymentScene({ recorderSeconds: 58, splitSeconds: 20, calibrationSeconds: CLICK_SECONDS, soundSeconds: [] });
+  let written: WrittenDeployment;
+  let source: DeploymentSource;
+  let arrayText: string;
+  let sharedText: string;
+  const sharedPath = () => join(folder, 'shared', 'shared.csv');
+
+  beforeAll(async () => {
+    mkdirSync(join(folder, 'shared'), { recursive: true });
+    written = await writeDeploymentScene(scene.spec, join(folder, 'shared'), { origin: ORIGIN, sharedSoundIds: scene.calibrationIds });
+    // the table as the simulator writes it, under the name the command line is given below
+    sharedText = readFileSync(written.sharedSoundsPath!, 'utf8');
+    writeFileSync(sharedPath(), sharedText);
+    source = picked(join(folder, 'shared'));
+    arrayText = readFileSync(written.arrayPath, 'utf8');
+  }, 180_000);
+
+  const sharedParams = (offsetSigmaSeconds?: number): SyncClocksParams => ({
+    sharedSounds: { name: 'shared.csv', text: sharedText }, geometry: parseArrayCsv(arrayText, 'array.csv'), speedMetersPerSecond: 343,
+    ...(offsetSigmaSeconds !== undefined ? { offsetSigmaSeconds } : {}),
+  });
+
+  it('recovers every clock within 20 µs and 0.5 ppm and within 3 sigmas, each sound\'s place within 3 sigmas of the simulated truth, and gives what whence sync --shared-sounds gives', async () => {
+    const session = await openDeploymentSession(source);
+    const report = await session.syncClocks(sharedParams());
+    expect(report.kind).toBe('shared-sounds');
+    expect(report.tableName).toBe('shared.csv');
+    expect(report.recorders[0]!.reference).toBe(true);
+    report.recorders.forEach((recorder, r) => {
+      // expected: the simulated clock seen from the reference recorder's (R1's) clock, what a fit with R1 fixed recovers
+      const truth = clockRelativeTo(DEPLOYMENT_CLOCKS[r]!, DEPLOYMENT_CLOCKS[0]!);
+      expect(recorder.offsetPriorSigmaSeconds).toBe(1); // the command line's default for bext TimeReference stamps (core/deployment DEFAULT_OFFSET_SIGMA_SECONDS)
+      expect(recorder.soundCount).toBe(CLICK_SECONDS.length);
+      expect(recorder.warning).toBeUndefined();
+      if (recorder.reference) return;
+      expect(Math.abs(recorder.offsetSeconds - truth.offsetSeconds)).toBeLessThan(20e-6); // issue 9's bound (met here: at most 11 µs)
+      expect(Math.abs(recorder.driftPpm - truth.drift * 1e6)).toBeLessThan(0.5); // issue 9's bound (met here: at most 0.29 ppm)
+      expect(Math.abs(recorder.offsetSeconds - truth.offsetSeconds)).toBeLessThan(3 * recorder.offsetSigmaSeconds); // within 3 of the fit's own sigmas
+      expect(Math.abs(recorder.driftPpm - truth.drift * 1e6)).toBeLessThan(3 * recorder.driftSigmaPpm);
+    });
+    // every sound's fitted place against where the scene put it (its emission on R1's clock is the fitted time)
+    expect(report.sounds.map((s) => s.label)).toEqual(scene.calibrationIds);
+    for (const sound of report.sounds) {
+      const truth = scene.spec.scene.sources.find((s) => s.id === sound.label)!;
+      const place = sound.place!;
+      expect(Math.abs(place.eastMeters - truth.eastMeters)).toBeLessThan(3 * place.sigmaEastMeters);
+      expect(Math.abs(place.northMeters - truth.northMeters)).toBeLessThan(3 * place.sigmaNorthMeters);
+      expect(Math.abs(place.upMeters - truth.upMeters)).toBeLessThan(3 * place.sigmaUpMeters);
+      // a sound's arrivals are placed from its loudest microphone's onset, found in 2 ms frames (core/deployment
+      // calibrationArrivals): a shift common to all its arrivals that its emission time takes up (moving no clock), so the
+      // emission time is only good to that frame, whatever its sigma says
+      expect(Math.abs(sound.timeSeconds - clockNominalSeconds(DEPLOYMENT_CLOCKS[0]!, truth.emissionTimeSeconds))).toBeLessThan(2e-3);
+      expect(sound.residuals).toHaveLength(6);
+    }
+    // the fitted clocks are in use
+    expect(session.recording().clocks.map((clock) => clock.offsetSeconds)).toEqual(report.recorders.map((r) => r.offsetSeconds));
+    // lines: exactly what `whence sync --shared-sounds` prints for the same files; headJson its --json; headLines the clock
+    // notes `whence locate --deployment --shared-sounds` writes in the survey log's head
+    const common = ['--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath(), '--sound-speed', '343'];
+    const cli = await runCliInProcess(['sync', ...common]);
+    expect(cli.exitCode, cli.stderr).toBe(0);
+    const printed = cli.stdout.trimEnd().split('\n');
+    expect(printed.slice(printed.findIndex((line) => line.startsWith('time base:')))).toEqual(report.lines);
+    expect(report.lines).toContain('shared sounds (places fitted):');
+    const cliJson = JSON.parse((await runCliInProcess(['sync', ...common, '--json'])).stdout) as Record<string, unknown>;
+    for (const key of Object.keys(report.headJson)) expect(report.headJson[key]).toEqual(cliJson[key]);
+    const log = await runCliInProcess(['locate', ...common, '--from', '3', '--to', '6', '--json']);
+    expect(log.exitCode, log.stderr).toBe(0);
+    expect((JSON.parse(log.stdout) as { log: { notes: string[] } }).log.notes.filter((note) => note.startsWith('clock '))).toEqual(report.headLines);
+    expect(report.headLines[0]).toMatch(/^clock time base: .*shared sounds/);
+    await session.close();
+  }, 300_000);
+
+  it('takes the offset prior as --offset-sigma does (seconds), and refuses one out of range or two tables at once', async () => {
+    const session = await openDeploymentSession(source);
+    const report = await session.syncClocks(sharedParams(0.5));
+    expect(report.recorders.every((r) => r.offsetPriorSigmaSeconds === 0.5)).toBe(true);
+    const cli = await runCliInProcess(['sync', '--deployment', written.deploymentPath, '--array', written.arrayPath, '--shared-sounds', sharedPath(), '--sound-speed', '343', '--offset-sigma', '0.5']);
+    const printed = cli.stdout.trimEnd().split('\n');
+    expect(printed.slice(printed.findIndex((line) => line.startsWith('time base:')))).toEqual(report.lines);
+    await expect(session.syncClocks(sharedParams(0))).rejects.toMatchObject({ code: 'invalid-offset-sigma', message: expect.stringMatching(/offset prior must be 0\.1 ms to 3600 s/) });
+    const both = { ...sharedParams(), calibration: { name: 'c.csv', text: 'time,x_m,y_m\n4,0,0\n' } } as unknown as SyncClocksParams;
+    await expect(session.syncClocks(both)).rejects.toMatchObject({ code: 'clock-fit-two-tables', message: expect.stringMatching(/either a calibration table .* or a shared-sound table/) });
+    // the clocks of the first fit are still in use after the refusals
+    expect(session.recording().clocks.map((clock) => clock.offsetSeconds)).toEqual(report.recorders.map((r) => r.offsetSeconds));
+    await session.close();
+  }, 120_000);
 });
