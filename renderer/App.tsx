@@ -211,8 +211,8 @@ export function App() {
                 />
               ) : <p className="muted empty">No recording open. Open one (or a deployment of several recorders) from the toolbar, or drop a WAV file here.</p>)}
               {shownBottomTab === 'clocks' && (
-                <ClockFitPanel layout={deployment} clocks={state.clocks} calibrationTables={workspace.deploymentCalibrationTables} busy={state.busy !== undefined}
-                  onFit={(calibration, options) => void workspace.fitClocks(calibration, options)} onClear={() => void workspace.clearClocks()} />
+                <ClockFitPanel layout={deployment} clocks={state.clocks} calibrationTables={workspace.deploymentCalibrationTables} sharedSoundTables={workspace.deploymentSharedSoundTables} busy={state.busy !== undefined}
+                  onFit={(table, options) => void workspace.fitClocks(table, options)} onClear={() => void workspace.clearClocks()} />
               )}
               {shownBottomTab === 'correlations' && (selected !== undefined && workspace.correlations !== undefined ? (
                 <CorrelationsView pairs={workspace.correlations.pairs} autocorrelations={workspace.correlations.autocorrelations} bandHz={selected.bandHz} weighting={state.document.settings.weighting} />

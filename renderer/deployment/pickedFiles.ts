@@ -6,7 +6,7 @@ import { matchPickedFiles, parseDeploymentCsv } from '../../core/deployment';
 /** The columns every deployment table has (core/deployment parseDeploymentCsv). */
 export const DEPLOYMENT_TABLE_COLUMNS = ['recorder', 'file', 'file_channel', 'microphone'] as const;
 
-export type CsvKind = 'deployment' | 'calibration' | 'array' | 'other';
+export type CsvKind = 'deployment' | 'calibration' | 'shared-sounds' | 'array' | 'other';
 
 /**
  * A picked file's path as the table's `file` column gives it: relative to the folder the user picked (the browser's
@@ -25,7 +25,7 @@ export function isCsvFileName(name: string): boolean {
   return /\.csv$/i.test(name);
 }
 
-/** What a CSV is, from its head: a deployment table, a calibration table, an array table or something else. */
+/** What a CSV is, from its head: a deployment table, a calibration table, an array table, a shared-sound table (time without places) or something else. */
 export function csvKindOfHead(text: string): CsvKind {
   const firstLine = text.replace(/^\ufeff/, '').split(/\r?\n/).find((line) => line.trim() !== '' && !line.trimStart().startsWith('#'));
   if (firstLine === undefined) return 'other';
@@ -38,6 +38,7 @@ export function csvKindOfHead(text: string): CsvKind {
   if (DEPLOYMENT_TABLE_COLUMNS.every((column) => hasColumn(table, column))) return 'deployment';
   if (hasColumn(table, 'time') && hasColumn(table, 'x_m') && hasColumn(table, 'y_m')) return 'calibration';
   if (hasColumn(table, 'channel') && ((hasColumn(table, 'x_m') && hasColumn(table, 'y_m')) || (hasColumn(table, 'lat') && hasColumn(table, 'lon')))) return 'array';
+  if (hasColumn(table, 'time') && !hasColumn(table, 'x_m') && !hasColumn(table, 'y_m') && !hasColumn(table, 'lat')) return 'shared-sounds';
   return 'other';
 }
 

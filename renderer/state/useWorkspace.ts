@@ -11,14 +11,14 @@ import { recoveryTimeText } from '../workspace/recoveryTime';
 import { duplicateLocateQuestion, loggedFixesInSpan } from '../workspace/duplicateLocate';
 import { exportFileName } from '../workspace/exportFileName';
 import { surveyLogRunNotes } from '../../core/export';
-import { pathBaseName, type DeploymentClockReport } from '../../core/deployment';
+import { pathBaseName, type ClockFitKind, type DeploymentClockReport } from '../../core/deployment';
 import { conditionsQuestion, deploymentTableQuestion, discardWorkQuestion, reopenRecordingHint, staleFixesQuestion, type Question } from './questions';
 import type { Host, OpenedRecording } from '../host';
 import { pickFiles } from '../host/pickFiles';
 import { PipelineBridge, WorkerCallError, type WorkerCall } from '../worker/bridge';
 import type { SyncClocksParams, WorkerOpenResult } from '../worker/protocol';
 import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath } from '../deployment/pickedFiles';
-import { clocksInUseText, clocksPhrase, type ClocksInUse } from '../deployment/clockFitRows';
+import { clockFitKindWords, clocksInUseText, clocksPhrase, type ClocksInUse } from '../deployment/clockFitRows';
 import { deploymentLogNotes, deploymentOpenedText, deploymentErrorHint } from '../deployment/deploymentNotes';
 import { fixLogContextOf, geometryOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
@@ -57,8 +57,10 @@ export interface WorkspaceController {
   openDeployment(how: DeploymentPick, nameTime: string | undefined): Promise<void>;
   /** Calibration tables found beside the open deployment's table. */
   deploymentCalibrationTables: PickedTable[];
-  /** Fits the open deployment's clocks from a calibration table ('pick': the user chooses the file now). */
-  fitClocks(calibration: PickedTable | 'pick', options: { referenceRecorder?: string; searchSeconds?: number }): Promise<void>;
+  /** Shared-sound tables found beside the open deployment's table. */
+  deploymentSharedSoundTables: PickedTable[];
+  /** Fits the open deployment's clocks from a calibration or (options.kind) shared-sound table ('pick': the user chooses the file now). */
+  fitClocks(table: PickedTable | 'pick', options: { kind?: ClockFitKind; referenceRecorder?: string; searchSeconds?: number; offsetSigmaSeconds?: number }): Promise<void>;
   /** Back to each recorder's own file stamps. */
   clearClocks(): Promise<void>;
   openRecordingFile(file: File): Promise<void>;
@@ -152,6 +154,7 @@ export function useWorkspace(host: Host): WorkspaceController {
   }, [state.document, state.recording, state.clocks, state.events, runNotes]);
   // Calibration tables picked with the open deployment (offered by the Clock fit panel).
   const [deploymentCalibrationTables, setDeploymentCalibrationTables] = useState<PickedTable[]>([]);
+  const [deploymentSharedSoundTables, setDeploymentSharedSoundTables] = useState<PickedTable[]>([]);
 
   /** The overview (envelope) of the open recording: a sampled one first for a long recording, then the exact one. */
   const buildOverview = useCallback(async (name: string, info: WavInfo): Promise<void> => {
@@ -471,6 +474,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       const info = await loadRecording(opened);
       if (info === undefined) return;
       setDeploymentCalibrationTables(csvs.filter((csv) => csv.kind === 'calibration').map((csv) => ({ name: csv.path, text: csv.text })));
+      setDeploymentSharedSoundTables(csvs.filter((csv) => csv.kind === 'shared-sounds').map((csv) => ({ name: csv.path, text: csv.text })));
       // An empty array (a new project, or after the demo) takes the array table picked with the deployment.
       const arrays = csvs.filter((csv) => csv.kind === 'array');
       if (stateRef.current.document.array.microphones.length === 0 && arrays.length === 1) importArrayText(arrays[0]!.path, arrays[0]!.text);
@@ -481,12 +485,13 @@ export function useWorkspace(host: Host): WorkspaceController {
     }
   }, [ask, importArrayText, loadRecording, notify]);
 
-  const fitClocks = useCallback(async (source: PickedTable | 'pick', options: { referenceRecorder?: string; searchSeconds?: number }) => {
-    let calibration = source;
-    if (calibration === 'pick') {
-      const files = await pickFiles({ accept: '.csv,.txt,text/csv', testId: 'calibration-file-input' });
+  const fitClocks = useCallback(async (source: PickedTable | 'pick', options: { kind?: ClockFitKind; referenceRecorder?: string; searchSeconds?: number; offsetSigmaSeconds?: number }) => {
+    const kind = options.kind ?? 'calibration';
+    let table = source;
+    if (table === 'pick') {
+      const files = await pickFiles({ accept: '.csv,.txt,text/csv', testId: kind === 'calibration' ? 'calibration-file-input' : 'shared-sounds-file-input' });
       if (files === null) return;
-      calibration = { name: files[0]!.name, text: await files[0]!.text() };
+      table = { name: files[0]!.name, text: await files[0]!.text() };
     }
     const current = stateRef.current;
     const unchanged = `The clocks in use are unchanged (${clocksInUseText(current.clocks)}).`;
@@ -496,12 +501,15 @@ export function useWorkspace(host: Host): WorkspaceController {
     if (current.document.array.microphones.length === 0) { notify('warning', `The clock fit needs the array (the microphones' positions, labelled as in the deployment table): open the array table first. ${unchanged}`); return; }
     const before = current.clocks;
     const hadEvents = current.events.length > 0;
-    dispatch({ type: 'busy/set', busy: { label: `Fitting the clocks from ${calibration.name}`, progress: 0.5 } });
-    const params: SyncClocksParams = {
-      calibration, geometry: geometryOf(current.document), speedMetersPerSecond: speedNow.speedMetersPerSecond,
+    dispatch({ type: 'busy/set', busy: { label: `Fitting the clocks from ${table.name}`, progress: 0.5 } });
+    const common = {
+      geometry: geometryOf(current.document), speedMetersPerSecond: speedNow.speedMetersPerSecond,
       ...(options.referenceRecorder !== undefined ? { referenceRecorder: options.referenceRecorder } : {}),
       ...(options.searchSeconds !== undefined ? { searchSeconds: options.searchSeconds } : {}),
     };
+    const params: SyncClocksParams = kind === 'calibration'
+      ? { ...common, calibration: table }
+      : { ...common, sharedSounds: table, ...(options.offsetSigmaSeconds !== undefined ? { offsetSigmaSeconds: options.offsetSigmaSeconds } : {}) };
     const band = current.document.settings.bandHz;
     if (band !== 'automatic') params.bandHz = band;
     let report: DeploymentClockReport;
@@ -510,7 +518,7 @@ export function useWorkspace(host: Host): WorkspaceController {
       workRef.current = call as WorkerCall<unknown>;
       report = await call.promise;
     } catch (error) {
-      notify('error', `The clock fit from ${calibration.name} failed: ${message(error)} ${unchanged}`);
+      notify('error', `The clock fit from ${table.name} failed: ${message(error)} ${unchanged}`);
       return;
     } finally {
       workRef.current = undefined;
@@ -519,7 +527,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     const after: ClocksInUse = { kind: 'fitted', report };
     dispatch({ type: 'clocks/set', clocks: after });
     const poor = report.recorders.filter((r) => r.warning !== undefined).map((r) => r.name);
-    notify(poor.length > 0 ? 'warning' : 'info', `Clocks fitted from ${calibration.name}: ${report.recorders.length} recorders, ${report.sounds.length} calibration sounds${poor.length > 0 ? `; poor fit for ${poor.join(', ')} (see Clock fit)` : ''}. The deployment is now read through them.`);
+    notify(poor.length > 0 ? 'warning' : 'info', `Clocks fitted from ${table.name}: ${report.recorders.length} recorders, ${report.sounds.length} ${clockFitKindWords(report.kind).sounds}${poor.length > 0 ? `; poor fit for ${poor.join(', ')} (see Clock fit)` : ''}. The deployment is now read through them.`);
     for (const warning of report.warnings) notify('warning', `Clock fit: ${warning}`);
     await afterClocksChanged(before, after, hadEvents);
   }, [afterClocksChanged, bridge, notify]);
@@ -549,6 +557,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     fixLogContext,
     openDeployment,
     deploymentCalibrationTables,
+    deploymentSharedSoundTables,
     fitClocks,
     clearClocks,
     async openRecording() {

@@ -27,12 +27,15 @@ describe('isCsvFileName()', () => {
 });
 
 describe('csvKindOfHead()', () => {
-  it('tells a deployment table, a calibration table and an array table by their header rows', () => {
+  it('tells a deployment table, a calibration table, a shared-sound table and an array table by their header rows', () => {
     expect(csvKindOfHead(FIXTURE_TABLE)).toBe('deployment');
     expect(csvKindOfHead('\ufeff# made by hand\nrecorder;file;file_channel;microphone;start_time\nA;a.wav;1;N\n')).toBe('deployment');
     expect(csvKindOfHead('label,time,x_m,y_m,z_m\nclap,2025-05-17T05:09:52,1,2,3\n')).toBe('calibration');
     expect(csvKindOfHead('channel,label,x_m,y_m,z_m\n1,N,0,0,0\n')).toBe('array');
     expect(csvKindOfHead('channel,label,lat,lon,alt_m\n1,N,51,14,90\n')).toBe('array');
+    expect(csvKindOfHead('label,time\nclap-1,2025-05-17T05:11:14.0\n')).toBe('shared-sounds'); // core/deployment parseSharedSoundsCsv: time[,label]
+    expect(csvKindOfHead('time\n4\n10\n')).toBe('shared-sounds');
+    expect(csvKindOfHead('event,time_s,x_m,y_m\n1,2.5,3,4\n')).toBe('other'); // a survey log's columns are not a sound table's
     expect(csvKindOfHead('mic_a,mic_b,delay_s\nA,B,0.001\n')).toBe('other');
     expect(csvKindOfHead('')).toBe('other');
   });
