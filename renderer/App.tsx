@@ -61,7 +61,6 @@ export function App() {
   const [bottomTab, setBottomTab] = useState<BottomTab>('recording');
   const [overlayKind, setOverlayKind] = useState<'none' | 'precision' | 'srp'>('none');
   const [layout, changeLayout] = usePanelLayout();
-  const [deploymentDialogOpen, setDeploymentDialogOpen] = useState(false);
   // The recording view's span (marked on the recorders time line) and a span the time line asks it to show.
   const [recordingViewSpan, setRecordingViewSpan] = useState<ViewSpan | undefined>(undefined);
   const [viewRequest, setViewRequest] = useState<(ViewSpan & { serial: number }) | undefined>(undefined);
@@ -121,7 +120,7 @@ export function App() {
         onUndo={workspace.undo}
         onRedo={workspace.redo}
         onOpenRecording={() => void workspace.openRecording()}
-        onOpenDeployment={() => setDeploymentDialogOpen(true)}
+        onOpenDeployment={() => workspace.showDeploymentDialog(true)}
         onOpenArray={() => void workspace.openArray()}
         onOpenProject={() => void workspace.openProject()}
         onSave={() => void workspace.saveProject(false)}
@@ -234,7 +233,7 @@ export function App() {
           />
         </aside>
       </div>
-      <OpenDeploymentDialog open={deploymentDialogOpen} onPick={(how, nameTime) => void workspace.openDeployment(how, nameTime)} onClose={() => setDeploymentDialogOpen(false)} />
+      <OpenDeploymentDialog open={workspace.deploymentDialogOpen} onPick={(how, nameTime) => void workspace.openDeployment(how, nameTime)} onClose={() => workspace.showDeploymentDialog(false)} />
       <ConfirmDialog question={workspace.question} onAnswer={workspace.answerQuestion} />
     </div>
   );

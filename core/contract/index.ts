@@ -81,6 +81,7 @@ export interface DroppedFile {
 export const MENU_COMMANDS = [
   'new-project',
   'open-recording',
+  'open-deployment',
   'open-array',
   'open-project',
   'save-project',

@@ -45,6 +45,7 @@ export function applicationMenuSpec(options: MenuOptions): MenuItemSpec[] {
     submenu: [
       { label: 'New project', accelerator: 'CmdOrCtrl+N', command: { command: 'new-project' } },
       { label: 'Open recording…', accelerator: 'CmdOrCtrl+O', command: { command: 'open-recording' } },
+      { label: 'Open deployment…', accelerator: 'CmdOrCtrl+Shift+D', command: { command: 'open-deployment' } },
       { label: 'Open array…', accelerator: 'CmdOrCtrl+Shift+A', command: { command: 'open-array' } },
       { label: 'Open project…', accelerator: 'CmdOrCtrl+Shift+O', command: { command: 'open-project' } },
       { label: 'Open recent', submenu: recentSubmenu(options.recentProjects) },

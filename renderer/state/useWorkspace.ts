@@ -55,6 +55,9 @@ export interface WorkspaceController {
   openRecording(): Promise<void>;
   /** Picks and opens a deployment; `nameTime` is the file-name time pattern (the command line's --name-time), if any. */
   openDeployment(how: DeploymentPick, nameTime: string | undefined): Promise<void>;
+  /** Whether the Open deployment dialog is shown (the toolbar's button and the menu's Open deployment… show it). */
+  deploymentDialogOpen: boolean;
+  showDeploymentDialog(open: boolean): void;
   /** Calibration tables found beside the open deployment's table. */
   deploymentCalibrationTables: PickedTable[];
   /** Shared-sound tables found beside the open deployment's table. */
@@ -155,6 +158,7 @@ export function useWorkspace(host: Host): WorkspaceController {
   // Calibration tables picked with the open deployment (offered by the Clock fit panel).
   const [deploymentCalibrationTables, setDeploymentCalibrationTables] = useState<PickedTable[]>([]);
   const [deploymentSharedSoundTables, setDeploymentSharedSoundTables] = useState<PickedTable[]>([]);
+  const [deploymentDialogOpen, showDeploymentDialog] = useState(false);
 
   /** The overview (envelope) of the open recording: a sampled one first for a long recording, then the exact one. */
   const buildOverview = useCallback(async (name: string, info: WavInfo): Promise<void> => {
@@ -556,6 +560,8 @@ export function useWorkspace(host: Host): WorkspaceController {
     recoveryOffer: recovery,
     fixLogContext,
     openDeployment,
+    deploymentDialogOpen,
+    showDeploymentDialog,
     deploymentCalibrationTables,
     deploymentSharedSoundTables,
     fitClocks,
@@ -657,6 +663,7 @@ export function useWorkspace(host: Host): WorkspaceController {
   useEffect(() => host.onMenuCommand((command: MenuCommand) => {
     switch (command.command) {
       case 'open-recording': void controller.openRecording(); break;
+      case 'open-deployment': controller.showDeploymentDialog(true); break;
       case 'open-array': void controller.openArray(); break;
       case 'open-project': void controller.openProject(); break;
       case 'save-project': void controller.saveProject(false); break;

@@ -23,11 +23,12 @@ function commands(spec: readonly MenuItemSpec[]): MenuCommand[] {
 
 describe('applicationMenuSpec()', () => {
   // Expected values: the menu this project specifies; Ctrl/Cmd+O, Ctrl/Cmd+S, Ctrl/Cmd+Shift+S and the macOS app menu are desktop conventions, common practice.
-  it('gives File its shortcuts: Open recording Ctrl/Cmd+O and Save Ctrl/Cmd+S', () => {
+  it('gives File its shortcuts: Open recording Ctrl/Cmd+O, Open deployment Ctrl/Cmd+Shift+D and Save Ctrl/Cmd+S', () => {
     const spec = applicationMenuSpec(options('linux'));
     expect(find(spec, 'Open recording…')).toMatchObject({ accelerator: 'CmdOrCtrl+O', command: { command: 'open-recording' } });
     expect(find(spec, 'Save')).toMatchObject({ accelerator: 'CmdOrCtrl+S', command: { command: 'save-project' } });
     expect(find(spec, 'Save as…')).toMatchObject({ accelerator: 'CmdOrCtrl+Shift+S', command: { command: 'save-project-as' } });
+    expect(find(spec, 'Open deployment…')).toMatchObject({ accelerator: 'CmdOrCtrl+Shift+D', command: { command: 'open-deployment' } });
     expect(find(spec, 'Open array…')?.command).toEqual({ command: 'open-array' });
     expect(find(spec, 'Open project…')?.command).toEqual({ command: 'open-project' });
     expect(find(spec, 'Export log…')?.command).toEqual({ command: 'export-log' });
