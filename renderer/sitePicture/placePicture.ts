@@ -1,7 +1,7 @@
 // From a chosen picture and the user's answers (the frame of its coordinates, or two pinned points) to the site picture
 // the project keeps: core/geo places it on the local frame about the array's origin. Pure; metres, degrees, pixels.
 import { WhenceError } from '../../core/errors';
-import { describePictureFrame, geodeticToEnu, placeInLocalFrame, twoPointPlacement, type GeodeticPosition, type PictureFrame, type PixelAffine, type PinnedPoint } from '../../core/geo';
+import { describePictureFrame, geodeticToEnu, placeInLocalFrame, twoPointPlacement, utmZoneOf, type GeodeticPosition, type PictureFrame, type PixelAffine, type PinnedPoint } from '../../core/geo';
 import { type SitePicture } from '../../core/project';
 import { printableText } from '../../core/text';
 import { bytesToBase64 } from './base64';
@@ -27,12 +27,6 @@ export type PinInput =
   | { column: number; row: number; latitudeDegrees: number; longitudeDegrees: number };
 
 export type PlacementChoice = { frame: PictureFrame } | { pins: [PinInput, PinInput] };
-
-/** UTM zone and hemisphere of a WGS84 position (the Norway and Svalbard exceptions are not applied). */
-export function utmZoneOf(origin: GeodeticPosition): PictureFrame {
-  const zone = Math.min(60, Math.max(1, Math.floor((((origin.longitudeDegrees + 180) % 360) + 360) % 360 / 6) + 1));
-  return { kind: 'utm', zone, hemisphere: origin.latitudeDegrees < 0 ? 'south' : 'north' };
-}
 
 /** A first guess at a world file's frame from its numbers: degrees if they look like longitude/latitude, UTM if like UTM metres. */
 export function guessFrame(affine: PixelAffine, origin: GeodeticPosition | undefined): PictureFrame {

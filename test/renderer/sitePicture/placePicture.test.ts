@@ -1,20 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { affinePoint, geodeticToEnu } from '../../../core/geo';
-import { guessFrame, placePicture, utmZoneOf, type PictureCandidate } from '../../../renderer/sitePicture';
+import { guessFrame, placePicture, type PictureCandidate } from '../../../renderer/sitePicture';
 import { expectWhenceError } from '../../helpers/expectWhenceError';
 
 // An invented site origin (only its latitude and longitude matter here).
 const ORIGIN = { latitudeDegrees: 51.92503, longitudeDegrees: 14.08512, heightMeters: 96.4 };
 const CANDIDATE: PictureCandidate = { name: 'sketch.png', mediaType: 'image/png', bytes: new Uint8Array([1, 2, 3]), widthPixels: 300, heightPixels: 200, georeference: undefined };
 
-describe('utmZoneOf() and guessFrame()', () => {
-  it('gives the UTM zone of a longitude (zone z spans 6z − 186 .. 6z − 180 degrees, common practice)', () => {
-    expect(utmZoneOf(ORIGIN)).toEqual({ kind: 'utm', zone: 33, hemisphere: 'north' });
-    expect(utmZoneOf({ ...ORIGIN, longitudeDegrees: -0.5, latitudeDegrees: -33 })).toEqual({ kind: 'utm', zone: 30, hemisphere: 'south' });
-    expect(utmZoneOf({ ...ORIGIN, longitudeDegrees: -180 })).toMatchObject({ zone: 1 });
-    expect(utmZoneOf({ ...ORIGIN, longitudeDegrees: 179.99 })).toMatchObject({ zone: 60 });
-  });
-
+describe('guessFrame()', () => {
   it('guesses degrees, UTM metres or local metres from a world file’s numbers', () => {
     expect(guessFrame({ xPerColumn: 1e-6, yPerColumn: 0, xPerRow: 0, yPerRow: -1e-6, xOfFirstPixel: 14.08, yOfFirstPixel: 51.93 }, ORIGIN)).toEqual({ kind: 'wgs84' });
     expect(guessFrame({ xPerColumn: 0.5, yPerColumn: 0, xPerRow: 0, yPerRow: -0.5, xOfFirstPixel: 437000, yOfFirstPixel: 5753000 }, ORIGIN)).toEqual({ kind: 'utm', zone: 33, hemisphere: 'north' });
