@@ -22,6 +22,7 @@ import { clockFitKindWords, clocksInUseText, clocksPhrase, type ClocksInUse } fr
 import { deploymentLogNotes, deploymentOpenedText, deploymentErrorHint } from '../deployment/deploymentNotes';
 import { fixLogContextOf, geometryOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
 import { resolveEvent } from './resolve';
+import { runMenuCommand } from './menuCommands';
 import { initialWorkspace, NEW_PROJECT_NAME, workspaceReducer, type WorkspaceState } from './workspace';
 import { maxOf } from '../../core/units';
 
@@ -660,20 +661,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     answerQuestion,
   };
 
-  useEffect(() => host.onMenuCommand((command: MenuCommand) => {
-    switch (command.command) {
-      case 'open-recording': void controller.openRecording(); break;
-      case 'open-deployment': controller.showDeploymentDialog(true); break;
-      case 'open-array': void controller.openArray(); break;
-      case 'open-project': void controller.openProject(); break;
-      case 'save-project': void controller.saveProject(false); break;
-      case 'save-project-as': void controller.saveProject(true); break;
-      case 'export-log': void controller.exportLog('csv'); break;
-      case 'open-demo': void controller.openDemo(); break;
-      case 'new-project': void controller.newProject(); break;
-      default: break;
-    }
-  }));
+  useEffect(() => host.onMenuCommand((command: MenuCommand) => { runMenuCommand(command, controller); }));
 
   // Ctrl+Z / Ctrl+Shift+Z (and Ctrl+Y; Cmd on macOS) undo and redo array and log edits, except while typing in a field,
   // where they keep undoing the text.
