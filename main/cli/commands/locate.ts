@@ -6,21 +6,19 @@ import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
 import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
-import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, measureEvent, recordingAccess, runPipeline, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
+import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, recordingAccess, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
-import { useWasmBandEnergy, useWasmFft } from '../../dsp';
 import { writeFileAtomic } from '../../files';
 import { openFileByteSource } from '../../io';
-import { bundledWorkerPath, createLocatePool, holdYoungGenerationSize, type LocatePool } from '../../pipeline';
 import { verdictTally } from '../format';
 import type { CliIo } from '../io';
 import { fixOptionSpec, fixShapeFromOptions, outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
 import { chooseSpeed } from '../mediumOptions';
 import { oneOf, optionalNumber, optionalString, parseCommandArgs, UsageError, type ParsedCommand } from '../parse';
-import { progressLine } from '../progress';
 import { deploymentHelp, deploymentOptionSpec } from '../deploymentOptions';
 import { runLocateDeployment } from './locateDeployment';
 import { readTextFile } from '../readInput';
+import { scanAndLocate } from '../locateScan';
 
 export const locateHelp = `whence locate RECORDING --array ARRAY.csv [options]
 
@@ -155,35 +153,13 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
   const geometry = parseArrayCsv(await readTextFile(arrayPath, 'array table'), arrayPath, origin);
   const geoJsonOrigin = outputKind === 'geojson' ? requireGeoJsonOrigin(geometry.origin) : undefined;
   const source = await openFileByteSource(recordingPath);
-  let pool: LocatePool | undefined;
   try {
     const info = await readWavInfo(source);
     const recording = recordingAccess(source, info);
     const mapping = mapArrayToRecording(geometry, info.channelCount, basename(recordingPath));
     for (const warning of [...info.warnings, ...geometry.warnings, ...mapping.warnings, ...speed.warnings]) io.writeStderr(`warning: ${warning}\n`);
     const context: LocateContext = { geometry, channelIndexOfMicrophone: mapping.channelIndexOfMicrophone, settings };
-    const workerPath = bundledWorkerPath();
-    if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(recordingPath, context, workerCount, workerPath);
-    // This thread's young generation held at its size once the workers' isolates are set up (./youngGeneration).
-    if (pool === undefined) holdYoungGenerationSize();
-    else void pool.online.then(holdYoungGenerationSize);
-    // This thread locates too (with no worker, or the waiting events once the scan is over): its correlations use the
-    // WebAssembly FFT when it loads, as the workers' do (each loads its own), so no event's backend depends on its thread.
-    await useWasmFft();
-    // Its scan filters four channels at a time in WebAssembly SIMD where it validates (the same hop energies bit for bit).
-    useWasmBandEnergy();
-    const progress = progressLine(io);
-    const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
-    if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
-    if (toSeconds !== undefined) options.toSeconds = toSeconds;
-    if (pool !== undefined) {
-      const sharing = pool;
-      options.locator = sharing.locate.bind(sharing);
-      // Once the scan is over this thread locates waiting events too (the workers were the critical path).
-      options.onScanEnd = () => void sharing.locateHereToo((event) => measureEvent(recording, event, context));
-    }
-    const result = await runPipeline(recording, context, options);
-    progress.done();
+    const result = await scanAndLocate(recording, context, { workerRecording: recordingPath, workerCount, fromSeconds, toSeconds }, io);
 
     const logContext: SurveyLogContext = {
       recordingName: basename(recordingPath), recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz, geometry,
@@ -193,7 +169,6 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, result, logContext, surveyLogRunNotes(result));
     return 0;
   } finally {
-    await pool?.close();
     await source.close();
   }
 }

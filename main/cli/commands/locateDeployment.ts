@@ -4,18 +4,16 @@ import { basename } from 'node:path';
 import { deploymentSeconds, microphonesByLabel } from '../../../core/deployment';
 import { surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
-import { runPipeline, type LocateContext } from '../../../core/pipeline';
+import type { LocateContext } from '../../../core/pipeline';
 import { printableText } from '../../../core/text';
 import { WHENCE_VERSION } from '../../../core/version';
-import { useWasmFft } from '../../dsp';
-import { bundledWorkerPath, createLocatePool, holdYoungGenerationSize, type LocatePool } from '../../pipeline';
 import { deploymentHeadNotes, openDeploymentFromOptions } from '../deploymentOptions';
 import { outputFromOptions, parseOrigin, requireGeoJsonOrigin } from '../fixOptions';
 import type { CliIo } from '../io';
 import { chooseSpeed } from '../mediumOptions';
 import { optionalString, UsageError, type ParsedCommand } from '../parse';
-import { progressLine } from '../progress';
 import { readTextFile } from '../readInput';
+import { scanAndLocate } from '../locateScan';
 import { settingsForLog, settingsFromOptions, workerCountFromOptions, writeLocateLog } from './locate';
 
 function spanBound(values: ParsedCommand['values'], name: 'from' | 'to', origin: Parameters<typeof deploymentSeconds>[1]): number | undefined {
@@ -37,7 +35,6 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
   const workerCount = workerCountFromOptions(values);
   const opened = await openDeploymentFromOptions(values, geometry, speed.speedMetersPerSecond, io, optionalString(values, 'band'));
   const { recording } = opened;
-  let pool: LocatePool | undefined;
   try {
     microphonesByLabel(geometry, recording);
     const labels = recording.layout.microphones.map((m) => m.label);
@@ -46,25 +43,12 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     if (unused.length > 0) warnings.push(`The deployment's microphone${unused.length === 1 ? '' : 's'} ${unused.map((l) => `'${l}'`).join(', ')} ${unused.length === 1 ? 'is' : 'are'} not in the array table and ${unused.length === 1 ? 'is' : 'are'} ignored.`);
     for (const warning of warnings) io.writeStderr(`warning: ${warning}\n`);
     const context: LocateContext = { geometry, channelIndexOfMicrophone: geometry.microphones.map((m) => labels.indexOf(m.label)), settings };
-    // Worker threads open the deployment's files themselves, through the same layout and clocks.
-    const workerPath = bundledWorkerPath();
-    const tablePath = optionalString(values, 'deployment')!;
-    if (workerCount > 0 && workerPath !== undefined) pool = createLocatePool(tablePath, context, workerCount, workerPath, { tablePath, layout: recording.layout, clocks: [...recording.clocks] });
-    // This thread's young generation held at its size once the workers' isolates are set up (main/pipeline/youngGeneration):
-    // left to grow, it doubled twice over an hour's scan and solve as results survived its collections (bench/deployment.ts).
-    if (pool === undefined) holdYoungGenerationSize();
-    else void pool.online.then(holdYoungGenerationSize);
-    // Without workers this thread locates: the WebAssembly FFT when it loads, as in the workers and `whence locate`.
-    if (pool === undefined) await useWasmFft();
-    const progress = progressLine(io);
-    const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
-    if (pool !== undefined) options.locator = pool.locate.bind(pool);
     const fromSeconds = spanBound(values, 'from', recording.layout.origin);
     const toSeconds = spanBound(values, 'to', recording.layout.origin);
-    if (fromSeconds !== undefined) options.fromSeconds = fromSeconds;
-    if (toSeconds !== undefined) options.toSeconds = toSeconds;
-    const result = await runPipeline(recording, context, options);
-    progress.done();
+    // Worker threads open the deployment's files themselves, through the same layout and clocks.
+    const tablePath = optionalString(values, 'deployment')!;
+    const deployment = { tablePath, layout: recording.layout, clocks: [...recording.clocks] };
+    const result = await scanAndLocate(recording, context, { workerRecording: tablePath, deployment, workerCount, fromSeconds, toSeconds }, io);
     const logged = settingsForLog(settings, {});
     if (fromSeconds !== undefined) logged.from_s = fromSeconds;
     if (toSeconds !== undefined) logged.to_s = toSeconds;
@@ -76,7 +60,6 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, result, logContext, [...deploymentHeadNotes(opened), ...surveyLogRunNotes(result)]);
     return 0;
   } finally {
-    await pool?.close();
     await recording.close();
   }
 }
