@@ -22,6 +22,7 @@ export interface LocatedEvent {
   windowEndSeconds: number;
   bandHz: FrequencyBand;
   bandSnrDb: number;
+  /** Every pair's chosen peak (measureEvent leaves out the other peaks, otherPeaks, once it has chosen). */
   pairs: PairMeasurement[];
   reduced: ReducedDelays;
   solve: SolveResult;
@@ -290,5 +291,7 @@ async function measureEventNow(recording: RecordingAccess, event: DetectedEvent,
   const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
   warnings.push(...reduced.warnings);
   const timingEvidence = reduced.delays.length > 0 ? timingEvidenceOf(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds)) : undefined;
-  return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs, reduced, warnings, timingEvidence };
+  // The peaks not chosen served the choice only: left out, they would be half of what each event keeps until the end.
+  const chosen = pairs.map(({ otherPeaks: _notChosen, ...pair }) => pair);
+  return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs: chosen, reduced, warnings, timingEvidence };
 }

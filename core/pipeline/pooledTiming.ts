@@ -3,14 +3,20 @@
 import { solveMeasuredEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
 import { estimateTimingNoise, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 
-export interface PooledTiming {
+export interface PooledTiming extends PooledTimingModels {
   located: LocatedEvent[];
+}
+
+/** The recording's timing-noise models (fitTimingModels) and which one solves a given event. */
+export interface PooledTimingModels {
   /** The model of all events together (used for band classes with too few events of their own). */
   model: TimingNoiseModel;
   /** Per band class (see bandClassOf), when the class had enough events for its own fit. */
   classModels: Map<string, TimingNoiseModel>;
   /** One sentence for the run's notes: the model and where it came from. */
   note: string;
+  /** The model an event is solved with: its band class's, else the model of all events. */
+  modelOf(event: Pick<MeasuredEvent, 'bandHz'>): TimingNoiseModel;
 }
 
 /** A band class gets its own model from this many events (three parameters); smaller classes use the model of all events. */
@@ -52,18 +58,16 @@ function bandClassOf(located: Pick<LocatedEvent, 'bandHz'>): string {
 
 /**
  * Fits the recording's timing-noise model to the events' timing evidence, per band class where a class has enough events
- * (else the model of all events), and solves each event with its class's model. The events must have been measured
- * under `context`.
+ * (else the model of all events). Reads only each event's evidence and band.
  */
-export function poolTimingNoise(measured: readonly MeasuredEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
-  const withEvidence = measured.filter((event) => event.timingEvidence !== undefined);
-  const model = estimateTimingNoise(withEvidence.map((event) => event.timingEvidence!));
+export function fitTimingModels(measured: ReadonlyArray<Pick<MeasuredEvent, 'bandHz' | 'timingEvidence'>>): PooledTimingModels {
+  const evidence = measured.flatMap((event) => (event.timingEvidence === undefined ? [] : [{ key: bandClassOf(event), evidence: event.timingEvidence }]));
+  const model = estimateTimingNoise(evidence.map((member) => member.evidence));
   const evidenceByClass = new Map<string, TimingEvidence[]>();
-  for (const event of withEvidence) {
-    const key = bandClassOf(event);
+  for (const { key, evidence: member } of evidence) {
     const members = evidenceByClass.get(key);
-    if (members === undefined) evidenceByClass.set(key, [event.timingEvidence!]);
-    else members.push(event.timingEvidence!);
+    if (members === undefined) evidenceByClass.set(key, [member]);
+    else members.push(member);
   }
   const classModels = new Map<string, TimingNoiseModel>();
   for (const [key, members] of evidenceByClass) {
@@ -71,8 +75,14 @@ export function poolTimingNoise(measured: readonly MeasuredEvent[], context: Loc
     const classModel = estimateTimingNoise(members);
     if (classModel.source === 'pooled') classModels.set(key, classModel);
   }
-  const modelOf = (event: MeasuredEvent) => (classModels.size === 0 ? model : classModels.get(bandClassOf(event)) ?? model);
+  const modelOf = (event: Pick<MeasuredEvent, 'bandHz'>) => (classModels.size === 0 ? model : classModels.get(bandClassOf(event)) ?? model);
   const classes = [...classModels.entries()].map(([key, m]) => `band class ${key}: ${describeTimingModel(m)}`);
   const note = classes.length === 0 ? describeTimingModel(model) : `${classes.join('; ')}${classModels.size < evidenceByClass.size ? `; other sounds: ${describeTimingModel(model)}` : ''}`;
-  return { located: measured.map((event) => solveMeasuredEvent(event, context, sampleRateHz, modelOf(event))), model, classModels, note };
+  return { model, classModels, note, modelOf };
+}
+
+/** fitTimingModels, then each event solved with its class's model. The events must have been measured under `context`. */
+export function poolTimingNoise(measured: readonly MeasuredEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
+  const models = fitTimingModels(measured);
+  return { ...models, located: measured.map((event) => solveMeasuredEvent(event, context, sampleRateHz, models.modelOf(event))) };
 }

@@ -2,9 +2,9 @@
 // located as soon as it is complete, with progress and cancellation. Times in seconds from the recording's start.
 import { createDetector, manualEvent, type DetectedEvent, type DetectorConfig } from '../detect';
 import { WhenceError } from '../errors';
-import { measureEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
+import { measureEvent, solveMeasuredEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
 import { maxArrayDelaySeconds } from './channelMap';
-import { poolTimingNoise } from './pooledTiming';
+import { fitTimingModels } from './pooledTiming';
 import type { RecordingAccess } from './recording';
 import type { TimingNoiseModel } from './timingNoise';
 
@@ -34,6 +34,11 @@ export interface PipelineOptions {
   locator?: (event: DetectedEvent) => Promise<MeasuredEvent>;
   /** Called once every event has been handed to the locator, before waiting for them: this thread is free from then on. */
   onScanEnd?: () => void;
+  /**
+   * Takes each event once solved, in the order found; the run then keeps none (result.located is empty) and lets each
+   * measured event go as it is solved, so a long run's end does not hold every event measured and solved at once.
+   */
+  onLocated?: (located: LocatedEvent) => void;
 }
 
 export interface PipelineResult {
@@ -131,8 +136,17 @@ export async function runPipeline(recording: RecordingAccess, context: LocateCon
   }
   options.onScanEnd?.();
   // The timing noise of the whole recording from every event's residuals, then each event solved once with it.
-  const pooled = poolTimingNoise(await Promise.all(pending), context, sampleRateHz);
-  const located = pooled.located;
+  const measured: Array<MeasuredEvent | undefined> = await Promise.all(pending);
+  pending.length = 0;
+  const pooled = fitTimingModels(measured as MeasuredEvent[]);
+  const located: LocatedEvent[] = [];
+  for (let index = 0; index < measured.length; index++) {
+    const event = measured[index]!;
+    measured[index] = undefined;
+    const solved = solveMeasuredEvent(event, context, sampleRateHz, pooled.modelOf(event));
+    if (options.onLocated !== undefined) options.onLocated(solved);
+    else located.push(solved);
+  }
   progress(endFrame);
   const warnings: string[] = [];
   if (eventsFound === 0 && !cancelled) warnings.push('No events were found in the scanned span. Lower the detection threshold, give a band, or select the sound by hand (--from/--to).');

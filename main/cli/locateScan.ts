@@ -1,6 +1,6 @@
 // The scan-and-locate part of `whence locate` and `whence locate --deployment`: worker pool, this thread's set-up (young
 // generation, WebAssembly FFT and detection filter), progress, and this thread locating from the queue after its scan.
-import { measureEvent, runPipeline, type LocateContext, type PipelineResult, type RecordingAccess } from '../../core/pipeline';
+import { measureEvent, runPipeline, type LocateContext, type LocatedEvent, type PipelineResult, type RecordingAccess } from '../../core/pipeline';
 import { useWasmBandEnergy, useWasmFft } from '../dsp';
 import { bundledWorkerPath, createLocatePool, holdYoungGenerationSize, type LocatePool } from '../pipeline';
 import type { CliIo } from './io';
@@ -13,6 +13,8 @@ export interface LocateScan {
   workerCount: number;
   fromSeconds?: number | undefined;
   toSeconds?: number | undefined;
+  /** Takes each event once solved, in order (runPipeline onLocated): the result then holds none. */
+  onLocated?: (located: LocatedEvent) => void;
 }
 
 /** Scans the recording and locates its events (in worker threads when the bundled worker is there), then closes the workers. */
@@ -34,6 +36,7 @@ export async function scanAndLocate(recording: RecordingAccess, context: LocateC
     const options: Parameters<typeof runPipeline>[2] = { onProgress: (p) => progress.update(p) };
     if (scan.fromSeconds !== undefined) options.fromSeconds = scan.fromSeconds;
     if (scan.toSeconds !== undefined) options.toSeconds = scan.toSeconds;
+    if (scan.onLocated !== undefined) options.onLocated = scan.onLocated;
     if (pool !== undefined) {
       const sharing = pool;
       options.locator = sharing.locate.bind(sharing);

@@ -4,7 +4,7 @@ import { availableParallelism } from 'node:os';
 import { basename } from 'node:path';
 import { readWavInfo } from '../../../core/audio';
 import type { GccWeighting } from '../../../core/dsp';
-import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
+import { fixesToGeoJson, locatedEventRecord, surveyLogCsv, surveyLogJson, surveyLogMetadata, surveyLogRunNotes, type FixRecord, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
 import { DEFAULT_LOCATE_SETTINGS, mapArrayToRecording, recordingAccess, type LocateContext, type LocatedEvent, type LocateSettings } from '../../../core/pipeline';
 import { WHENCE_VERSION } from '../../../core/version';
@@ -107,16 +107,25 @@ export function workerCountFromOptions(values: ParsedCommand['values']): number 
   return workersOption ?? Math.min(4, Math.max(1, availableParallelism() - 1));
 }
 
+/**
+ * The survey log's records of a locate run, each made as its event is solved (runPipeline onLocated), so the run keeps
+ * a record per event and neither its measured nor its solved event.
+ */
+export function locateLogRecords(logContext: SurveyLogContext): { records: FixRecord[]; onLocated: (located: LocatedEvent) => void } {
+  const records: FixRecord[] = [];
+  return { records, onLocated: (located) => { records.push(locatedEventRecord(located, logContext)); } };
+}
+
 /** Writes a locate run's survey log (to --out atomically, or standard output) and its summary lines on standard error. */
 export async function writeLocateLog(
   io: CliIo,
   output: { outPath: string | undefined; outputKind: string; geoJsonOrigin: Parameters<typeof fixesToGeoJson>[1] | undefined },
-  result: { located: readonly LocatedEvent[]; eventsFound: number; warnings: readonly string[] },
+  result: { records: readonly FixRecord[]; eventsFound: number; warnings: readonly string[] },
   logContext: SurveyLogContext,
   notes: string[],
 ): Promise<void> {
   const { outPath, outputKind, geoJsonOrigin } = output;
-  const records = result.located.map((located) => locatedEventRecord(located, logContext));
+  const { records } = result;
   let text: string;
   if (geoJsonOrigin !== undefined) text = fixesToGeoJson(records, geoJsonOrigin, true, { metadata: { ...surveyLogMetadata(logContext), notes }, microphones: logContext.geometry.microphones });
   else if (outputKind === 'json') text = surveyLogJson(records, logContext, notes);
@@ -159,14 +168,14 @@ export async function runLocate(argv: string[], io: CliIo): Promise<number> {
     const mapping = mapArrayToRecording(geometry, info.channelCount, basename(recordingPath));
     for (const warning of [...info.warnings, ...geometry.warnings, ...mapping.warnings, ...speed.warnings]) io.writeStderr(`warning: ${warning}\n`);
     const context: LocateContext = { geometry, channelIndexOfMicrophone: mapping.channelIndexOfMicrophone, settings };
-    const result = await scanAndLocate(recording, context, { workerRecording: recordingPath, workerCount, fromSeconds, toSeconds }, io);
-
     const logContext: SurveyLogContext = {
       recordingName: basename(recordingPath), recordingStartTime: info.startTime, sampleRateHz: info.sampleRateHz, geometry,
       medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
       softwareVersion: WHENCE_VERSION, settings: settingsForLog(settings, values), dimensions: settings.dimensions,
     };
-    await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, result, logContext, surveyLogRunNotes(result));
+    const { records, onLocated } = locateLogRecords(logContext);
+    const result = await scanAndLocate(recording, context, { workerRecording: recordingPath, workerCount, fromSeconds, toSeconds, onLocated }, io);
+    await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, { ...result, records }, logContext, surveyLogRunNotes(result));
     return 0;
   } finally {
     await source.close();

@@ -14,7 +14,7 @@ import { chooseSpeed } from '../mediumOptions';
 import { optionalString, UsageError, type ParsedCommand } from '../parse';
 import { readTextFile } from '../readInput';
 import { scanAndLocate } from '../locateScan';
-import { settingsForLog, settingsFromOptions, workerCountFromOptions, writeLocateLog } from './locate';
+import { locateLogRecords, settingsForLog, settingsFromOptions, workerCountFromOptions, writeLocateLog } from './locate';
 
 function spanBound(values: ParsedCommand['values'], name: 'from' | 'to', origin: Parameters<typeof deploymentSeconds>[1]): number | undefined {
   const text = optionalString(values, name);
@@ -48,16 +48,17 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
     // Worker threads open the deployment's files themselves, through the same layout and clocks.
     const tablePath = optionalString(values, 'deployment')!;
     const deployment = { tablePath, layout: recording.layout, clocks: [...recording.clocks] };
-    const result = await scanAndLocate(recording, context, { workerRecording: tablePath, deployment, workerCount, fromSeconds, toSeconds }, io);
     const logged = settingsForLog(settings, {});
     if (fromSeconds !== undefined) logged.from_s = fromSeconds;
     if (toSeconds !== undefined) logged.to_s = toSeconds;
     const logContext: SurveyLogContext = {
-      recordingName: basename(optionalString(values, 'deployment')!), recordingStartTime: recording.info.startTime, sampleRateHz: recording.info.sampleRateHz, geometry,
+      recordingName: basename(tablePath), recordingStartTime: recording.info.startTime, sampleRateHz: recording.info.sampleRateHz, geometry,
       medium: { description: speed.description, speedMetersPerSecond: speed.speedMetersPerSecond, speedSigmaMetersPerSecond: speed.speedSigmaMetersPerSecond, reference: speed.reference },
       softwareVersion: WHENCE_VERSION, settings: logged, dimensions: settings.dimensions,
     };
-    await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, result, logContext, [...deploymentHeadNotes(opened), ...surveyLogRunNotes(result)]);
+    const { records, onLocated } = locateLogRecords(logContext);
+    const result = await scanAndLocate(recording, context, { workerRecording: tablePath, deployment, workerCount, fromSeconds, toSeconds, onLocated }, io);
+    await writeLocateLog(io, { outPath, outputKind, geoJsonOrigin }, { ...result, records }, logContext, [...deploymentHeadNotes(opened), ...surveyLogRunNotes(result)]);
     return 0;
   } finally {
     await recording.close();

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { encodeWavFile, memoryByteSource, readWavInfo } from '../../../core/audio';
 import type { DetectedEvent } from '../../../core/detect';
-import { locateEvent, mapArrayToRecording, measureEvent, recordingAccess, runPipeline, type LocateContext, type MeasuredEvent } from '../../../core/pipeline';
+import { locateEvent, mapArrayToRecording, measureEvent, recordingAccess, runPipeline, type LocateContext, type LocatedEvent, type MeasuredEvent } from '../../../core/pipeline';
 import { prepareScene, renderScene, sceneFrameCount, type SceneSpec } from '../../../core/simulate';
 import { geometryOf } from '../../helpers/sceneRecording';
 
@@ -63,5 +63,28 @@ describe('runPipeline()', () => {
       expect(located.timing!.evidence).toEqual(alone.timing!.evidence);
       expect(located.emissionTimeSeconds).toBeCloseTo(alone.emissionTimeSeconds!, 12);
     }
+  });
+
+  it('hands each solved event to onLocated in the order found, the same as it returns without onLocated, and keeps none', async () => {
+    const { recording, context } = await sceneRecording();
+    const kept = await runPipeline(recording, context);
+    const handed: LocatedEvent[] = [];
+    const streamed = await runPipeline(recording, context, { onLocated: (located) => handed.push(located) });
+    // The same events, measured and solved the same way (computed: this pipeline run twice), so equal field for field.
+    expect(streamed.located).toEqual([]);
+    expect(handed.map((located) => located.event.index)).toEqual([0, 1]);
+    expect(handed).toEqual(kept.located);
+    expect(streamed.timingNote).toBe(kept.timingNote);
+  });
+});
+
+describe('measureEvent()', () => {
+  it('keeps each pair\'s chosen peak only (the other candidates served the choice)', async () => {
+    const { recording, context } = await sceneRecording();
+    const result = await runPipeline(recording, context, { manualWindows: [{ startSeconds: 1.9, endSeconds: 2.5 }] });
+    const measured = await measureEvent(recording, result.located[0]!.event, context);
+    // Six pairs of four microphones (common practice: n(n-1)/2), none with otherPeaks.
+    expect(measured.pairs).toHaveLength(6);
+    expect(measured.pairs.filter((pair) => pair.otherPeaks !== undefined)).toEqual([]);
   });
 });
