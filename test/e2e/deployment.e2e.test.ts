@@ -257,6 +257,8 @@ describe.runIf(run)('a deployment of separate recorders in the app (issue 9, ite
       expect(Math.abs(north - truth.northMeters), `${sound.label} north`).toBeLessThanOrEqual(3 * northSigma + 0.005);
     }
     await shots(page, 'deployment-shared-02-fit');
+    await byTestId(page, 'clock-fit-sounds').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SCREENSHOT_FOLDER}/deployment-shared-03-places-1440x900.png` }); // the shared sounds' places and residuals
     await byTestId(page, 'tab-recording').click();
     expect(await byTestId(page, 'timeline-clocks').textContent()).toBe('Clocks: fitted from shared-sounds.csv');
     // the events were located again through the shared-sound clocks
@@ -299,7 +301,7 @@ describe.runIf(run)('a deployment of separate recorders in the app (issue 9, ite
     };
     await pick();
     expect((await page.locator('[data-testid^="confirm-table:"]').allTextContents()).sort()).toEqual(['deployment.csv', 'rec-1-and-2.csv']);
-    await shots(page, 'deployment-shared-03-which-table');
+    await shots(page, 'deployment-shared-04-which-table');
     await byTestId(page, 'confirm-cancel').click();
     expect(await page.locator('[data-testid^="recorder-lane-"]').count()).toBe(6); // nothing opened
     await pick();
