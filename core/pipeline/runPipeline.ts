@@ -4,6 +4,7 @@ import { createDetector, manualEvent, type DetectedEvent, type DetectorConfig } 
 import { WhenceError } from '../errors';
 import { measureEvent, solveMeasuredEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
 import { maxArrayDelaySeconds } from './channelMap';
+import { holdMeasuredEvent, releaseHeldEvent, type HeldEvent } from './heldEvent';
 import { fitTimingModels } from './pooledTiming';
 import type { RecordingAccess } from './recording';
 import type { TimingNoiseModel } from './timingNoise';
@@ -106,13 +107,13 @@ export async function runPipeline(recording: RecordingAccess, context: LocateCon
   const locator = options.locator ?? ((event: DetectedEvent) => measureEvent(recording, event, context));
   const { sampleRateHz } = recording.info;
   const { startFrame, endFrame } = scanSpanFrames(recording, options.fromSeconds, options.toSeconds);
-  const pending: Array<Promise<MeasuredEvent>> = [];
+  const pending: Array<Promise<HeldEvent>> = [];
   let eventsFound = 0;
   let eventsLocated = 0;
   const progress = (scannedFrame: number) => options.onProgress?.({ fraction: (scannedFrame - startFrame) / Math.max(1, endFrame - startFrame), eventsFound, eventsLocated, scannedSeconds: scannedFrame / sampleRateHz });
   const dispatch = (event: DetectedEvent) => {
     eventsFound++;
-    pending.push(locator(event).then((located) => { eventsLocated++; return located; }));
+    pending.push(locator(event).then((measured) => { eventsLocated++; return holdMeasuredEvent(measured); }));
   };
 
   let cancelled = false;
@@ -136,13 +137,13 @@ export async function runPipeline(recording: RecordingAccess, context: LocateCon
   }
   options.onScanEnd?.();
   // The timing noise of the whole recording from every event's residuals, then each event solved once with it.
-  const measured: Array<MeasuredEvent | undefined> = await Promise.all(pending);
+  const held: Array<HeldEvent | undefined> = await Promise.all(pending);
   pending.length = 0;
-  const pooled = fitTimingModels(measured as MeasuredEvent[]);
+  const pooled = fitTimingModels(held as HeldEvent[]);
   const located: LocatedEvent[] = [];
-  for (let index = 0; index < measured.length; index++) {
-    const event = measured[index]!;
-    measured[index] = undefined;
+  for (let index = 0; index < held.length; index++) {
+    const event = releaseHeldEvent(held[index]!);
+    held[index] = undefined;
     const solved = solveMeasuredEvent(event, context, sampleRateHz, pooled.modelOf(event));
     if (options.onLocated !== undefined) options.onLocated(solved);
     else located.push(solved);
