@@ -1,8 +1,8 @@
 // The recorders time line: one lane per recorder on the deployment's time axis, each file a bar (name, length and where
 // its start came from in its tooltip), gaps as marked breaks with their length, the recording view's span; a click moves the view.
-import { useLayoutEffect, useMemo, useRef, useState, type MouseEvent } from 'react';
+import { useMemo, useRef, useState, type MouseEvent } from 'react';
 import type { DeploymentLayout } from '../../core/deployment';
-import { timeScale, timeTicks, type ViewSpan } from '../recording';
+import { timeScale, timeTicks, useWidthCss, type ViewSpan } from '../recording';
 import { clocksInUseText, type ClocksInUse } from './clockFitRows';
 import { recorderLanes, viewCentredOn } from './recorderLanes';
 import './deployment.css';
@@ -27,17 +27,8 @@ export function laneHeightPixels(recorderCount: number): number {
 
 export function RecordersTimeline({ layout, clocks, view, startTimeIso, onMoveView }: RecordersTimelineProps) {
   const containerRef = useRef<HTMLDivElement>(null);
-  const [widthCss, setWidthCss] = useState(1200);
+  const widthCss = useWidthCss(containerRef);
   const [shown, setShown] = useState(true);
-  useLayoutEffect(() => {
-    const element = containerRef.current;
-    if (!element) return;
-    const measure = () => setWidthCss(Math.max(320, Math.floor(element.clientWidth)));
-    measure();
-    const observer = new ResizeObserver(measure);
-    observer.observe(element);
-    return () => observer.disconnect();
-  }, []);
   const plotWidth = Math.max(1, widthCss - GUTTER_PIXELS - 8);
   const duration = Math.max(layout.durationSeconds, 1e-3);
   const scale = useMemo(() => timeScale({ startSeconds: 0, endSeconds: duration }, plotWidth), [duration, plotWidth]);

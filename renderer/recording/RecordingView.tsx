@@ -1,6 +1,6 @@
 // The recording view: every channel's envelope in stacked lanes with zoom and scroll, a spectrogram of the visible span,
 // the detected events listed and marked, and a span selected by hand to locate. Seconds from the recording's start.
-import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type PointerEvent as ReactPointerEvent } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type PointerEvent as ReactPointerEvent } from 'react';
 import type { EnvelopePyramid, Spectrogram } from '../../core/overview';
 import { drawLanes, drawNavigator, drawSpectrogram, laneLayout, prepareCanvas } from './drawRecording';
 import { eventAt, eventMarks, eventNumber, eventTone, type RecordingEvent } from './eventMarks';
@@ -8,6 +8,7 @@ import { frequencyTicks } from './frequencyTicks';
 import { defaultLevelRange, spectrogramPixels } from './spectrogramImage';
 import { clampSpan, panSpan, spanAround, timeScale, zoomSpan, type ViewSpan } from './timeScale';
 import { formatOffset, formatSpan, formatWallClock, timeLabelStyle, timeTicks } from './timeTicks';
+import { useWidthCss } from './useWidthCss';
 import './recording.css';
 
 export interface RecordingViewProps {
@@ -52,7 +53,6 @@ export function RecordingView(props: RecordingViewProps) {
   const nyquistHz = info.sampleRateHz / 2;
 
   const [view, setView] = useState<ViewSpan>({ startSeconds: 0, endSeconds: duration });
-  const [widthCss, setWidthCss] = useState(1200);
   const [gain, setGain] = useState(1);
   const [showSpectrogram, setShowSpectrogram] = useState(true);
   const [topHz, setTopHz] = useState(nyquistHz);
@@ -64,6 +64,7 @@ export function RecordingView(props: RecordingViewProps) {
   const [hoverSeconds, setHoverSeconds] = useState<number | undefined>();
 
   const containerRef = useRef<HTMLDivElement>(null);
+  const widthCss = useWidthCss(containerRef);
   const lanesRef = useRef<HTMLCanvasElement>(null);
   const navigatorRef = useRef<HTMLCanvasElement>(null);
   const spectrogramRef = useRef<HTMLCanvasElement>(null);
@@ -89,15 +90,6 @@ export function RecordingView(props: RecordingViewProps) {
     // only a new request moves the view, not a new duration
   }, [requestSerial]);
 
-  useLayoutEffect(() => {
-    const element = containerRef.current;
-    if (!element) return;
-    const measure = () => setWidthCss(Math.max(320, Math.floor(element.clientWidth)));
-    measure();
-    const observer = new ResizeObserver(measure);
-    observer.observe(element);
-    return () => observer.disconnect();
-  }, []);
 
   const plotWidth = Math.max(1, widthCss - gutterPixels - 8);
   const scale = useMemo(() => timeScale(view, plotWidth), [view, plotWidth]);

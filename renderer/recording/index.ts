@@ -1,5 +1,6 @@
 // Public face of renderer/recording: the recording view and the pure pieces it is drawn from.
 export { RecordingView, type RecordingViewProps } from './RecordingView';
+export { useWidthCss } from './useWidthCss';
 export type { RecordingEvent, EventMark } from './eventMarks';
 export { eventMarks, eventAt, eventTone } from './eventMarks';
 export { timeScale, zoomSpan, panSpan, clampSpan, spanAround, type TimeScale, type ViewSpan } from './timeScale';
