@@ -14,7 +14,7 @@ import { readCsv } from '../../core/csv';
 import { clockNominalSeconds, clockRelativeTo } from '../../core/deployment';
 import { median } from '../../core/locate';
 import { runCliInProcess } from '../helpers/cli';
-import { chromiumAvailable, openPage, SCREENSHOT_FOLDER, startWebApp, type WebApp } from '../helpers/webApp';
+import { chromiumAvailable, openPage, SCREENSHOT_FOLDER, shots, startWebApp, type WebApp } from '../helpers/webApp';
 
 const mustRun = process.env.CI === 'true';
 const run = chromiumAvailable() || mustRun;
@@ -26,15 +26,6 @@ const byTestId = (page: Page, id: string) => page.locator(`[data-testid="${id}"]
 
 async function idle(page: Page, timeout = 120_000): Promise<void> {
   await page.locator('[data-testid="busy"]').waitFor({ state: 'hidden', timeout });
-}
-
-async function shots(page: Page, name: string): Promise<void> {
-  await page.screenshot({ path: `${SCREENSHOT_FOLDER}/${name}-1440x900.png` });
-  await page.setViewportSize({ width: 1280, height: 720 });
-  await page.waitForTimeout(300);
-  await page.screenshot({ path: `${SCREENSHOT_FOLDER}/${name}-1280x720.png` });
-  await page.setViewportSize({ width: 1440, height: 900 });
-  await page.waitForTimeout(300);
 }
 
 async function setField(page: Page, id: string, value: string): Promise<void> {

@@ -12,7 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readCsv, type CsvTable } from '../../core/csv';
 import { writeSceneWav } from '../../main/simulate';
 import { SQUARE_SITE_ARRAY_WGS84_CSV, squareSiteScene } from '../helpers/squareSiteScene';
-import { chromiumAvailable, openPage, SCREENSHOT_FOLDER, startWebApp, type WebApp } from '../helpers/webApp';
+import { chromiumAvailable, openPage, shots, startWebApp, type WebApp } from '../helpers/webApp';
 
 const mustRun = process.env.CI === 'true';
 const run = chromiumAvailable() || mustRun;
@@ -53,15 +53,6 @@ function rowsOf(table: CsvTable): Array<Record<string, string>> {
 
 async function showSettings(page: Page): Promise<void> {
   await page.locator('[data-testid="tab-settings"], [data-testid="tab-conditions"]').first().click();
-}
-
-async function shots(page: Page, name: string): Promise<void> {
-  await page.screenshot({ path: `${SCREENSHOT_FOLDER}/${name}-1440x900.png` });
-  await page.setViewportSize({ width: 1280, height: 720 });
-  await page.waitForTimeout(300);
-  await page.screenshot({ path: `${SCREENSHOT_FOLDER}/${name}-1280x720.png` });
-  await page.setViewportSize({ width: 1440, height: 900 });
-  await page.waitForTimeout(300);
 }
 
 describe.runIf(run)('the fix log across recordings, and work kept', () => {

@@ -40,3 +40,13 @@ export async function openPage(app: WebApp): Promise<Page> {
   await page.goto(app.url);
   return page;
 }
+
+/** Screenshots of the page at 1440×900 and at 1280×720, named `<name>-<width>x<height>.png`, back at 1440×900 after. */
+export async function shots(page: Page, name: string): Promise<void> {
+  await page.screenshot({ path: `${SCREENSHOT_FOLDER}/${name}-1440x900.png` });
+  await page.setViewportSize({ width: 1280, height: 720 });
+  await page.waitForTimeout(300);
+  await page.screenshot({ path: `${SCREENSHOT_FOLDER}/${name}-1280x720.png` });
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await page.waitForTimeout(300);
+}
