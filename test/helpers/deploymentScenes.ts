@@ -1,5 +1,6 @@
 // Invented deployment scenes for tests and benchmarks (core/simulate): six microphones each on its own recorder with its
 // own clock offset and drift, one file split per recorder, optionally a gap, calibration clicks at the start and the end.
+import { clockRelativeTo } from '../../core/deployment';
 import type { DeploymentSceneSpec, SceneSource, SceneSpec, SimulatedRecorder } from '../../core/simulate';
 
 export const DEPLOYMENT_MICROPHONES: Array<[number, number, number]> = [[0, 0, 1.2], [45, 0, 1.6], [50, 42, 2.1], [4, 46, 1.0], [24, 22, 2.6], [-12, 22, 1.8]];
@@ -12,6 +13,17 @@ export const DEPLOYMENT_CLOCKS = [
   { offsetSeconds: -1.6, drift: 5e-6, clockStartSeconds: 0.75 },
   { offsetSeconds: 0.45, drift: -49.5e-6, clockStartSeconds: 1.25 },
 ];
+
+/**
+ * Each fitted recorder's distance from the clock truth, in order: offset in seconds and drift in ppm, against the
+ * simulated clock seen from the reference recorder's (R1's) clock, which is what a fit with R1 fixed recovers.
+ */
+export function clockFitErrors(recorders: ReadonlyArray<{ offsetSeconds: number; driftPpm: number }>): Array<{ offsetErrorSeconds: number; driftErrorPpm: number }> {
+  return recorders.map((recorder, r) => {
+    const truth = clockRelativeTo(DEPLOYMENT_CLOCKS[r]!, DEPLOYMENT_CLOCKS[0]!);
+    return { offsetErrorSeconds: Math.abs(recorder.offsetSeconds - truth.offsetSeconds), driftErrorPpm: Math.abs(recorder.driftPpm - truth.drift * 1e6) };
+  });
+}
 
 export interface DeploymentSceneOptions {
   /** Nominal length of each recorder's recording, seconds. */
