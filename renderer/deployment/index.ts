@@ -5,5 +5,5 @@ export { RecordersTimeline, type RecordersTimelineProps } from './RecordersTimel
 export { ClockFitPanel, type ClockFitOptions, type ClockFitPanelProps } from './ClockFitPanel';
 export { clockFitKindWords, clocksInUseText, clocksPhrase, offsetPriorFromMs, recorderClockRows, residualMicrophones, soundResidualRows, RESIDUAL_MARK_SIGMAS, type ClocksInUse, type RecorderClockRow, type SoundResidualRow } from './clockFitRows';
 export { formatGapLength, MIN_GAP_PIXELS, recorderLanes, viewCentredOn, type LaneBar, type LaneClock, type LaneGap, type RecorderLane, type RecorderLanes } from './recorderLanes';
-export { chooseDeploymentTable, csvKindOfHead, DEPLOYMENT_TABLE_COLUMNS, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath, type CsvKind, type PickedCsv, type TableChoice } from './pickedFiles';
+export { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath, type CsvKind, type PickedCsv, type TableChoice } from './pickedFiles';
 export { deploymentErrorHint, deploymentLogNotes, deploymentOpenedText } from './deploymentNotes';

@@ -4,7 +4,7 @@ import { hasColumn, readCsv } from '../../core/csv';
 import { matchPickedFiles, parseDeploymentCsv } from '../../core/deployment';
 
 /** The columns every deployment table has (core/deployment parseDeploymentCsv). */
-export const DEPLOYMENT_TABLE_COLUMNS = ['recorder', 'file', 'file_channel', 'microphone'] as const;
+const DEPLOYMENT_TABLE_COLUMNS = ['recorder', 'file', 'file_channel', 'microphone'] as const;
 
 export type CsvKind = 'deployment' | 'calibration' | 'shared-sounds' | 'array' | 'other';
 
