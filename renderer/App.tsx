@@ -183,7 +183,7 @@ export function App() {
             <nav className="tabs" role="tablist">
               <PanelBar title="Recording" side="bottom" open={layout.bottomOpen} onToggle={() => changeLayout((l) => ({ ...l, bottomOpen: !l.bottomOpen }))} testId="collapse-bottom" />
               <button type="button" role="tab" aria-selected={shownBottomTab === 'recording'} onClick={() => setBottomTab('recording')} data-testid="tab-recording">Recording</button>
-              {deployment !== undefined && <button type="button" role="tab" aria-selected={shownBottomTab === 'clocks'} onClick={() => setBottomTab('clocks')} data-testid="tab-clocks" title="The recorders' clocks: fit them from calibration sounds">Clock fit{state.clocks.kind === 'files' ? ' (not fitted)' : ''}</button>}
+              {deployment !== undefined && <button type="button" role="tab" aria-selected={shownBottomTab === 'clocks'} onClick={() => setBottomTab('clocks')} data-testid="tab-clocks" title="The recorders' clocks: fit them from calibration sounds or shared sounds">Clock fit{state.clocks.kind === 'files' ? ' (not fitted)' : ''}</button>}
               <button type="button" role="tab" aria-selected={shownBottomTab === 'correlations'} onClick={() => setBottomTab('correlations')} data-testid="tab-correlations">Correlations</button>
               <button type="button" role="tab" aria-selected={shownBottomTab === 'safety'} onClick={() => setBottomTab('safety')} data-testid="tab-safety">Safety &amp; about</button>
             </nav>

@@ -3,7 +3,7 @@
 import { formatLocalInstant, type DeploymentLayout } from '../deployment';
 
 /** Said when each recorder is read through its own file stamps (no clock fit). */
-export const CLOCKS_NOT_FITTED_NOTE = 'clocks: not fitted (no calibration table): each recorder\'s file stamps taken as true';
+export const CLOCKS_NOT_FITTED_NOTE = 'clocks: not fitted (no calibration or shared-sound table): each recorder\'s file stamps taken as true';
 
 /** `clockHeadLines`: the fit's head lines (core/deployment clockFitHeadLines), or undefined when the clocks are not fitted. */
 export function deploymentHeadNotes(layout: Pick<DeploymentLayout, 'tableName' | 'origin' | 'recorders' | 'microphones'>, clockHeadLines?: readonly string[]): string[] {

@@ -1,4 +1,4 @@
-// `whence locate --deployment D.csv --array A.csv [--calibration C.csv]`: locates over a recorder deployment read as one
+// `whence locate --deployment D.csv --array A.csv [--calibration C.csv | --shared-sounds S.csv]`: locates over a recorder deployment read as one
 // recording (core/deployment), optionally over a span (--from/--to: local ISO times or seconds from its earliest start).
 import { basename } from 'node:path';
 import { deploymentSeconds, microphonesByLabel } from '../../../core/deployment';
