@@ -344,7 +344,7 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
     }),
     observations: fittedObservations,
     residualsSeconds, chiSquare, degreesOfFreedom, sigmaScale,
-    timeBase: `recorder '${recorders[referenceIndex]!.name}' is the reference (offset 0, drift 0): times are on its clock; shared sounds' positions and emission times fitted with the clocks`,
+    timeBase: `recorder '${recorders[referenceIndex]!.name}' is the reference (offset 0, drift 0): times are on its clock; shared sounds' places and emission times fitted with the clocks`,
     warnings,
   };
 }
