@@ -31,11 +31,14 @@ export function checkBand(bandHz: FrequencyBand, sampleRateHz: number): void {
   }
 }
 
-/** Weights of `bandHz` on an `fftSizePoints` grid; edge bins at exactly lowHz or highHz get 0. */
-export function bandWeights(bandHz: FrequencyBand, sampleRateHz: number, fftSizePoints: number): BandWeights {
+/**
+ * Weights of `bandHz` on an `fftSizePoints` grid; edge bins at exactly lowHz or highHz get 0. Written into `into` when it
+ * has exactly fftSizePoints/2 + 1 bins (cleared first), so a caller changing bands often allocates nothing.
+ */
+export function bandWeights(bandHz: FrequencyBand, sampleRateHz: number, fftSizePoints: number, into?: Float64Array): BandWeights {
   checkBand(bandHz, sampleRateHz);
   const half = fftSizePoints / 2;
-  const weights = new Float64Array(half + 1);
+  const weights = into !== undefined && into.length === half + 1 ? into.fill(0) : new Float64Array(half + 1);
   const binHz = sampleRateHz / fftSizePoints;
   const taperHz = bandEdgeTaperFraction * (bandHz.highHz - bandHz.lowHz);
   let firstBin = half + 1;

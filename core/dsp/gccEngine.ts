@@ -151,6 +151,8 @@ class Engine implements GccEngine {
   private readonly magnitudeExponent: number;
   private readonly plan: FftPlan;
   private band: BandWeights;
+  /** The weights of the band before the current one, rewritten by the next setBand (a band per event allocates nothing). */
+  private spareBandWeights: Float64Array | undefined;
   private readonly channels: (ChannelState | undefined)[] = [];
   private readonly input: Float64Array;
   private readonly weighted: Float64Array;
@@ -209,8 +211,8 @@ class Engine implements GccEngine {
     }
   }
 
-  private bandFor(bandHz: FrequencyBand): BandWeights {
-    const band = bandWeights(bandHz, this.sampleRateHz, this.fftSizePoints);
+  private bandFor(bandHz: FrequencyBand, into?: Float64Array): BandWeights {
+    const band = bandWeights(bandHz, this.sampleRateHz, this.fftSizePoints, into);
     if (band.firstBin > band.lastBin) {
       throw new WhenceError(
         'dsp-band-empty',
@@ -222,7 +224,10 @@ class Engine implements GccEngine {
   }
 
   setBand(bandHz: FrequencyBand): void {
-    this.band = this.bandFor(bandHz);
+    // Written into the spare weights (the current band stays whole if this one is empty), then the two swap.
+    const band = this.bandFor(bandHz, this.spareBandWeights);
+    this.spareBandWeights = this.band.weights;
+    this.band = band;
     // The weighted spectrum is written within the band only: clear what an earlier, wider band left outside it.
     this.weighted.fill(0);
   }

@@ -27,6 +27,18 @@ describe('bandWeights()', () => {
     expect(weights[32]).toBe(0); // bin N/2 is Nyquist (f = k fs / N), common practice; zero weight there is this project's choice
   });
 
+  it('writes into a given array of N/2 + 1 bins the same weights as a new one, clearing what was there', () => {
+    const into = bandWeights({ lowHz: 100, highHz: 3900 }, 8000, 1024).weights;
+    const fresh = bandWeights({ lowHz: 1000, highHz: 3000 }, 8000, 1024);
+    const reused = bandWeights({ lowHz: 1000, highHz: 3000 }, 8000, 1024, into);
+    expect(reused.weights).toBe(into);
+    expect(Array.from(reused.weights)).toEqual(Array.from(fresh.weights));
+    expect([reused.firstBin, reused.lastBin]).toEqual([fresh.firstBin, fresh.lastBin]);
+    // an array of another length is left alone and a new one made
+    const other = new Float64Array(100);
+    expect(bandWeights({ lowHz: 1000, highHz: 3000 }, 8000, 1024, other).weights).not.toBe(other);
+  });
+
   it('rejects a band outside 0..fs/2 or inverted', () => {
     expect(() => bandWeights({ lowHz: 3000, highHz: 1000 }, 8000, 64)).toThrow(WhenceError);
     expect(() => bandWeights({ lowHz: 100, highHz: 5000 }, 8000, 64)).toThrow(WhenceError);

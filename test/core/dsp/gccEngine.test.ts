@@ -196,6 +196,31 @@ describe('GccEngine.setBand()', () => {
     expect(reused.pairDelay(0, 1).delaySeconds).toBe(fresh.pairDelay(0, 1).delaySeconds);
     expect(() => reused.setBand({ lowHz: 30_000, highHz: 30_001 })).toThrow(/30000-30001 Hz/);
   });
+
+  it('matches a new engine bit for bit as bands narrow and widen in turn, and keeps its band when refusing an empty one', () => {
+    // setBand rewrites the weights of the band before last (no allocation per band): nothing of an earlier band may remain
+    const pair = delayedNoisePair({ lengthFrames: 4096, delaySamples: -7.6, seed: 78, snrDb: 10 });
+    const options = { sampleRateHz: 48_000, weighting: 'phat' as const, maxLagSeconds: 0.002 };
+    const bands = [{ lowHz: 1000, highHz: 6000 }, { lowHz: 200, highHz: 20_000 }, { lowHz: 2500, highHz: 4000 }, { lowHz: 300, highHz: 12_000 }];
+    const reused = createGccEngine(4096, { ...options, bandHz: bands[1]! });
+    reused.setChannel(0, pair.a);
+    reused.setChannel(1, pair.b);
+    const delayWith = (engine: ReturnType<typeof createGccEngine>) => {
+      const { delaySeconds, sigmaSeconds } = engine.pairDelay(0, 1);
+      return [delaySeconds, sigmaSeconds];
+    };
+    for (const band of bands) {
+      reused.setBand(band);
+      const fresh = createGccEngine(4096, { ...options, bandHz: band });
+      fresh.setChannel(0, pair.a);
+      fresh.setChannel(1, pair.b);
+      const expected = delayWith(fresh);
+      expect(delayWith(reused)).toEqual(expected);
+      // a band narrower than one bin of the 8192-point FFT (5.86 Hz) holds no bin: refused, the engine's band unchanged
+      expect(errorCode(() => reused.setBand({ lowHz: 1000.5, highHz: 1001 }))).toBe('dsp-band-empty');
+      expect(delayWith(reused)).toEqual(expected);
+    }
+  });
 });
 
 describe('GccEngine.pairPeaksInto()', () => {
