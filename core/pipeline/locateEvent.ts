@@ -9,6 +9,7 @@ import { chooseDirectPaths, closureAgreement } from './directPath';
 import { measurePairs, type PairMeasurement } from './measurePairs';
 import { gateChannels, LONG_CHANNEL_GATE, onsetGatedSpan, SHORT_CHANNEL_GATE, soundsReverberant, startsSharply, taperWindow } from './onsetGate';
 import type { RecordingAccess } from './recording';
+import { pairsOnWholeArray, presentMicrophones, reducedOnWholeArray } from './presentMicrophones';
 import { reducePairsToReference, type ReducedDelays } from './reducePairs';
 import { applyReductionCheck } from './reductionCheck';
 import { alignPairs } from './windowAlignment';
@@ -250,48 +251,56 @@ async function measureEventNow(recording: RecordingAccess, event: DetectedEvent,
   }
   const window = pick(await recording.readFrames(startFrame, endFrame - startFrame, scratchFor('window', recording.info.channelCount, endFrame - startFrame)), context.channelIndexOfMicrophone);
   taperWindow(window, endFrame - startFrame, fs);
+  const microphones = context.geometry.microphones;
+  const referenceIndex = onset?.microphoneIndex ?? 0;
+  // Channels from several recorders' clocks (a deployment): each pair corrected by the channels' sub-sample shifts at the onset.
+  const alignment = recording.windowAlignment?.(startFrame, endFrame - startFrame, onset?.seconds ?? startFrame / fs);
+  if (alignment !== undefined && alignment.silentChannels.length > 0) warnings.push(`${alignment.silentChannels.length} microphone${alignment.silentChannels.length === 1 ? ' was' : 's were'} not recording during this event (a gap between files); ${alignment.silentChannels.length === 1 ? 'its pairs were' : 'their pairs were'} left out.`);
+  // Only the microphones that were recording take part (a recorder in a gap leaves the others to place the sound).
+  const present = presentMicrophones(alignment, context.channelIndexOfMicrophone);
+  const heard = present.map((index) => microphones[index]!);
+  const heardWindow = present.map((index) => window[index]!);
+  const heardOnsets = present.map((index) => onsets[index]);
+  const heardChannels = present.map((index) => context.channelIndexOfMicrophone[index]!);
+  const heardReference = Math.max(0, present.indexOf(referenceIndex));
   let bandHz: FrequencyBand;
   let bandSnrDb = Number.NaN;
   if (context.settings.bandHz !== undefined) {
     bandHz = context.settings.bandHz;
   } else {
-    const chosen = chooseBand(window, await readNoise(recording, context, event, startFrame, endFrame), fs);
+    const noise = await readNoise(recording, context, event, startFrame, endFrame);
+    const chosen = chooseBand(heardWindow, present.map((index) => noise[index]!), fs);
     bandHz = { lowHz: chosen.lowHz, highHz: chosen.highHz };
     bandSnrDb = chosen.snrDb;
   }
   const marginSeconds = lagMarginSeconds(context.geometry, fs, context.settings.speedMetersPerSecond);
-  const microphones = context.geometry.microphones;
-  const referenceIndex = onset?.microphoneIndex ?? 0;
   // The speed is taken 2 % low so slow air still fits. Echoes can make a later peak the strongest: each pair's peak is
   // chosen by closure with the others (./directPath.ts).
   const pairSettings = { sampleRateHz: fs, speedMetersPerSecond: context.settings.speedMetersPerSecond * 0.98, weighting: context.settings.weighting, bandHz, lagMarginSeconds: marginSeconds, peakSearch: DIRECT_PATH_PEAKS };
-  // Channels from several recorders' clocks (a deployment): each pair corrected by the channels' sub-sample shifts at the onset.
-  const alignment = recording.windowAlignment?.(startFrame, endFrame - startFrame, onset?.seconds ?? startFrame / fs);
-  if (alignment !== undefined && alignment.silentChannels.length > 0) warnings.push(`${alignment.silentChannels.length} microphone${alignment.silentChannels.length === 1 ? ' was' : 's were'} not recording during this event (a gap between files); ${alignment.silentChannels.length === 1 ? 'its pairs were' : 'their pairs were'} left out.`);
-  const measureDirect = (channels: Float32Array[]) => chooseDirectPaths(alignPairs(measurePairs(channels, microphones, pairSettings), alignment, context.channelIndexOfMicrophone), microphones.length, referenceIndex, { toleranceSeconds: marginSeconds });
-  let pairs = measureDirect(window);
+  const measureDirect = (channels: Float32Array[]) => chooseDirectPaths(alignPairs(measurePairs(channels, heard, pairSettings), alignment, heardChannels), heard.length, heardReference, { toleranceSeconds: marginSeconds });
+  let pairs = measureDirect(heardWindow);
   const medianPeak = median(pairs.map((pair) => pair.peakValue));
   if (!event.flags.includes('manual') && medianPeak < REVERBERANT_PEAK_VALUE && soundsReverberant(event.endSeconds, onsets, reachSeconds)) {
     // A ringing event whose channels hardly cohere (reverberation): each microphone gated to its own direct sound
     // (./onsetGate.ts), first with its first echoes (the long gate), then its first milliseconds only (the short gate,
     // inside the long one, for a sound that starts sharply); closure decides between the sets of pairs: the long gate wins
     // a tie with the whole window, the short gate must close strictly better than both.
-    const agreement = (set: PairMeasurement[]) => closureAgreement(set, microphones.length, referenceIndex, marginSeconds);
+    const agreement = (set: PairMeasurement[]) => closureAgreement(set, heard.length, heardReference, marginSeconds);
     let best = agreement(pairs);
     for (const gate of [LONG_CHANNEL_GATE, SHORT_CHANNEL_GATE]) {
-      if (gate === SHORT_CHANNEL_GATE && !startsSharply(window, endFrame - startFrame, startFrame / fs, onsets, fs)) break;
-      gateChannels(window, endFrame - startFrame, startFrame / fs, onsets, fs, gate);
-      const gated = measureDirect(window);
+      if (gate === SHORT_CHANNEL_GATE && !startsSharply(heardWindow, endFrame - startFrame, startFrame / fs, heardOnsets, fs)) break;
+      gateChannels(heardWindow, endFrame - startFrame, startFrame / fs, heardOnsets, fs, gate);
+      const gated = measureDirect(heardWindow);
       const gatedAgreement = agreement(gated);
       if (gatedAgreement > best || (gatedAgreement === best && gate === LONG_CHANNEL_GATE)) { pairs = gated; best = gatedAgreement; }
     }
   }
   const floorSeconds = (MIN_ARRIVAL_SIGMA_SAMPLES * Math.SQRT2) / fs;
   const flooredPairs = pairs.map((pair) => (pair.sigmaSeconds >= floorSeconds ? pair : { ...pair, sigmaSeconds: floorSeconds }));
-  const reduced = reducePairsToReference(microphones.length, flooredPairs, referenceIndex);
+  const reduced = reducedOnWholeArray(reducePairsToReference(heard.length, flooredPairs, heardReference, undefined, (index) => present[index]! + 1), present);
   warnings.push(...reduced.warnings);
   const timingEvidence = reduced.delays.length > 0 ? timingEvidenceOf(toSolverMicrophones(context.geometry), reduced, solveOptions(context.settings, marginSeconds)) : undefined;
   // The peaks not chosen served the choice only: left out, they would be half of what each event keeps until the end.
-  const chosen = pairs.map(({ otherPeaks: _notChosen, ...pair }) => pair);
+  const chosen = pairsOnWholeArray(pairs, present).map(({ otherPeaks: _notChosen, ...pair }) => pair);
   return { event, windowStartSeconds: startFrame / fs, windowEndSeconds: endFrame / fs, bandHz, bandSnrDb, pairs: chosen, reduced, warnings, timingEvidence };
 }

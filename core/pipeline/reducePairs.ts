@@ -63,9 +63,10 @@ function normalisedResiduals(offsets: Float64Array, pairs: readonly ActivePair[]
 
 /**
  * `pairs` must connect all `microphoneCount` microphones. Pairs whose normalised residual exceeds `rejectSigma`
- * are dropped one at a time (largest first) while at least microphoneCount pairs remain.
+ * are dropped one at a time (largest first) while at least microphoneCount pairs remain. Warnings name microphones by
+ * `numberOf` (1-based position by default; a sub-array passes the whole array's numbers).
  */
-export function reducePairsToReference(microphoneCount: number, pairs: readonly PairMeasurement[], referenceIndex: number, rejectSigma = 5): ReducedDelays {
+export function reducePairsToReference(microphoneCount: number, pairs: readonly PairMeasurement[], referenceIndex: number, rejectSigma = 5, numberOf: (index: number) => number = (index) => index + 1): ReducedDelays {
   let active: ActivePair[] = pairs.map((pair) => ({ pair, weight: 1 / (pair.sigmaSeconds * pair.sigmaSeconds) }));
   const droppedPairs: ReducedDelays['droppedPairs'] = [];
   const warnings: string[] = [];
@@ -97,7 +98,7 @@ export function reducePairsToReference(microphoneCount: number, pairs: readonly 
   // A pair delay is the difference of two arrivals: σ_pair² = 2 σ_arrival².
   const arrivalSigmaSeconds = (scatterFactor * Math.sqrt(median(active.map(({ pair }) => pair.sigmaSeconds * pair.sigmaSeconds)))) / Math.SQRT2;
   if (droppedPairs.length > 0) {
-    warnings.push(`Dropped ${droppedPairs.length} pair${droppedPairs.length === 1 ? '' : 's'} whose delay broke closure with the others: ${droppedPairs.map((p) => `${p.indexA + 1}-${p.indexB + 1}`).join(', ')}.`);
+    warnings.push(`Dropped ${droppedPairs.length} pair${droppedPairs.length === 1 ? '' : 's'} whose delay broke closure with the others: ${droppedPairs.map((p) => `${numberOf(p.indexA)}-${numberOf(p.indexB)}`).join(', ')}.`);
   }
   if (scatterFactor > 2) warnings.push(`The pair delays scatter ${scatterFactor.toFixed(1)} times more than their correlation peaks suggest (echoes or a second source?); the uncertainty was enlarged to match.`);
   const delays: DelayMeasurement[] = [];
