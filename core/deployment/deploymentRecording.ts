@@ -13,7 +13,7 @@ export interface DeploymentRecording extends RecordingAccess {
   readonly layout: DeploymentLayout;
   readonly clocks: readonly RecorderClock[];
   /** Per channel: true time of the sample read at `atSeconds` in a window read from `startFrame`, minus its nominal time. */
-  windowAlignment(startFrame: number, frameCount: number, atSeconds: number): WindowAlignment;
+  windowAlignment(startFrame: number, frameCount: number, atSeconds: number, channelSeconds?: ReadonlyArray<number | undefined>): WindowAlignment;
   /**
    * Frames of one recorder on its own nominal time (no clock correction), from the whole frame nearest `nominalStartSeconds`:
    * one array per microphone of the recorder, the exact nominal time of the first frame, and whether any frame was in a gap.
@@ -170,11 +170,12 @@ export function deploymentRecording(layout: DeploymentLayout, open: OpenDeployme
       await Promise.all(layout.recorders.map((_, r) => fillRecorder(r, recorderStartFrame(r, first), frames, channelsOfRecorder[r]!.map((c) => channels[c]))));
       return channels;
     },
-    windowAlignment(startFrame, count, atSeconds) {
+    windowAlignment(startFrame, count, atSeconds, channelSeconds) {
       const shiftSeconds: number[] = [];
       const silentChannels: number[] = [];
-      const k = Math.round(atSeconds * fs - startFrame);
       layout.microphones.forEach((microphone, c) => {
+        // The clock drifts on between the event's first arrival and this channel's own: its shift is taken where it hears it.
+        const k = Math.min(Math.max(Math.round((channelSeconds?.[c] ?? atSeconds) * fs - startFrame), 0), Math.max(0, count - 1));
         const recorder = layout.recorders[microphone.recorderIndex]!;
         const clock = recorderClocks[microphone.recorderIndex]!;
         const segments = segmentsOf(recorder, recorderStartFrame(microphone.recorderIndex, startFrame), count)

@@ -253,8 +253,9 @@ async function measureEventNow(recording: RecordingAccess, event: DetectedEvent,
   taperWindow(window, endFrame - startFrame, fs);
   const microphones = context.geometry.microphones;
   const referenceIndex = onset?.microphoneIndex ?? 0;
-  // Channels from several recorders' clocks (a deployment): each pair corrected by the channels' sub-sample shifts at the onset.
-  const alignment = recording.windowAlignment?.(startFrame, endFrame - startFrame, onset?.seconds ?? startFrame / fs);
+  // Channels from several recorders' clocks (a deployment): each pair corrected by the channels' sub-sample shifts, each
+  // taken at that channel's own onset (the clocks drift on between the first arrival and the last).
+  const alignment = recording.windowAlignment?.(startFrame, endFrame - startFrame, onset?.seconds ?? startFrame / fs, event.onsetSeconds);
   if (alignment !== undefined && alignment.silentChannels.length > 0) warnings.push(`${alignment.silentChannels.length} microphone${alignment.silentChannels.length === 1 ? ' was' : 's were'} not recording during this event (a gap between files); ${alignment.silentChannels.length === 1 ? 'its pairs were' : 'their pairs were'} left out.`);
   // Only the microphones that were recording take part (a recorder in a gap leaves the others to place the sound).
   const present = presentMicrophones(alignment, context.channelIndexOfMicrophone);

@@ -7,7 +7,8 @@ export interface RecordingAccess {
   /** Frames [startFrame, startFrame + frameCount) clipped to the file, one array per channel. */
   readFrames(startFrame: number, frameCount: number, out?: Float32Array[]): Promise<Float32Array[]>;
   /** Recordings stitched from several clocks (core/deployment) say how a window's channels line up; a file needs nothing. */
-  windowAlignment?(startFrame: number, frameCount: number, atSeconds: number): WindowAlignment;
+  /** Each channel's shift is taken at `channelSeconds[channel]` (its own arrival) when given, else at `atSeconds`. */
+  windowAlignment?(startFrame: number, frameCount: number, atSeconds: number, channelSeconds?: ReadonlyArray<number | undefined>): WindowAlignment;
 }
 
 /** How a window's channels line up in true time (./windowAlignment.ts applies it to the pair delays). */

@@ -314,7 +314,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     if (located === undefined || 'error' in speed || state.recording === undefined) { setCorrelations(undefined); return; }
     let live = true;
     const usedPairs = located.reduced.droppedPairs.length === 0 ? undefined : located.pairs.filter((p) => !located.reduced.droppedPairs.some((d) => d.indexA === p.indexA && d.indexB === p.indexB)).map((p) => `${p.indexA}-${p.indexB}`);
-    bridge().call<CorrelationPlots>('correlations', { context: locateContext(stateRef.current.document, speed, stateRef.current.recording?.deployment), startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, usedPairs }).promise.then(
+    bridge().call<CorrelationPlots>('correlations', { context: locateContext(stateRef.current.document, speed, stateRef.current.recording?.deployment), startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, usedPairs, ...(located.firstArrivalSeconds !== undefined ? { atSeconds: located.firstArrivalSeconds } : {}), channelSeconds: located.event.onsetSeconds }).promise.then(
       (plots) => { if (live) setCorrelations(plots); },
       (error: unknown) => { if (live) { setCorrelations(undefined); notify('warning', `Correlation plots: ${message(error)}`); } },
     );

@@ -55,7 +55,7 @@ export interface WorkerRequestMap {
   syncClocks: SyncClocksParams;
   /** Back to each recorder's own file stamps; needs an open deployment. */
   clearClocks: Record<string, never>;
-  /** Correlation plots of a span; for a deployment each pair's delay is aligned at `atSeconds` (default the span's start). */
+  /** Correlation plots of a span; for a deployment each pair's delay is aligned at `atSeconds` (default the span's start), or per channel at `channelSeconds`. */
   correlations: SpanCorrelationParams;
 }
 

@@ -12,6 +12,8 @@ export interface SpanCorrelationParams {
   usedPairs?: string[];
   /** Deployments: where in the span the channels are aligned (the sound's first arrival), seconds; default the span's start, as for a fix without an onset. */
   atSeconds?: number;
+  /** Deployments: per recording channel, where that channel is aligned (its own onset: the event's onsetSeconds), as the fix's pairs are. */
+  channelSeconds?: Array<number | undefined>;
 }
 
 export async function spanCorrelations(recording: RecordingAccess, params: SpanCorrelationParams): Promise<CorrelationPlots> {
@@ -26,6 +28,6 @@ export async function spanCorrelations(recording: RecordingAccess, params: SpanC
   const options = used === undefined ? {} : { isPairUsed: (a: number, b: number) => used.has(`${a}-${b}`) };
   const plots = correlationPlots(channels, microphones.map((m) => m.label), microphones, params.context.settings.speedMetersPerSecond, fs, params.bandHz, params.context.settings.weighting, options);
   // A deployment's channels come from several clocks: each pair corrected by the shifts at the sound (core/pipeline locateEvent does the same).
-  const alignment = recording.windowAlignment?.(startFrame, frames, params.atSeconds ?? startFrame / fs);
+  const alignment = recording.windowAlignment?.(startFrame, frames, params.atSeconds ?? startFrame / fs, params.channelSeconds);
   return alignCorrelationPlots(plots, alignment, params.context.channelIndexOfMicrophone);
 }

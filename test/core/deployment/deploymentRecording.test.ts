@@ -140,5 +140,9 @@ describe('deploymentRecording()', () => {
     // true time of recorder frame 190 (n = 0.69 s): 0.69 + 0.0103 + 1e-3 * 0.19 = 0.70049 s; minus 0.7 s nominal
     expect(shift).toBeCloseTo(0.00049, 9);
     expect(recording.windowAlignment(700, 10, 0.7).shiftSeconds[0]).toBe(0);
+    // Taken at the channel's own arrival 5 ms later, the shift has drifted on: recorder frame 195 (n = 0.695 s) is true time
+    // 0.695 + 0.0103 + 1e-3 * 0.195 = 0.705495 s, minus 0.705 s nominal (computed by hand from the model's definition)
+    expect(recording.windowAlignment(700, 10, 0.7, [undefined, 0.705]).shiftSeconds[1]).toBeCloseTo(0.000495, 9);
+    expect(recording.windowAlignment(700, 10, 0.7, [0.705, undefined]).shiftSeconds[1]).toBeCloseTo(0.00049, 9);
   });
 });

@@ -210,7 +210,7 @@ describe('openDeploymentSession() on a deployment with clock offsets and drifts'
       const sound = scene.spec.scene.sources.find((s) => s.id === id)!;
       const onReference = clockNominalSeconds(DEPLOYMENT_CLOCKS[0]!, sound.emissionTimeSeconds);
       const located = result.located.find((event) => Math.abs(event.emissionTimeSeconds! - onReference) < 0.05)!;
-      const plots = await spanCorrelations(session.recording(), { context, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, atSeconds: located.firstArrivalSeconds });
+      const plots = await spanCorrelations(session.recording(), { context, startSeconds: located.windowStartSeconds, endSeconds: located.windowEndSeconds, bandHz: located.bandHz, atSeconds: located.firstArrivalSeconds, channelSeconds: located.event.onsetSeconds });
       for (const pair of plots.pairs) {
         // expected: the fix's own delay of the pair (core/pipeline locateEvent, aligned by alignPairs) over the same window
         const fixed = located.pairs.find((p) => p.indexA === pair.indexA && p.indexB === pair.indexB);
