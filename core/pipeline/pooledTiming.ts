@@ -3,10 +3,6 @@
 import { solveMeasuredEvent, type LocateContext, type LocatedEvent, type MeasuredEvent } from './locateEvent';
 import { estimateTimingNoise, MIN_POOLED_DEGREES_OF_FREEDOM, MIN_POOLED_EVENTS, type TimingEvidence, type TimingNoiseModel } from './timingNoise';
 
-export interface PooledTiming extends PooledTimingModels {
-  located: LocatedEvent[];
-}
-
 /** The recording's timing-noise models (fitTimingModels) and which one solves a given event. */
 export interface PooledTimingModels {
   /** The model of all events together (used for band classes with too few events of their own). */
@@ -79,10 +75,4 @@ export function fitTimingModels(measured: ReadonlyArray<Pick<MeasuredEvent, 'ban
   const classes = [...classModels.entries()].map(([key, m]) => `band class ${key}: ${describeTimingModel(m)}`);
   const note = classes.length === 0 ? describeTimingModel(model) : `${classes.join('; ')}${classModels.size < evidenceByClass.size ? `; other sounds: ${describeTimingModel(model)}` : ''}`;
   return { model, classModels, note, modelOf };
-}
-
-/** fitTimingModels, then each event solved with its class's model. The events must have been measured under `context`. */
-export function poolTimingNoise(measured: readonly MeasuredEvent[], context: LocateContext, sampleRateHz: number): PooledTiming {
-  const models = fitTimingModels(measured);
-  return { ...models, located: measured.map((event) => solveMeasuredEvent(event, context, sampleRateHz, models.modelOf(event))) };
 }

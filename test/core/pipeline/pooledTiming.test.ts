@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { DetectedEvent } from '../../../core/detect';
 import type { LocateContext, MeasuredEvent, ReducedDelays, TimingEvidence } from '../../../core/pipeline';
-import { poolTimingNoise } from '../../../core/pipeline/pooledTiming';
+import { solveMeasuredEvent } from '../../../core/pipeline/locateEvent';
+import { fitTimingModels } from '../../../core/pipeline/pooledTiming';
 import type { Point3 } from '../../helpers/geometry';
 
 // Six microphones around a 10 m site and a source inside; c = 343 m/s. Invented test geometry (as locateEvent.test.ts).
@@ -30,13 +31,19 @@ function measured(i: number, bandHz: { lowHz: number; highHz: number }, k: numbe
   return { event, windowStartSeconds: startSeconds, windowEndSeconds: startSeconds + 0.2, bandHz, bandSnrDb: 20, pairs: [], reduced, warnings: [], timingEvidence: evidence };
 }
 
-describe('poolTimingNoise()', () => {
+/** fitTimingModels, then each event solved with its class's model (as runPipeline does). */
+function poolTimingNoise(events: readonly MeasuredEvent[]) {
+  const models = fitTimingModels(events);
+  return { ...models, located: events.map((event) => solveMeasuredEvent(event, context, 48_000, models.modelOf(event))) };
+}
+
+describe('fitTimingModels()', () => {
   // Three band classes (octave of the band centre): 21 events at 2 kHz whose residuals scatter at their correlation sigma
   // (k = 1), 21 at 8 kHz at three times it (k = 3), and 5 at 500 Hz, too few for a model of their own.
   const twoKilohertz = Array.from({ length: 21 }, (_, i) => measured(i, { lowHz: 1400, highHz: 2800 }, 1));
   const eightKilohertz = Array.from({ length: 21 }, (_, i) => measured(21 + i, { lowHz: 5600, highHz: 11200 }, 3));
   const fewLow = Array.from({ length: 5 }, (_, i) => measured(42 + i, { lowHz: 350, highHz: 700 }, 2));
-  const pooled = poolTimingNoise([...twoKilohertz, ...eightKilohertz, ...fewLow], context, 48_000);
+  const pooled = poolTimingNoise([...twoKilohertz, ...eightKilohertz, ...fewLow]);
 
   it('fits each band class with 20 events or more to its own events only', () => {
     expect([...pooled.classModels.keys()].sort()).toEqual(['2000 Hz', '8000 Hz']);
