@@ -32,6 +32,11 @@ export function blobByteSource(blob: Blob, name: string): ByteSource {
       throw failed(start, error);
     }
   };
+  const sliceInto = async (start: number, end: number, target: Uint8Array): Promise<number> => {
+    const bytes = await read(start, end - start);
+    target.set(bytes);
+    return bytes.length;
+  };
   let sequential: SequentialReader | undefined;
   let lastEndBytes = -1;
   let streaming = false;
@@ -56,17 +61,13 @@ export function blobByteSource(blob: Blob, name: string): ByteSource {
       const large = end - start >= STREAM_MIN_READ_BYTES;
       const continues = large && (start === lastEndBytes || start === sequential?.offsetBytes);
       if (large) lastEndBytes = end;
-      if (!continues || !streamsWork || streaming) {
-        const bytes = await read(start, end - start);
-        target.set(bytes);
-        return bytes.length;
-      }
+      if (!continues || !streamsWork || streaming) return sliceInto(start, end, target);
       streaming = true;
       try {
         if (sequential?.offsetBytes !== start) {
           void sequential?.reader.cancel().catch(() => undefined);
           sequential = openStream(start);
-          if (sequential === undefined) return await this.readInto!(start, target);
+          if (sequential === undefined) return await sliceInto(start, end, target);
         }
         let done = 0;
         while (done < end - start) {
