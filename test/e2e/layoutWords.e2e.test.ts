@@ -42,6 +42,15 @@ async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: join(SHOTS, `${size?.width}x${size?.height}-${name}.png`) });
 }
 
+/** A screenshot of each tab in turn, then back to the recording. */
+async function shotTabs(page: Page, tabs: readonly string[]): Promise<void> {
+  for (const tab of tabs) {
+    await page.locator(`[data-testid="tab-${tab}"]`).click();
+    await shot(page, `08-tab-${tab}`);
+  }
+  await page.locator('[data-testid="tab-recording"]').click();
+}
+
 /** The CSV's `#` head lines and its rows. */
 function csvParts(text: string): { head: string[]; table: ReturnType<typeof readCsv> } {
   return { head: text.split('\n').filter((line) => line.startsWith('#')), table: readCsv(text, 'log.csv') };
@@ -293,13 +302,7 @@ describe.runIf(run)('layout, notices, words and exports in a browser', () => {
     await page.mouse.down();
     await page.mouse.move(splitter.x + splitter.width / 2, splitter.y + 200, { steps: 5 });
     await page.mouse.up();
-    for (const tab of ['settings', 'microphones']) {
-      await page.locator(`[data-testid="tab-${tab}"]`).click();
-      await shot(page, `08-tab-${tab}`);
-    }
-    await page.locator('[data-testid="tab-safety"]').click();
-    await shot(page, '08-tab-safety');
-    await page.locator('[data-testid="tab-recording"]').click();
+    await shotTabs(page, ['settings', 'microphones', 'safety']);
   }, 180_000);
 
   it('defect 7: at 1280 x 720 three recording lanes and the map are in view', async () => {
@@ -314,15 +317,7 @@ describe.runIf(run)('layout, notices, words and exports in a browser', () => {
     // Time axis 38 px (the demo has a start time), lanes 44 px for six channels (renderer/recording/drawRecording.ts).
     expect((visibleBottom - lanes.y - 38) / 44).toBeGreaterThanOrEqual(3);
     await shot(page, '07g-small-window');
-    for (const tab of ['settings', 'microphones']) {
-      await page.locator(`[data-testid="tab-${tab}"]`).click();
-      await shot(page, `08-tab-${tab}`);
-    }
-    await page.locator('[data-testid="tab-correlations"]').click();
-    await shot(page, '08-tab-correlations');
-    await page.locator('[data-testid="tab-safety"]').click();
-    await shot(page, '08-tab-safety');
-    await page.locator('[data-testid="tab-recording"]').click();
+    await shotTabs(page, ['settings', 'microphones', 'correlations', 'safety']);
     await page.locator('[data-testid="map-layer"]').selectOption('srp');
     await shot(page, '08-layer-srp');
     await page.locator('[data-testid="map-layer"]').selectOption('none');

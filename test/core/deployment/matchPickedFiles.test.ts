@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { matchPickedFiles, normalisePickedPath, parseDeploymentCsv } from '../../../core/deployment';
 import { expectWhenceError } from '../../helpers/expectWhenceError';
 
-// Expected values: the picked files each table line names (test-made tables and folders).
+// Expected values: the picked files each table line names (test-made tables and folders); '.', '..' and '\' are read as
+// POSIX path resolution and Windows separators read them (common practice).
 const table = (...files: string[]) => parseDeploymentCsv(['recorder,file,file_channel,microphone', ...files.map((file, i) => `R${i + 1},${file},1,M${i + 1}`)].join('\n') + '\n', 'deployment.csv');
 const match = (files: string[], tablePath: string, picked: string[]) => Object.fromEntries([...matchPickedFiles(table(...files), tablePath, picked)].map(([file, index]) => [file, picked[index]]));
 

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { MENU_COMMANDS, type MenuCommand } from '../../../core/contract';
 import { runMenuCommand, type MenuTarget } from '../../../renderer/state/menuCommands';
 
+// Expected values: the action each menu command names in core/contract's MENU_COMMANDS (the app's own wiring, no outside source).
+
 /** A controller that records which of its methods each command called, and with what. */
 function recordingTarget(): { target: MenuTarget; calls: string[] } {
   const calls: string[] = [];
