@@ -29,16 +29,15 @@ export interface DeploymentSession {
 export async function openDeploymentSession(source: DeploymentSource): Promise<DeploymentSession> {
   const table = parseDeploymentCsv(source.table.text, pathBaseName(source.table.name));
   const matched = matchPickedFiles(table, source.table.name, source.files.map((file) => file.path));
-  const open: OpenDeploymentFile = (file) => {
+  /** The picked file the table's `file` names, as a ByteSource. */
+  const pickedSource = (file: string) => {
     const picked = source.files[matched.get(file)!]!;
-    return Promise.resolve(blobByteSource(picked.blob, picked.path));
+    return blobByteSource(picked.blob, picked.path);
   };
+  const open: OpenDeploymentFile = (file) => Promise.resolve(pickedSource(file));
   const base = await openDeploymentTable(table, open, source.nameTime !== undefined ? { nameTime: nameTimePattern(source.nameTime) } : {});
   const fingerprints: string[] = [];
-  for (const file of [...new Set(table.rows.map((row) => row.file))]) {
-    const picked = source.files[matched.get(file)!]!;
-    fingerprints.push(await recordingFingerprint(blobByteSource(picked.blob, picked.path)));
-  }
+  for (const file of [...new Set(table.rows.map((row) => row.file))]) fingerprints.push(await recordingFingerprint(pickedSource(file)));
   let current = base;
   const replace = async (next: DeploymentRecording) => {
     const previous = current;
