@@ -1,7 +1,7 @@
 // `whence locate --deployment D.csv --array A.csv [--calibration C.csv | --shared-sounds S.csv]`: locates over a recorder deployment read as one
 // recording (core/deployment), optionally over a span (--from/--to: local ISO times or seconds from its earliest start).
 import { basename } from 'node:path';
-import { deploymentSeconds, microphonesByLabel } from '../../../core/deployment';
+import { deploymentChannelIndices, deploymentSeconds } from '../../../core/deployment';
 import { surveyLogRunNotes, type SurveyLogContext } from '../../../core/export';
 import { parseArrayCsv } from '../../../core/project';
 import type { LocateContext } from '../../../core/pipeline';
@@ -36,13 +36,13 @@ export async function runLocateDeployment(values: ParsedCommand['values'], io: C
   const opened = await openDeploymentFromOptions(values, geometry, speed.speedMetersPerSecond, io, optionalString(values, 'band'));
   const { recording } = opened;
   try {
-    microphonesByLabel(geometry, recording);
+    const channelIndexOfMicrophone = deploymentChannelIndices(recording.layout, geometry);
     const labels = recording.layout.microphones.map((m) => m.label);
     const unused = labels.filter((label) => !geometry.microphones.some((m) => m.label === label));
     const warnings = [...recording.info.warnings, ...geometry.warnings, ...speed.warnings];
     if (unused.length > 0) warnings.push(`The deployment's microphone${unused.length === 1 ? '' : 's'} ${unused.map((l) => `'${l}'`).join(', ')} ${unused.length === 1 ? 'is' : 'are'} not in the array table and ${unused.length === 1 ? 'is' : 'are'} ignored.`);
     for (const warning of warnings) io.writeStderr(`warning: ${warning}\n`);
-    const context: LocateContext = { geometry, channelIndexOfMicrophone: geometry.microphones.map((m) => labels.indexOf(m.label)), settings };
+    const context: LocateContext = { geometry, channelIndexOfMicrophone, settings };
     const fromSeconds = spanBound(values, 'from', recording.layout.origin);
     const toSeconds = spanBound(values, 'to', recording.layout.origin);
     // Worker threads open the deployment's files themselves, through the same layout and clocks.
