@@ -3,7 +3,7 @@
 // per sound its residuals (µs) and a shared sound's fitted place (m), and the way back.
 import { useState } from 'react';
 import type { ClockFitKind, DeploymentLayout } from '../../core/deployment';
-import type { PickedTable } from '../state/useWorkspace';
+import type { PickedTable } from './pickedFiles';
 import { clockFitKindWords, clocksInUseText, offsetPriorFromMs, recorderClockRows, residualMicrophones, RESIDUAL_MARK_SIGMAS, soundResidualRows, type ClocksInUse } from './clockFitRows';
 import './deployment.css';
 

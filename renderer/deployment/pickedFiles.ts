@@ -44,6 +44,9 @@ export function csvKindOfHead(text: string): CsvKind {
 
 export interface PickedCsv { path: string; kind: CsvKind }
 
+/** A calibration or shared-sound table of the picked deployment's folder (or files), offered by the Clock fit panel. */
+export interface PickedTable { name: string; text: string }
+
 export type TableChoice =
   | { kind: 'one'; path: string }
   | { kind: 'ask'; paths: string[] }

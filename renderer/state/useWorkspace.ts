@@ -17,7 +17,7 @@ import type { Host, OpenedRecording } from '../host';
 import { pickFiles } from '../host/pickFiles';
 import { PipelineBridge, WorkerCallError, type WorkerCall } from '../worker/bridge';
 import type { SyncClocksParams, WorkerOpenResult } from '../worker/protocol';
-import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath } from '../deployment/pickedFiles';
+import { chooseDeploymentTable, csvKindOfHead, deploymentSizeBytes, isAudioFileName, isCsvFileName, pickedPath, type PickedTable } from '../deployment/pickedFiles';
 import { clockFitKindWords, clocksInUseText, clocksPhrase, type ClocksInUse } from '../deployment/clockFitRows';
 import { deploymentLogNotes, deploymentOpenedText, deploymentErrorHint } from '../deployment/deploymentNotes';
 import { fixLogContextOf, geometryOf, locateContext, locateReadiness, speedInUse, type SpeedInUse } from './derive';
@@ -46,8 +46,7 @@ function createWorker(): Worker {
 /** How a deployment is picked: a folder holding its table and files, or the table and its files picked together. */
 export type DeploymentPick = 'folder' | 'files';
 
-/** A calibration table of the picked deployment's folder (or files), offered by the Clock fit panel. */
-export interface PickedTable { name: string; text: string }
+export type { PickedTable };
 
 export interface WorkspaceController {
   state: WorkspaceState;
