@@ -133,7 +133,7 @@ function FixRow({ row, entry, selected, showUp, geo, mixed, onSelect, onUpdate }
         <input type="checkbox" checked={row.accepted} data-testid={`fixlog-accept-${row.id}`} aria-label={`Keep event ${row.eventNumber} (accepted fixes are exported)`} onChange={(event) => onUpdate(row.id, { accepted: event.target.checked })} />
       </td>
       <td className="fl-num fl-event" title={`Event ${row.eventNumber} of ${row.recordingName}`} data-recording={row.recordingName} data-testid={`fixlog-event-${row.id}`}>
-        {mixed && <span className="fl-recording" style={{ display: 'block', maxWidth: '9em', overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap', fontSize: '0.8em', opacity: 0.75 }}>{row.recordingName}</span>}
+        {mixed && <span className="fl-recording">{row.recordingName}</span>}
         <button type="button" className="fl-link" onClick={select} aria-label={`Show event ${row.eventNumber} of ${row.recordingName}`}>{row.eventNumber}</button>
       </td>
       <td className="fl-verdict" data-testid={`fixlog-verdict-${row.id}`} data-verdict={row.verdict} title={row.verdictReason}>
