@@ -5,8 +5,6 @@ import { printableText } from '../text';
 import type { LocalInstant } from './localTime';
 import { deploymentSeconds, readRoughSoundRows } from './roughSoundRows';
 
-export { deploymentSeconds } from './roughSoundRows';
-
 export interface CalibrationSound {
   label: string;
   lineNumber: number;

@@ -6,7 +6,8 @@ export { describeStartSources, layoutDeployment, type DeploymentFileHeader, type
 export { clockNominalSeconds, clockRelativeTo, clockTrueSeconds, type RecorderClock } from './clockModel';
 export { fitClocks, type ClockFitInput, type ClockFitResult, type ClockObservation, type RecorderClockFit } from './clockFit';
 export { deploymentRecording, type DeploymentRecording, type OpenDeploymentFile } from './deploymentRecording';
-export { deploymentSeconds, parseCalibrationCsv, type CalibrationSound } from './calibrationTable';
+export { parseCalibrationCsv, type CalibrationSound } from './calibrationTable';
+export { deploymentSeconds } from './roughSoundRows';
 export { measureCalibrationArrivals, type ArrivalOptions, type CalibrationArrivals } from './calibrationArrivals';
 export { DEFAULT_OFFSET_SIGMA_SECONDS, microphonesByLabel, OFFSET_SIGMA_LIMITS_SECONDS, syncDeployment, syncDeploymentFromSharedSounds, type DeploymentSync, type SharedSoundSyncOptions } from './syncDeployment';
 export { parseSharedSoundsCsv, type SharedSound } from './sharedSoundTable';
