@@ -273,7 +273,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     try {
       const index = Math.max(-1, maxOf(current.events.map((e) => e.event.index))) + 1;
       const located = await bridge().call<LocatedEvent>('locateSpan', { context: ready.context, startSeconds, endSeconds, index }).promise;
-      if (replaceIds.size > 0) dispatch({ type: 'fixes/set', fixes: stateRef.current.document.fixes.filter((entry) => !replaceIds.has(entry.id)) });
+      if (replaceIds.size > 0) dispatch({ type: 'fixes/remove', ids: replaceIds });
       dispatch({ type: 'events/add', event: located });
       dispatch({ type: 'fixes/log-events', indices: [current.events.length] });
       notify(located.solve.status === 'ok' ? 'info' : 'warning', `Selection ${startSeconds.toFixed(2)}-${endSeconds.toFixed(2)} s: ${located.solve.status}${located.solve.status === 'ok' ? '' : ` (${located.solve.warnings[0] ?? 'no fix'})`}; ${replaceIds.size > 0 ? `it replaces the logged fix of event ${duplicates.map((entry) => entry.eventIndex + 1).join(', ')} in the log` : duplicates.length > 0 ? 'added to the log beside the one already there' : 'added to the log'}.`);
@@ -422,8 +422,7 @@ export function useWorkspace(host: Host): WorkspaceController {
     if (stale.length > 0) {
       const choice = await ask(staleFixesQuestion(stale.length, recording.name, clocksPhrase(before), clocksPhrase(after)));
       if (choice === 'remove') {
-        const ids = new Set(stale.map((entry) => entry.id));
-        dispatch({ type: 'fixes/set', fixes: stateRef.current.document.fixes.filter((entry) => !ids.has(entry.id)) });
+        dispatch({ type: 'fixes/remove', ids: new Set(stale.map((entry) => entry.id)) });
         notify('info', `Removed ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with ${clocksPhrase(before)} from the log (Undo brings them back).`);
       } else {
         notify('warning', `The fix log keeps ${stale.length} fix${stale.length === 1 ? '' : 'es'} of ${recording.name} located with ${clocksPhrase(before)}, not ${clocksPhrase(after)} now in use: they are not moved. Log the fixes located again and delete the old ones when you are sure.`);

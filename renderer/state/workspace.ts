@@ -64,6 +64,8 @@ export type WorkspaceAction =
   | { type: 'fixes/log-events'; indices: number[] }
   | { type: 'fix/update'; id: string; patch: Partial<Pick<FixLogEntry, 'label' | 'note' | 'accepted'>> }
   | { type: 'fixes/set'; fixes: FixLogEntry[] }
+  /** Takes the fixes with these ids out of the log (one undoable edit). */
+  | { type: 'fixes/remove'; ids: ReadonlySet<string> }
   | { type: 'fix/select'; id: string | undefined }
   | { type: 'busy/set'; busy: Busy | undefined }
   | { type: 'notice/add'; level: Notice['level']; text: string; cause?: string }
@@ -180,6 +182,8 @@ export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction)
       return undoableEdit(state, { ...state.document, fixes: state.document.fixes.map((fix) => (fix.id === action.id ? { ...fix, ...action.patch } : fix)) }, snapshotOf(state.document, 'fixes', 'fix log edit'));
     case 'fixes/set':
       return undoableEdit(state, { ...state.document, fixes: action.fixes }, snapshotOf(state.document, 'fixes', 'fix log edit'));
+    case 'fixes/remove':
+      return undoableEdit(state, { ...state.document, fixes: state.document.fixes.filter((entry) => !action.ids.has(entry.id)) }, snapshotOf(state.document, 'fixes', 'fix log edit'));
     case 'fix/select':
       return { ...state, selectedFixId: action.id };
     case 'busy/set':

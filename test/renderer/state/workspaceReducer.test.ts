@@ -56,6 +56,14 @@ describe('workspaceReducer() and the fix log', () => {
     expect(second.document.fixes[2]!.origin).toEqual({ latitudeDegrees: 40, longitudeDegrees: -3, heightMeters: 600 });
     expect(new Set(second.document.fixes.map((fix) => fix.id)).size).toBe(4);
   });
+
+  it('fixes/remove takes out only the fixes named, as one edit that Undo brings back', () => {
+    const logged = demoWithLog();
+    const [first, second] = logged.document.fixes;
+    const removed = run(logged, { type: 'fixes/remove', ids: new Set([first!.id]) });
+    expect(removed.document.fixes).toEqual([second]);
+    expect(run(removed, { type: 'edit/undo' }).document.fixes).toEqual(logged.document.fixes);
+  });
 });
 
 describe('workspaceReducer() and conditions', () => {
