@@ -21,10 +21,15 @@ export function detectionSections(bandHz: DetectionBand, sampleRateHz: number): 
   ];
 }
 
+/** detectionSections packed as b0, b1, b2, a1, a2 of each section in turn (15 numbers). */
+function detectionCoefficients(bandHz: DetectionBand, sampleRateHz: number): Float64Array {
+  const coefficients = new Float64Array(15);
+  detectionSections(bandHz, sampleRateHz).forEach((s, i) => coefficients.set([s.b0, s.b1, s.b2, s.a1, s.a2], 5 * i));
+  return coefficients;
+}
+
 export function createBandEnergyChannel(bandHz: DetectionBand, sampleRateHz: number, hopFrames: number): BandEnergyChannel {
-  const sections = detectionSections(bandHz, sampleRateHz);
-  const c = new Float64Array(15);
-  sections.forEach((s, i) => c.set([s.b0, s.b1, s.b2, s.a1, s.a2], 5 * i));
+  const c = detectionCoefficients(bandHz, sampleRateHz);
   const z = new Float64Array(6);
   // The running hop's sum is kept in a typed array, not a closure variable: a double written to a closure variable is boxed
   // (a new heap number on every call), which made this loop the largest allocator of a locate run's scanning thread.
@@ -111,8 +116,7 @@ export interface BandEnergyBank {
 }
 
 export function createBandEnergyBank(bandHz: DetectionBand, sampleRateHz: number, hopFrames: number, channelCount: number): BandEnergyBank {
-  const coefficients = new Float64Array(15);
-  detectionSections(bandHz, sampleRateHz).forEach((s, i) => coefficients.set([s.b0, s.b1, s.b2, s.a1, s.a2], 5 * i));
+  const coefficients = detectionCoefficients(bandHz, sampleRateHz);
   const groups: Array<{ first: number; group: BandEnergyGroup }> = [];
   const size = groupKernels?.groupChannels ?? 0;
   let next = 0;
