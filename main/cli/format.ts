@@ -1,4 +1,4 @@
-// Text formatting for the command line's human-readable output (aligned key/value lines, clock durations), and the
+// Text formatting for the command line's human-readable output (clock durations, verdict tallies), and the
 // guard that keeps text from files from reaching the terminal as control sequences.
 import type { FixRecord } from '../../core/export';
 import { VERDICT_GRADES } from '../../core/locate';
@@ -18,9 +18,6 @@ export function formatDurationClock(durationSeconds: number): string {
 export function verdictTally(records: readonly FixRecord[]): string {
   return VERDICT_GRADES.map((grade) => `${records.filter((record) => record.verdict === grade).length} ${grade}`).join(', ');
 }
-
-/** Key/value lines with the values aligned in one column (core/text, so the app prints the same tables). */
-export { formatTable } from '../../core/text';
 
 /**
  * Text for the terminal: line breaks and a progress line's leading carriage return kept, every other control character

@@ -4,8 +4,8 @@ import { readWavInfo, type WavInfo } from '../../../core/audio';
 import { openFileByteSource } from '../../io';
 import type { CliIo } from '../io';
 import { parseCommandArgs, UsageError } from '../parse';
-import { formatDurationClock, formatTable, jsonForTerminal, terminalSafe } from '../format';
-import { printableText } from '../../../core/text';
+import { formatDurationClock, jsonForTerminal, terminalSafe } from '../format';
+import { formatTable, printableText } from '../../../core/text';
 
 export const infoHelp = `whence info FILE [--json]
 

@@ -4,7 +4,7 @@ import { MEDIUM_DEFAULTS, speedOfSound, type SoundSpeed } from '../../../core/me
 import { mediumOptionSpec, mediumSpecFromOptions } from '../mediumOptions';
 import type { CliIo } from '../io';
 import { parseCommandArgs, UsageError } from '../parse';
-import { formatTable } from '../format';
+import { formatTable } from '../../../core/text';
 
 export const speedHelp = `whence speed --medium air|seawater|freshwater [options] [--json]
 
