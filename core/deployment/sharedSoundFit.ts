@@ -89,10 +89,11 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
   const c = input.speedMetersPerSecond;
   const referenceIndex = input.referenceIndex ?? 0;
   const mics = [...microphones.values()];
-  const soundUpMeters = input.soundUpMeters ?? mics.reduce((sum, m) => sum + m.upMeters, 0) / Math.max(1, mics.length);
+  const meanUpMeters = mics.reduce((sum, m) => sum + m.upMeters, 0) / Math.max(1, mics.length);
+  const soundUpMeters = input.soundUpMeters ?? meanUpMeters;
   const warnings: string[] = [];
   // sounds heard by too few microphones fix nothing: left out
-  const picked = withoutWrongPicks(input.observations, recorders.length, input.referenceIndex ?? 0, mics, c, sounds, warnings);
+  const picked = withoutWrongPicks(input.observations, recorders.length, referenceIndex, mics, c, sounds, warnings);
   const perSound = sounds.map((_, k) => picked.filter((o) => o.soundIndex === k).length);
   const usedSound = perSound.map((count) => count >= dimensions + 2);
   for (const [k, sound] of sounds.entries()) {
@@ -253,7 +254,7 @@ export function fitClocksFromSharedSounds(input: SharedSoundFitInput): SharedSou
   const soundCost = (params: Vec, state: Vec, i: number) => obsBySound[i]!.reduce((sum, o) => sum + (evaluate(params, state, o).residual / o.sigmaSeconds) ** 2, 0);
   let { params, states } = optimise(clockParams, soundState, true);
   // 3-D: a sound's height has a second, mirrored minimum about the microphones' mean height; try it for every sound
-  const meanUpSeconds = mics.reduce((sum, m) => sum + m.upMeters, 0) / Math.max(1, mics.length) / c;
+  const meanUpSeconds = meanUpMeters / c;
   for (let round = 0; dimensions === 3 && round < 3; round++) {
     const mirrored = optimise(params, states.map((state) => Float64Array.from(state, (v, j) => (j === 2 ? 2 * meanUpSeconds - v : v))), false).states;
     let switched = 0;
