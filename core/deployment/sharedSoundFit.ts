@@ -1,7 +1,7 @@
 // Fits recorder clocks (offset, drift) jointly with the unknown positions and emission times of sounds every recorder
 // hears, seconds and metres: Levenberg-Marquardt, sound blocks eliminated by the Schur complement; offset prior as pseudo-observations.
 import { WhenceError } from '../errors';
-import { median } from '../locate';
+import { apertureMeters, median } from '../locate';
 import type { ArrayMicrophone } from '../project';
 import { printableText } from '../text';
 import { maxOf, minOf } from '../units';
@@ -72,9 +72,7 @@ function withoutWrongPicks(observations: readonly ClockObservation[], recorderCo
     });
     return differences.length === 0 ? 0 : median(differences);
   });
-  let widestMeters = 0;
-  for (const a of mics) for (const b of mics) widestMeters = Math.max(widestMeters, Math.hypot(a.eastMeters - b.eastMeters, a.northMeters - b.northMeters, a.upMeters - b.upMeters));
-  const limitSeconds = widestMeters / c + 0.05;
+  const limitSeconds = apertureMeters(mics) / c + 0.05;
   const aligned = (o: ClockObservation) => o.nominalArrivalSeconds + offsets[o.recorderIndex]!;
   return observations.filter((o) => {
     const middle = median(observations.filter((other) => other.soundIndex === o.soundIndex).map(aligned));
